@@ -1,0 +1,63 @@
+// Nuxt 4 with the root-level layout: pages/, components/, server/, shared/ sit at the top.
+export default defineNuxtConfig({
+  compatibilityDate: '2026-06-01',
+  modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils'],
+  devtools: { enabled: false },
+  telemetry: false,
+  css: [
+    '@fontsource/inter/400.css',
+    '@fontsource/inter/500.css',
+    '@fontsource/inter/600.css',
+    '@fontsource/inter/700.css',
+    '@fontsource/merriweather/400.css',
+    '@fontsource/merriweather/700.css',
+    '@fontsource/merriweather/400-italic.css',
+    'katex/dist/katex.min.css',
+  ],
+  tailwindcss: { cssPath: '~/assets/css/tailwind.css', viewer: false },
+  app: {
+    head: {
+      htmlAttrs: { lang: 'en-GB' },
+      title: 'Tendonbook',
+      meta: [{ name: 'viewport', content: 'width=device-width, initial-scale=1' }],
+      link: [{ rel: 'icon', type: 'image/svg+xml', href: '/favicon.svg' }],
+    },
+  },
+  runtimeConfig: {
+    // NUXT_SESSION_PASSWORD is provided by scripts/start.mjs and scripts/test.mjs (kept in .data/)
+    session: {
+      name: 'tendonbook-session',
+      maxAge: 60 * 60 * 8,
+      cookie: { sameSite: 'lax' },
+    },
+    database: {
+      host: '127.0.0.1',
+      port: 3406,
+      user: 'tendonbook',
+      password: '',
+      name: 'tendonbook',
+    },
+    mail: {
+      host: '127.0.0.1',
+      port: 2526,
+      user: '',
+      password: '',
+      secure: false,
+      from: 'Tendonbook <no-reply@tendonbook.local>',
+    },
+    storage: { driver: 'fs', base: '.data/files' },
+    chromiumPath: '/usr/bin/chromium',
+    mailboxDir: '',
+    public: {
+      devMailbox: false,
+    },
+  },
+  nitro: {
+    experimental: { tasks: true },
+    imports: { dirs: ['./server/services'] },
+  },
+  typescript: { strict: true },
+  vite: {
+    optimizeDeps: { include: ['markdown-it', 'katex', 'yaml', 'd3-scale', 'd3-shape', 'zod', 'papaparse'] },
+  },
+})

@@ -1,0 +1,45 @@
+#!/usr/bin/env node
+// `npm test`: its own MariaDB (.data-test/, port 3407, emptied first), the demo seed, a production
+// build, then every vitest project (unit, integration against the real database and server,
+// end-to-end in the real Chromium); stops the database and ends with the runner's summary line.
+import { spawnSync } from 'node:child_process'
+import { rmSync } from 'node:fs'
+import { dirname, join, resolve } from 'node:path'
+import { fileURLToPath } from 'node:url'
+import { instance, serverEnv, start, stop } from './db.mjs'
+import { seed } from './seed.mjs'
+import { buildIfNeeded } from './build.mjs'
+
+const root = resolve(dirname(fileURLToPath(import.meta.url)), '..')
+const extra = process.argv.slice(2)
+
+async function main() {
+  const fresh = instance(true)
+  // Tests start from an empty database every run; the data directory itself is kept for speed.
+  await stop({ test: true }).catch(() => {})
+  rmSync(join(fresh.base, 'mariadb'), { recursive: true, force: true })
+  rmSync(join(fresh.base, 'files'), { recursive: true, force: true })
+  rmSync(join(fresh.base, 'mailbox'), { recursive: true, force: true })
+  const inst = await start({ test: true })
+  let code = 1
+  try {
+    seed(inst)
+    buildIfNeeded()
+    const result = spawnSync(process.execPath, [join(root, 'node_modules', 'vitest', 'vitest.mjs'), 'run', ...extra], {
+      cwd: root,
+      stdio: 'inherit',
+      env: { ...process.env, ...serverEnv(inst), TENDONBOOK_TEST_BASE: inst.base, NODE_ENV: 'test' },
+    })
+    code = result.status ?? 1
+  }
+  finally {
+    await stop({ test: true }).catch(() => {})
+  }
+  process.exit(code)
+}
+
+main().catch(async (error) => {
+  process.stderr.write(`[test] ${error.message}\n`)
+  await stop({ test: true }).catch(() => {})
+  process.exit(1)
+})

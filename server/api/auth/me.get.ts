@@ -1,0 +1,4 @@
+export default defineEventHandler(async (event) => {
+  const user = await requireUser(event)
+  return user
+})

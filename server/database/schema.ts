@@ -1,0 +1,83 @@
+import { sql } from 'drizzle-orm'
+import {
+  bigint, boolean, datetime, index, int, json, mediumtext, mysqlEnum, mysqlTable, uniqueIndex, varchar,
+} from 'drizzle-orm/mysql-core'
+
+/** The four roles of design.md §2. */
+import { ROLES } from '../../shared/types/roles'
+export { ROLES }
+export type { Role } from '../../shared/types/roles'
+
+// MariaDB rejects drizzle's serial(): ids are plain auto-increment ints.
+const id = () => int('id').autoincrement().primaryKey()
+const createdAt = () => datetime('created_at', { mode: 'date', fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`)
+
+export const users = mysqlTable('users', {
+  id: id(),
+  email: varchar('email', { length: 254 }).notNull(),
+  name: varchar('name', { length: 120 }).notNull(),
+  // scrypt hash from nuxt-auth-utils' hashPassword
+  passwordHash: varchar('password_hash', { length: 255 }).notNull(),
+  role: mysqlEnum('role', ROLES).notNull(),
+  disabled: boolean('disabled').notNull().default(false),
+  // bumped on disable, role change or password change: older session cookies stop working
+  sessionVersion: int('session_version').notNull().default(1),
+  createdAt: createdAt(),
+}, t => [uniqueIndex('users_email_unique').on(t.email)])
+
+export const projects = mysqlTable('projects', {
+  id: id(),
+  jobNumber: varchar('job_number', { length: 32 }).notNull(),
+  name: varchar('name', { length: 160 }).notNull(),
+  client: varchar('client', { length: 160 }).notNull().default(''),
+  site: varchar('site', { length: 200 }).notNull().default(''),
+  createdBy: int('created_by').notNull().references(() => users.id, { onDelete: 'restrict' }),
+  createdAt: createdAt(),
+}, t => [uniqueIndex('projects_job_number_unique').on(t.jobNumber)])
+
+/** One row per published template version: never changed once written. */
+export const templates = mysqlTable('templates', {
+  id: id(),
+  slug: varchar('slug', { length: 80 }).notNull(),
+  version: int('version').notNull(),
+  title: varchar('title', { length: 200 }).notNull(),
+  model: varchar('model', { length: 60 }).notNull(),
+  body: mediumtext('body').notNull(),
+  builtin: boolean('builtin').notNull().default(false),
+  publishedBy: int('published_by').references(() => users.id, { onDelete: 'restrict' }),
+  createdAt: createdAt(),
+}, t => [uniqueIndex('templates_slug_version_unique').on(t.slug, t.version)])
+
+/** The live draft of a calc sheet: inputs in engine units, bound to one template version. */
+export const sheets = mysqlTable('sheets', {
+  id: id(),
+  projectId: int('project_id').notNull().references(() => projects.id, { onDelete: 'restrict' }),
+  reference: varchar('reference', { length: 32 }).notNull(),
+  title: varchar('title', { length: 200 }).notNull(),
+  partOfStructure: varchar('part_of_structure', { length: 200 }).notNull().default(''),
+  templateId: int('template_id').notNull().references(() => templates.id, { onDelete: 'restrict' }),
+  inputs: json('inputs').notNull(),
+  // optimistic concurrency for the background save
+  draftVersion: int('draft_version').notNull().default(1),
+  createdBy: int('created_by').notNull().references(() => users.id, { onDelete: 'restrict' }),
+  updatedBy: int('updated_by').notNull().references(() => users.id, { onDelete: 'restrict' }),
+  createdAt: createdAt(),
+  updatedAt: datetime('updated_at', { mode: 'date', fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`),
+}, t => [
+  uniqueIndex('sheets_project_reference_unique').on(t.projectId, t.reference),
+  index('sheets_project_idx').on(t.projectId),
+])
+
+/** Sign-in attempts, for the per-account and per-address rate limit. */
+export const signinAttempts = mysqlTable('signin_attempts', {
+  id: bigint('id', { mode: 'number' }).autoincrement().primaryKey(),
+  email: varchar('email', { length: 254 }).notNull(),
+  address: varchar('address', { length: 64 }).notNull(),
+  success: boolean('success').notNull(),
+  createdAt: createdAt(),
+}, t => [index('signin_attempts_email_idx').on(t.email, t.createdAt), index('signin_attempts_address_idx').on(t.address, t.createdAt)])
+
+export type User = typeof users.$inferSelect
+export type Project = typeof projects.$inferSelect
+export type Template = typeof templates.$inferSelect
+export type Sheet = typeof sheets.$inferSelect

@@ -1,0 +1,34 @@
+import type { H3Event } from 'h3'
+import type { z } from 'zod'
+import { describeFieldErrors, fieldErrors } from '../../shared/utils/validation'
+
+/** A 400 that names each field at fault, in `message` and in `data.fields`. */
+export function invalidInput(error: z.ZodError): never {
+  const fields = fieldErrors(error)
+  throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: describeFieldErrors(fields), data: { fields } })
+}
+
+export async function validBody<S extends z.ZodType>(event: H3Event, schema: S): Promise<z.output<S>> {
+  let body: unknown
+  try {
+    body = await readBody(event)
+  }
+  catch {
+    throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: 'The request body is not valid JSON', data: { fields: { '(body)': 'not valid JSON' } } })
+  }
+  const result = schema.safeParse(body ?? {})
+  if (!result.success) invalidInput(result.error)
+  return result.data
+}
+
+export function validParams<S extends z.ZodType>(event: H3Event, schema: S): z.output<S> {
+  const result = schema.safeParse(getRouterParams(event, { decode: true }))
+  if (!result.success) invalidInput(result.error)
+  return result.data
+}
+
+export function validQuery<S extends z.ZodType>(event: H3Event, schema: S): z.output<S> {
+  const result = schema.safeParse(getQuery(event))
+  if (!result.success) invalidInput(result.error)
+  return result.data
+}

@@ -1,0 +1,18 @@
+import { z } from 'zod'
+
+/** One schema for the project form and the route that creates a project. */
+export const projectCreateSchema = z.object({
+  jobNumber: z.string().trim()
+    .min(1, 'Enter the job number')
+    .max(32, 'Job number is at most 32 characters')
+    .regex(/^[A-Za-z0-9][A-Za-z0-9./_-]*$/, 'Job number may hold letters, digits and . / _ - only'),
+  name: z.string().trim().min(3, 'Project name must be at least 3 characters').max(160, 'Project name is at most 160 characters'),
+  client: z.string().trim().max(160, 'Client is at most 160 characters').default(''),
+  site: z.string().trim().max(200, 'Site is at most 200 characters').default(''),
+})
+
+export type ProjectCreateBody = z.infer<typeof projectCreateSchema>
+
+export const idParamSchema = z.object({
+  id: z.coerce.number({ message: 'id must be a number' }).int().positive('id must be a positive whole number'),
+})
