@@ -4,6 +4,6 @@ import { defineConfig } from 'drizzle-kit'
 // `generate` needs no database; migrations are applied by scripts/db.mjs with drizzle-orm's migrator.
 export default defineConfig({
   dialect: 'mysql',
-  schema: './server/database/schema.ts',
+  schema: ['./server/database/schema.ts', './server/database/schema-records.ts'],
   out: './drizzle',
 })

@@ -81,3 +81,6 @@ export type User = typeof users.$inferSelect
 export type Project = typeof projects.$inferSelect
 export type Template = typeof templates.$inferSelect
 export type Sheet = typeof sheets.$inferSelect
+
+// The records side (revisions, reviews, seals, attachments, audit events, outbox) lives in its own file.
+export * from './schema-records'

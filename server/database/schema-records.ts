@@ -1,0 +1,2 @@
+// Tables of the records side: revisions, reviews, seals, attachments, audit events, outbox.
+export {}
