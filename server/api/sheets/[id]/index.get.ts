@@ -1,7 +1,7 @@
-import { idParamSchema } from '../../../shared/schemas/project'
+import { idParamSchema } from '../../../../shared/schemas/project'
 
 export default defineEventHandler(async (event) => {
   const { id } = validParams(event, idParamSchema)
   await requireUser(event)
-  return getProject(id)
+  return getSheet(id)
 })

@@ -1,0 +1,91 @@
+import { and, desc, eq, max } from 'drizzle-orm'
+import { alias } from 'drizzle-orm/mysql-core'
+import type { DraftSaveBody, SheetCreateBody } from '../../shared/schemas/sheet'
+import { fieldErrors, describeFieldErrors } from '../../shared/utils/validation'
+
+/** @throws 400 naming each input field at fault (paths start with `inputs.`). */
+export function validateInputs(model: string, inputs: unknown) {
+  const bound = modelFor(model)
+  const result = bound.inputSchema.safeParse(inputs)
+  if (!result.success) {
+    const fields = Object.fromEntries(Object.entries(fieldErrors(result.error)).map(([k, v]) => [`inputs.${k}`, v]))
+    throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: describeFieldErrors(fields), data: { fields } })
+  }
+  return result.data
+}
+
+export async function getSheet(id: number) {
+  const s = tables.sheets
+  const t = tables.templates
+  const p = tables.projects
+  const author = alias(tables.users, 'author')
+  const editor = alias(tables.users, 'editor')
+  const [row] = await useDb()
+    .select({
+      sheet: s,
+      template: { id: t.id, slug: t.slug, version: t.version, title: t.title, model: t.model, body: t.body },
+      project: { id: p.id, jobNumber: p.jobNumber, name: p.name, client: p.client, site: p.site },
+      createdByName: author.name,
+      updatedByName: editor.name,
+    })
+    .from(s)
+    .innerJoin(t, eq(t.id, s.templateId))
+    .innerJoin(p, eq(p.id, s.projectId))
+    .innerJoin(author, eq(author.id, s.createdBy))
+    .innerJoin(editor, eq(editor.id, s.updatedBy))
+    .where(eq(s.id, id))
+    .limit(1)
+  if (!row) throw createError({ statusCode: 404, message: `No calc sheet with id ${id}` })
+  const latest = await latestTemplateVersion(row.template.slug)
+  return { ...row.sheet, template: row.template, project: row.project, createdByName: row.createdByName, updatedByName: row.updatedByName, newerTemplateVersion: latest > row.template.version ? latest : null }
+}
+
+async function latestTemplateVersion(slug: string) {
+  const [row] = await useDb().select({ v: max(tables.templates.version) }).from(tables.templates).where(eq(tables.templates.slug, slug))
+  return row?.v ?? 0
+}
+
+/** A new sheet starts from the template's starter inputs; it keeps the template version it was made with. */
+export async function createSheet(projectId: number, body: SheetCreateBody, userId: number) {
+  const db = useDb()
+  const [project] = await db.select({ id: tables.projects.id }).from(tables.projects).where(eq(tables.projects.id, projectId)).limit(1)
+  if (!project) throw createError({ statusCode: 404, message: `No project with id ${projectId}` })
+  const [template] = await db.select().from(tables.templates).where(eq(tables.templates.id, body.templateId)).limit(1)
+  if (!template) throw createError({ statusCode: 400, message: 'templateId: no such template', data: { fields: { templateId: 'No such template' } } })
+  const [taken] = await db.select({ id: tables.sheets.id }).from(tables.sheets)
+    .where(and(eq(tables.sheets.projectId, projectId), eq(tables.sheets.reference, body.reference))).limit(1)
+  if (taken) throw createError({ statusCode: 409, message: `reference: ${body.reference} is already used in this project`, data: { fields: { reference: 'Already used in this project' } } })
+  const inputs = validateInputs(template.model, starterInputs(template))
+  const [{ id }] = await db.insert(tables.sheets).values({
+    projectId, reference: body.reference, title: body.title, partOfStructure: body.partOfStructure,
+    templateId: template.id, inputs, createdBy: userId, updatedBy: userId,
+  }).$returningId()
+  return getSheet(id)
+}
+
+/**
+ * Background save of the draft. Optimistic concurrency: a save based on an older draft version
+ * is refused with 409, so two tabs never silently overwrite each other.
+ */
+export async function saveDraft(id: number, body: DraftSaveBody, userId: number) {
+  const sheet = await getSheet(id)
+  const inputs = validateInputs(sheet.template.model, body.inputs)
+  const result = await useDb().update(tables.sheets)
+    .set({ inputs, draftVersion: body.draftVersion + 1, updatedBy: userId, updatedAt: new Date() })
+    .where(and(eq(tables.sheets.id, id), eq(tables.sheets.draftVersion, body.draftVersion)))
+  const affected = (result as unknown as [{ affectedRows: number }])[0].affectedRows
+  if (affected !== 1) {
+    throw createError({ statusCode: 409, message: 'This sheet was changed elsewhere since you opened it; reload to see the latest draft', data: { draftVersion: sheet.draftVersion } })
+  }
+  return { draftVersion: body.draftVersion + 1, savedAt: new Date().toISOString() }
+}
+
+/** Move a sheet to a newer version of its template (an explicit act: sheets keep their version otherwise). */
+export async function upgradeTemplate(id: number, userId: number) {
+  const sheet = await getSheet(id)
+  const [latest] = await useDb().select().from(tables.templates).where(eq(tables.templates.slug, sheet.template.slug)).orderBy(desc(tables.templates.version)).limit(1)
+  if (!latest || latest.version === sheet.template.version) return sheet
+  validateInputs(latest.model, sheet.inputs)
+  await useDb().update(tables.sheets).set({ templateId: latest.id, updatedBy: userId, updatedAt: new Date(), draftVersion: sheet.draftVersion + 1 }).where(eq(tables.sheets.id, id))
+  return getSheet(id)
+}

@@ -1,0 +1,46 @@
+/** Dot paths into plain JSON data: 'loads.sdl', 'spans.2'. */
+
+export type Json = null | boolean | number | string | Json[] | { [key: string]: Json }
+
+export function getPath(data: unknown, path: string): unknown {
+  let node: unknown = data
+  for (const part of path.split('.')) {
+    if (node === null || typeof node !== 'object') return undefined
+    node = (node as Record<string, unknown>)[part]
+  }
+  return node
+}
+
+/** A copy of `data` with `value` at `path`; intermediate objects/arrays are created as needed. */
+export function setPath<T>(data: T, path: string, value: unknown): T {
+  const parts = path.split('.')
+  const copy = structuredClone(data) as Record<string, unknown>
+  let node: Record<string, unknown> = copy
+  parts.forEach((part, i) => {
+    if (i === parts.length - 1) {
+      node[part] = value
+      return
+    }
+    const next = node[part]
+    if (next === null || typeof next !== 'object') node[part] = /^\d+$/.test(parts[i + 1]!) ? [] : {}
+    node = node[part] as Record<string, unknown>
+  })
+  return copy as T
+}
+
+/** Deep merge of a partial patch into data (arrays are replaced, not merged). */
+export function mergePatch<T>(data: T, patch: unknown): T {
+  if (patch === null || typeof patch !== 'object' || Array.isArray(patch)) return structuredClone(patch) as T
+  const out = (data !== null && typeof data === 'object' && !Array.isArray(data) ? structuredClone(data) : {}) as Record<string, unknown>
+  for (const [key, value] of Object.entries(patch as Record<string, unknown>)) {
+    out[key] = value !== null && typeof value === 'object' && !Array.isArray(value) ? mergePatch(out[key], value) : structuredClone(value)
+  }
+  return out as T
+}
+
+/** Every leaf path of plain data, arrays by index: { a: { b: 1 }, c: [2] } → ['a.b', 'c.0']. */
+export function leafPaths(data: unknown, prefix = ''): string[] {
+  if (data === null || typeof data !== 'object') return prefix ? [prefix] : []
+  const entries = Array.isArray(data) ? data.map((v, i) => [String(i), v] as const) : Object.entries(data)
+  return entries.flatMap(([k, v]) => leafPaths(v, prefix ? `${prefix}.${k}` : k))
+}
