@@ -15,7 +15,7 @@ import { fileURLToPath } from 'node:url'
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '..')
 
 /** Tables whose rows may never change once written: the app user gets SELECT and INSERT only. */
-export const APPEND_ONLY_TABLES = ['revisions', 'reviews', 'seals', 'audit_events', 'templates']
+export const APPEND_ONLY_TABLES = ['revisions', 'reviews', 'seals', 'audit_events', 'attachments', 'templates']
 
 export function instance(test = false) {
   const base = join(root, test ? '.data-test' : '.data')
