@@ -1,0 +1,167 @@
+/**
+ * compileTemplate: a parsed template bound to a model. Every key, block attribute and front matter
+ * field is checked against the model, and every problem is collected with its line; a template with
+ * any problem does not load (TemplateLoadError lists them all).
+ */
+import type { Token } from 'markdown-it'
+import { describeKey, isModelName, resolvePattern, suggestKeys } from './bind'
+import type { PatternScope } from './bind'
+import { TemplateKeyError, TemplateLoadError, TemplateSyntaxError } from './errors'
+import type { TemplateError } from './errors'
+import type { BlockMeta, InlineMeta } from './markdown'
+import type { ReportModel } from './model'
+import { parseTemplate } from './parse'
+import type { MathMeta, TemplateMeta } from './parse'
+import { BLOCK_ATTRIBUTES, isName, parseKey } from './syntax'
+
+export interface CompiledTemplate {
+  meta: TemplateMeta
+  model: ReportModel
+  /** the template text as given (it is what a frozen revision stores) */
+  text: string
+  tokens: readonly Token[]
+  /** every key pattern the template uses, sorted */
+  keys: readonly string[]
+}
+
+type Use = 'in' | 'val' | 'each' | 'at'
+
+function frontMatterLine(text: string, field: string): number {
+  const lines = text.replace(/\r\n?/g, '\n').split('\n')
+  const at = lines.findIndex((l) => new RegExp(`^${field}\\s*:`).test(l))
+  return at >= 0 ? at + 1 : 1
+}
+
+function checkKey(model: ReportModel, key: string, segments: readonly string[], use: Use, line: number, scopes: readonly PatternScope[], errors: TemplateError[], used: Set<string>): string | null {
+  const resolved = resolvePattern(segments, scopes)
+  if (resolved.kind === 'bad') {
+    errors.push(new TemplateKeyError(line, key, resolved.problem))
+    return null
+  }
+  if (resolved.kind === 'unchecked') return null
+  if (resolved.kind === 'index') {
+    if (use !== 'val') errors.push(new TemplateKeyError(line, key, `"${key}" is an element number; only :val[…] and \\val{…} can show it`))
+    return null
+  }
+  const { pattern } = resolved
+  const info = describeKey(model, pattern)
+  if (!info) {
+    const hint = suggestKeys(model, pattern)
+    errors.push(new TemplateKeyError(line, key, `unknown key "${key}": the model ${model.id} has no input or result of that name${hint.length ? ` (did you mean ${hint.join(', ')}?)` : ''}`))
+    return null
+  }
+  used.add(pattern)
+  const element = describeKey(model, `${pattern}[]`)
+  if (use === 'in') {
+    if (info.source !== 'input') errors.push(new TemplateKeyError(line, key, `:in[…] takes an input field, but "${key}" is a result: show it with :val[${key}]`))
+    else if (info.kind === 'object') errors.push(new TemplateKeyError(line, key, `"${key}" is a group of inputs: name one field in it`))
+  } else if (use === 'val') {
+    const listOfValues = info.kind === 'array' && element?.kind === 'leaf'
+    if (info.kind === 'object' || (info.kind === 'array' && !listOfValues)) {
+      errors.push(new TemplateKeyError(line, key, `"${key}" is a group of values, not one value: name a value inside it, or repeat over it with ::: each`))
+    }
+  } else if (use === 'each') {
+    if (info.kind !== 'array') errors.push(new TemplateKeyError(line, key, `::: each{in=…} repeats over a list, but "${key}" is not one`))
+    return `${pattern}[]`
+  }
+  return pattern
+}
+
+function checkBlock(model: ReportModel, meta: BlockMeta, scopes: PatternScope[], errors: TemplateError[], used: Set<string>): PatternScope | null {
+  const line = meta.line ?? 1
+  if (!meta.directive || meta.problems.length > 0) return meta.directive === 'each' && isName(meta.attrs.as ?? '') ? { name: meta.attrs.as!, pattern: null } : null
+  const { directive, attrs } = meta
+  const allowed = BLOCK_ATTRIBUTES[directive]
+  const all = [...allowed.required, ...allowed.optional]
+  for (const name of Object.keys(attrs)) {
+    if (!all.includes(name)) errors.push(new TemplateSyntaxError(line, `::: ${directive} takes no attribute "${name}" (it takes ${all.join(', ')})`))
+  }
+  for (const name of allowed.required) {
+    if (attrs[name] === undefined) errors.push(new TemplateSyntaxError(line, `::: ${directive} needs the attribute ${name}=…`))
+  }
+  if (directive === 'checks' && attrs.group !== undefined && !model.checkGroups.includes(attrs.group)) {
+    errors.push(new TemplateSyntaxError(line, `unknown check group "${attrs.group}": the model ${model.id} has ${model.checkGroups.join(', ')} (leave the group out for every check)`))
+  }
+  if (directive === 'figure' && attrs.plot !== undefined) {
+    const figure = model.figures[attrs.plot]
+    if (!figure) errors.push(new TemplateSyntaxError(line, `unknown figure "${attrs.plot}": the model ${model.id} draws ${Object.keys(model.figures).join(', ')}`))
+    else if (attrs.at !== undefined) checkAt(model, attrs.at, figure.at, line, scopes, errors, used)
+  }
+  if (directive === 'each') {
+    const local = attrs.as ?? ''
+    if (!isName(local)) {
+      errors.push(new TemplateSyntaxError(line, `::: each needs as=name, a local name for the element (letters, digits, _)`))
+      return null
+    }
+    if (isModelName(model, local)) errors.push(new TemplateSyntaxError(line, `the local name "${local}" hides a key of the model: choose another`))
+    if (scopes.some((s) => s.name === local)) errors.push(new TemplateSyntaxError(line, `the local name "${local}" is already in use by an enclosing each`))
+    const parsed = parseKey(attrs.in ?? '')
+    if ('problem' in parsed) {
+      errors.push(new TemplateSyntaxError(line, `::: each{in=…} needs a key, but ${parsed.problem}`))
+      return { name: local, pattern: null }
+    }
+    const pattern = checkKey(model, attrs.in!, parsed.segments, 'each', line, scopes, errors, used)
+    return { name: local, pattern }
+  }
+  return null
+}
+
+function checkAt(model: ReportModel, at: string, wanted: string | undefined, line: number, scopes: readonly PatternScope[], errors: TemplateError[], used: Set<string>): void {
+  if (!wanted) {
+    errors.push(new TemplateSyntaxError(line, 'this figure takes no at=…'))
+    return
+  }
+  const parsed = parseKey(at)
+  if ('problem' in parsed) {
+    errors.push(new TemplateSyntaxError(line, `at=… needs a key, but ${parsed.problem}`))
+    return
+  }
+  const pattern = checkKey(model, at, parsed.segments, 'at', line, scopes, errors, used)
+  if (pattern !== null && pattern !== wanted) errors.push(new TemplateKeyError(line, at, `at=${at} must name one element of ${wanted.replace(/\[\]$/, '')} (e.g. an each over it)`))
+}
+
+function checkBody(model: ReportModel, tokens: readonly Token[], errors: TemplateError[]): Set<string> {
+  const used = new Set<string>()
+  const frames: Array<PatternScope | null> = []
+  const scopes = (): PatternScope[] => frames.filter((f): f is PatternScope => f !== null)
+  const visit = (token: Token): void => {
+    if (token.type === 'tb_block_open') frames.push(checkBlock(model, token.meta as BlockMeta, scopes(), errors, used))
+    else if (token.type === 'tb_block_close') frames.pop()
+    else if (token.type === 'tb_in' || token.type === 'tb_val') {
+      const meta = token.meta as InlineMeta
+      checkKey(model, meta.key!, meta.segments!, meta.directive!, meta.line ?? 1, scopes(), errors, used)
+    } else if (token.type === 'math_inline' || token.type === 'math_block' || token.type === 'math_inline_block') {
+      for (const k of (token.meta as MathMeta | null)?.keys ?? []) checkKey(model, k.key, k.segments, 'val', k.line, scopes(), errors, used)
+    }
+    for (const child of token.children ?? []) visit(child)
+  }
+  for (const token of tokens) visit(token)
+  return used
+}
+
+/** Every problem of a template against a model, sorted by line; empty when it loads. */
+export function lintTemplate(text: string, model: ReportModel): TemplateError[] {
+  return bind(text, model).errors
+}
+
+function bind(text: string, model: ReportModel): { errors: TemplateError[]; compiled?: CompiledTemplate } {
+  const parsed = parseTemplate(text)
+  const errors = [...parsed.errors]
+  if (parsed.meta) {
+    if (parsed.meta.model !== model.id) errors.push(new TemplateSyntaxError(frontMatterLine(text, 'model'), `the template is for the model "${parsed.meta.model}", not "${model.id}"`))
+    for (const g of parsed.meta.groups) {
+      if (!model.inputGroups.includes(g)) errors.push(new TemplateSyntaxError(frontMatterLine(text, 'groups'), `unknown input group "${g}": the model ${model.id} has ${model.inputGroups.join(', ')}`))
+    }
+  }
+  const used = checkBody(model, parsed.tokens, errors)
+  errors.sort((a, b) => a.line - b.line)
+  if (errors.length > 0 || !parsed.meta) return { errors }
+  return { errors, compiled: { meta: parsed.meta, model, text, tokens: parsed.tokens, keys: [...used].sort() } }
+}
+
+/** Binds a template to a model; throws TemplateLoadError listing every problem with its line. */
+export function compileTemplate(text: string, model: ReportModel): CompiledTemplate {
+  const { errors, compiled } = bind(text, model)
+  if (!compiled) throw new TemplateLoadError(errors)
+  return compiled
+}

@@ -1,0 +1,16 @@
+/**
+ * The template language and renderer: parse → bind to a model → HTML with SVG figures.
+ * Pure TypeScript; the same code runs in the editor, the frozen view and print.
+ */
+export { TemplateError, TemplateKeyError, TemplateLoadError, TemplateSyntaxError } from './errors'
+export { parseTemplate, templateMetaSchema } from './parse'
+export type { ParsedTemplate, TemplateMeta } from './parse'
+export { compileTemplate, lintTemplate } from './compile'
+export type { CompiledTemplate } from './compile'
+export { REPORT_CAUTION, renderReport } from './render'
+export type { RenderedReport, RenderMode, RenderOptions, ReportCheck, ReportSection, UnresolvedKey } from './render'
+export { shapeOf } from './model'
+export type { ModelFigure, ModelInputField, ReportModel, ShapeKind } from './model'
+export { describeKey } from './bind'
+export type { KeyInfo } from './bind'
+export { BLOCK_DIRECTIVES, INLINE_DIRECTIVES, parseKey } from './syntax'

@@ -1,0 +1,60 @@
+/**
+ * What a template binds to: an engine model described by its input fields, its result catalogue,
+ * the shape of its results, its checks and its figures. The renderer knows nothing else about the
+ * engine, so a test can bind templates to a small model of its own.
+ */
+import type { CheckResult, QuantitySpec } from '../engine/contract'
+
+/** One input field, as the engine's inputFieldSpecs() lists it (path with dots, arrays whole). */
+export interface ModelInputField {
+  path: string
+  spec: QuantitySpec & { group: string; help?: string }
+  kind: 'number' | 'enum' | 'array'
+  options?: string[]
+}
+
+/** An SVG figure drawn from the results; `at` is the concrete path of an element (e.g. 'sections.2'). */
+export interface ModelFigure {
+  label: string
+  /** the pattern of the array whose element `at` may name (e.g. 'sections[]'); absent: no `at` */
+  at?: string
+  render(results: unknown, at?: string): string
+}
+
+export interface ReportModel {
+  /** the name templates give in their front matter, e.g. 'pt-member' */
+  id: string
+  label: string
+  inputFields: readonly ModelInputField[]
+  /** the input groups a template may list in its front matter */
+  inputGroups: readonly string[]
+  /** result catalogue: pattern ('sections[].stress.transfer.top') → spec */
+  resultSpecs: Readonly<Record<string, QuantitySpec>>
+  /** every result pattern with what it holds, numbers or not ('sections[].label', 'sections') */
+  resultShape: ReadonlyMap<string, ShapeKind>
+  /** the check groups a `checks` block may name */
+  checkGroups: readonly string[]
+  figures: Readonly<Record<string, ModelFigure>>
+  /** all checks of a result, in report order */
+  checksOf(results: unknown): readonly CheckResult[]
+  /** the completed input inside a result (defaults filled in), for input keys the draft leaves out */
+  inputOf?(results: unknown): unknown
+  /** runs the engine (throws EngineInputError on bad input) */
+  run(inputs: unknown): unknown
+}
+
+export type ShapeKind = 'leaf' | 'object' | 'array'
+
+/** The shape of plain JSON data as patterns: { a: [{ b: 1 }] } → a: array, a[]: object, a[].b: leaf. */
+export function shapeOf(data: unknown, into: Map<string, ShapeKind> = new Map(), prefix = ''): Map<string, ShapeKind> {
+  if (Array.isArray(data)) {
+    if (prefix) into.set(prefix, 'array')
+    for (const item of data) shapeOf(item, into, `${prefix}[]`)
+  } else if (data !== null && typeof data === 'object') {
+    if (prefix) into.set(prefix, 'object')
+    for (const [k, v] of Object.entries(data)) shapeOf(v, into, prefix ? `${prefix}.${k}` : k)
+  } else if (prefix && !into.has(prefix)) {
+    into.set(prefix, 'leaf')
+  }
+  return into
+}

@@ -1,0 +1,393 @@
+/**
+ * renderReport: a compiled template with inputs and results → HTML, the list of sections (for the
+ * editor's jump links), every check with the section it is shown in, and the keys that had no value.
+ * The same code serves the editor (mode 'edit': live input fields), the frozen view and print.
+ * Output depends only on its arguments: the same inputs give the same bytes (frozen revisions are
+ * hashed and printed).
+ */
+import katex from 'katex'
+import type { Env, Renderer, Token } from 'markdown-it'
+import type { CheckResult } from '../engine/contract'
+import { formatQuantity } from '../utils/units'
+import { getPath } from '../utils/paths'
+import { describeKey, resolvePath } from './bind'
+import type { KeyInfo, PathScope } from './bind'
+import type { CompiledTemplate } from './compile'
+import { checkPrecision, escapeHtml, inputText, valueTex, valueText } from './format'
+import { isLocalImage, md } from './markdown'
+import type { BlockMeta, InlineMeta } from './markdown'
+import type { ReportModel } from './model'
+import type { MathMeta } from './parse'
+import { parseKey } from './syntax'
+
+export type RenderMode = 'edit' | 'frozen' | 'print'
+
+export interface RenderOptions {
+  inputs: unknown
+  /** the engine's results; null or undefined when the engine could not run */
+  results: unknown
+  mode: RenderMode
+}
+
+export interface ReportSection {
+  id: string
+  title: string
+  level: number
+}
+
+export interface ReportCheck extends CheckResult {
+  /** the id of the section whose check table shows this check first, or null if no table shows it */
+  sectionId: string | null
+}
+
+export interface UnresolvedKey {
+  key: string
+  path: string
+  line: number
+}
+
+export interface RenderedReport {
+  html: string
+  sections: ReportSection[]
+  checks: ReportCheck[]
+  unresolved: UnresolvedKey[]
+}
+
+/** Ends every report. */
+export const REPORT_CAUTION = 'Results are for a competent engineer to verify. The local code, its national annex and licensed practice govern.'
+
+interface ReportEnv {
+  model: ReportModel
+  inputs: unknown
+  completedInputs: unknown
+  results: unknown
+  mode: RenderMode
+  checks: readonly CheckResult[]
+  scopes: PathScope[]
+  ids: Map<string, number>
+  fieldIds: Map<string, number>
+  sections: ReportSection[]
+  currentSection: string | null
+  checkHome: Map<string, string>
+  /** where a summary table (no group) showed a check, for checks no group table shows */
+  checkSummary: Map<string, string>
+  unresolved: UnresolvedKey[]
+}
+
+const KATEX_OPTIONS = {
+  trust: false,
+  maxSize: 10,
+  maxExpand: 1000,
+  throwOnError: false,
+  strict: 'ignore',
+  errorColor: '#a33b2f',
+  output: 'htmlAndMathml',
+} as const
+
+const VAL_IN_MATH = /\\val\s*\{([^{}]*)\}/g
+// Marks a summary row's section until every check table has been placed (NUL never survives markdown-it's input normalisation).
+const HOME_MARK = /\u0000home:(\d+)\u0000/g
+
+function lookup(env: ReportEnv, info: KeyInfo, path: string): unknown {
+  if (info.source === 'result') return getPath(env.results, path)
+  const typed = getPath(env.inputs, path)
+  return typed !== undefined ? typed : getPath(env.completedInputs, path)
+}
+
+function resolveValue(env: ReportEnv, segments: readonly string[], key: string, line: number): { text: string; tex: string; missing: boolean } {
+  const r = resolvePath(segments, env.scopes)
+  if (r.kind === 'index') return { text: String(r.index + 1), tex: `\\text{${r.index + 1}}`, missing: false }
+  const info = describeKey(env.model, r.pattern)
+  const value = info ? lookup(env, info, r.path) : undefined
+  if (value === undefined) {
+    env.unresolved.push({ key, path: r.path, line })
+    return { text: '—', tex: '\\text{—}', missing: true }
+  }
+  return { text: valueText(value, info?.spec), tex: valueTex(value, info?.spec), missing: false }
+}
+
+function slug(text: string): string {
+  return text
+    .replace(/:[a-z]+\[[^\]]*\]/g, '')
+    .replace(/\$[^$]*\$/g, '')
+    .normalize('NFKD')
+    .replace(/[\u0300-\u036f]/g, '')
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-+|-+$/g, '')
+    .slice(0, 60)
+    .replace(/-+$/, '')
+}
+
+function uniqueId(seen: Map<string, number>, base: string): string {
+  const count = seen.get(base) ?? 0
+  seen.set(base, count + 1)
+  return count === 0 ? base : `${base}-${count + 1}`
+}
+
+function plainText(children: readonly Token[], env: ReportEnv): string {
+  return children
+    .map((c) => {
+      if (c.type === 'text' || c.type === 'code_inline') return c.content
+      if (c.type === 'softbreak' || c.type === 'hardbreak') return ' '
+      if (c.type === 'tb_val' || c.type === 'tb_in') {
+        const meta = c.meta as InlineMeta
+        return resolveValue(env, meta.segments!, meta.key!, meta.line ?? 0).text
+      }
+      if (c.type === 'math_inline') return c.content.replace(VAL_IN_MATH, '').trim()
+      return ''
+    })
+    .join('')
+    .replace(/\s+/g, ' ')
+    .trim()
+}
+
+function renderMath(token: Token, display: boolean, env: ReportEnv): string {
+  const keys = (token.meta as MathMeta | null)?.keys ?? []
+  let n = 0
+  const tex = token.content.replace(VAL_IN_MATH, (whole: string) => {
+    const k = keys[n]
+    n += 1
+    return k ? resolveValue(env, k.segments, k.key, k.line).tex : whole
+  })
+  let html: string
+  try {
+    html = katex.renderToString(tex, { ...KATEX_OPTIONS, displayMode: display })
+  } catch {
+    html = `<span class="tb-math-error">${escapeHtml(token.content)}</span>`
+  }
+  return display ? `<div class="tb-math">${html}</div>\n` : html
+}
+
+function renderInput(meta: InlineMeta, env: ReportEnv): string {
+  const r = resolvePath(meta.segments!, env.scopes)
+  if (r.kind !== 'path') return ''
+  const info = describeKey(env.model, r.pattern)
+  const spec = info?.spec
+  if (!info || !spec) return ''
+  const value = lookup(env, info, r.path)
+  if (value === undefined) env.unresolved.push({ key: meta.key!, path: r.path, line: meta.line ?? 0 })
+  const key = escapeHtml(r.path)
+  if (env.mode !== 'edit') return `<span class="tb-field tb-frozen" data-key="${key}">${escapeHtml(valueText(value, spec))}</span>`
+
+  const id = uniqueId(env.fieldIds, `tb-in-${r.path.replace(/\./g, '-')}`)
+  const label = escapeHtml(spec.label)
+  const unit = spec.unit ? `<span class="tb-unit">${escapeHtml(spec.unit)}</span>` : ''
+  const options = info.field?.options
+  const whole = info.kind === 'array'
+  let control: string
+  if (options && !whole) {
+    const chosen = typeof value === 'string' ? value : ''
+    const items = options.map((o) => `<option value="${escapeHtml(o)}"${o === chosen ? ' selected' : ''}>${escapeHtml(o)}</option>`).join('')
+    control = `<select class="tb-input" id="${id}" data-key="${key}" aria-label="${label}">${items}</select>`
+  } else {
+    const kind = whole ? 'list' : 'number'
+    const mode = whole ? 'text' : 'decimal'
+    control = `<input class="tb-input" type="text" inputmode="${mode}" autocomplete="off" spellcheck="false" id="${id}" data-key="${key}" data-kind="${kind}" data-unit="${escapeHtml(spec.unit)}" aria-label="${label}" value="${escapeHtml(inputText(value, spec))}">`
+  }
+  return `<span class="tb-field">${control}${unit}</span>`
+}
+
+/** markdown-it hands every rule the env given to render(); ours travels in it under one name. */
+function stateOf(env: Env | undefined): ReportEnv {
+  return env?.report as ReportEnv
+}
+
+function installRules(renderer: Renderer): void {
+  const rules = renderer.rules
+  const defaultImage = rules.image!
+  rules.tb_val = (tokens, idx, _o, env) => {
+    const meta = tokens[idx]!.meta as InlineMeta
+    const v = resolveValue(stateOf(env), meta.segments!, meta.key!, meta.line ?? 0)
+    return v.missing ? `<span class="tb-val tb-missing">—</span>` : `<span class="tb-val">${escapeHtml(v.text)}</span>`
+  }
+  rules.tb_in = (tokens, idx, _o, env) => renderInput(tokens[idx]!.meta as InlineMeta, stateOf(env))
+  rules.tb_bad = (tokens, idx) => `<span class="tb-bad">${escapeHtml(tokens[idx]!.content)}</span>`
+  rules.tb_bad_block = () => ''
+  rules.tb_block_open = () => ''
+  rules.tb_block_close = () => ''
+  rules.math_inline = (tokens, idx, _o, env) => renderMath(tokens[idx]!, false, stateOf(env))
+  rules.math_inline_block = (tokens, idx, _o, env) => renderMath(tokens[idx]!, true, stateOf(env))
+  rules.math_block = (tokens, idx, _o, env) => renderMath(tokens[idx]!, true, stateOf(env))
+  rules.heading_open = (tokens, idx, _o, rawEnv) => {
+    const env = stateOf(rawEnv)
+    const token = tokens[idx]!
+    const inline = tokens[idx + 1]
+    const level = Number(token.tag.slice(1))
+    const title = inline?.children ? plainText(inline.children, env) : ''
+    const base = `sec-${slug(inline?.content ?? '') || 'part'}${env.scopes.map((s) => `-${s.index + 1}`).join('')}`
+    const id = uniqueId(env.ids, base)
+    env.sections.push({ id, title, level })
+    env.currentSection = id
+    return `<${token.tag} id="${id}">`
+  }
+  rules.image = (tokens, idx, options, env, self) => {
+    const token = tokens[idx]!
+    if (isLocalImage(String(token.attrGet('src') ?? ''))) return defaultImage(tokens, idx, options, env, self)
+    const alt = self.renderInlineAsText(token.children ?? [], options, env)
+    return `<span class="tb-image-blocked">[image not shown: ${escapeHtml(alt || 'no description')}]</span>`
+  }
+}
+
+installRules(md.renderer)
+
+function matchingClose(tokens: readonly Token[], open: number): number {
+  let depth = 0
+  for (let i = open; i < tokens.length; i += 1) {
+    if (tokens[i]!.type === 'tb_block_open') depth += 1
+    else if (tokens[i]!.type === 'tb_block_close') {
+      depth -= 1
+      if (depth === 0) return i
+    }
+  }
+  return tokens.length
+}
+
+function renderTokens(tokens: readonly Token[], env: ReportEnv): string {
+  let out = ''
+  let run: Token[] = []
+  for (let i = 0; i < tokens.length; i += 1) {
+    const token = tokens[i]!
+    if (token.type !== 'tb_block_open') {
+      run.push(token)
+      continue
+    }
+    out += md.renderer.render(run, md.options, { report: env })
+    run = []
+    const end = matchingClose(tokens, i)
+    out += renderBlock(token.meta as BlockMeta, tokens.slice(i + 1, end), env)
+    i = end
+  }
+  return out + md.renderer.render(run, md.options, { report: env })
+}
+
+function renderBlock(meta: BlockMeta, inner: readonly Token[], env: ReportEnv): string {
+  if (meta.directive === 'each') return renderEach(meta, inner, env)
+  if (meta.directive === 'checks') return renderChecks(meta, inner, env)
+  if (meta.directive === 'figure') return renderFigure(meta, inner, env)
+  return renderTokens(inner, env)
+}
+
+function renderEach(meta: BlockMeta, inner: readonly Token[], env: ReportEnv): string {
+  const parsed = parseKey(meta.attrs.in ?? '')
+  if ('problem' in parsed) return ''
+  const r = resolvePath(parsed.segments, env.scopes)
+  if (r.kind !== 'path') return ''
+  const info = describeKey(env.model, r.pattern)
+  const list = info ? lookup(env, info, r.path) : undefined
+  if (!Array.isArray(list)) {
+    if (list === undefined) env.unresolved.push({ key: meta.attrs.in!, path: r.path, line: meta.line ?? 0 })
+    return ''
+  }
+  let out = ''
+  for (let i = 0; i < list.length; i += 1) {
+    env.scopes.push({ name: meta.attrs.as!, path: `${r.path}.${i}`, index: i })
+    out += renderTokens(inner, env)
+    env.scopes.pop()
+  }
+  return out
+}
+
+function checkCell(value: number, unit: CheckResult['unit']): string {
+  return escapeHtml(formatQuantity(value, unit, checkPrecision(unit)))
+}
+
+function renderChecks(meta: BlockMeta, inner: readonly Token[], env: ReportEnv): string {
+  const group = meta.attrs.group
+  const note = renderTokens(inner, env)
+  if (env.results === null || env.results === undefined) {
+    return `<div class="tb-checks">${note}<p class="tb-missing">No results yet: the checks appear once the inputs are complete.</p></div>\n`
+  }
+  const rows = env.checks.filter((c) => group === undefined || c.group === group)
+  const here = env.currentSection
+  const homes = group !== undefined ? env.checkHome : env.checkSummary
+  if (here !== null) for (const c of rows) if (!homes.has(c.id)) homes.set(c.id, here)
+  if (rows.length === 0) return `<div class="tb-checks">${note}<p class="tb-checks-none">No checks in this group.</p></div>\n`
+
+  const failing = rows.filter((c) => !c.pass)
+  const worst = rows.reduce((a, b) => (b.utilisation > a.utilisation ? b : a))
+  const tally = `${rows.length} check${rows.length === 1 ? '' : 's'}: ${rows.length - failing.length} pass, ${failing.length} fail; highest utilisation ${worst.utilisation.toFixed(2)} (${worst.title}${worst.location ? `, ${worst.location}` : ''})`
+  const body = rows
+    .map((c) => {
+      const index = env.checks.indexOf(c)
+      const section = group === undefined ? `\u0000home:${index}\u0000` : escapeHtml(here ?? '')
+      const title = escapeHtml(c.title) + (c.note ? `<br><small>${escapeHtml(c.note)}</small>` : '')
+      return `<tr class="tb-check ${c.pass ? 'tb-pass' : 'tb-fail'}" data-check="${escapeHtml(c.id)}" data-section="${section}">`
+        + `<td>${title}</td><td>${escapeHtml(c.location ?? '')}</td><td>${escapeHtml(c.clause)}</td>`
+        + `<td class="tb-num">${checkCell(c.actual, c.unit)}</td><td class="tb-num">${checkCell(c.limit, c.unit)}</td>`
+        + `<td class="tb-num">${Number.isFinite(c.utilisation) ? c.utilisation.toFixed(2) : '—'}</td>`
+        + `<td class="tb-verdict">${c.pass ? 'pass' : 'fail'}</td></tr>`
+    })
+    .join('\n')
+  return `<div class="tb-checks"${group ? ` data-group="${escapeHtml(group)}"` : ''}>${note}`
+    + `<p class="tb-checks-tally${failing.length ? ' tb-fail' : ' tb-pass'}">${escapeHtml(tally)}</p>\n`
+    + '<table class="tb-check-table"><thead><tr><th>Check</th><th>Location</th><th>Clause</th><th>Actual</th><th>Limit</th><th>Utilisation</th><th>Result</th></tr></thead>\n'
+    + `<tbody>\n${body}\n</tbody></table></div>\n`
+}
+
+function renderFigure(meta: BlockMeta, inner: readonly Token[], env: ReportEnv): string {
+  const plot = meta.attrs.plot ?? ''
+  const figure = env.model.figures[plot]
+  const caption = renderTokens(inner, env).trim()
+  let at: string | undefined
+  if (meta.attrs.at !== undefined) {
+    const parsed = parseKey(meta.attrs.at)
+    const r = 'segments' in parsed ? resolvePath(parsed.segments, env.scopes) : null
+    at = r?.kind === 'path' ? r.path : undefined
+  }
+  let drawing: string
+  if (!figure) drawing = ''
+  else if (env.results === null || env.results === undefined) drawing = '<p class="tb-missing">No results yet: the figure appears once the inputs are complete.</p>'
+  else {
+    try {
+      drawing = figure.render(env.results, at)
+    } catch (error) {
+      drawing = `<p class="tb-missing">The figure could not be drawn: ${escapeHtml(error instanceof Error ? error.message : String(error))}</p>`
+    }
+  }
+  return `<figure class="tb-figure" data-plot="${escapeHtml(plot)}">${drawing}${caption ? `<figcaption>${caption}</figcaption>` : ''}</figure>\n`
+}
+
+/** A heading's title and its text both look a key up; list each place once. */
+function uniqueUnresolved(list: readonly UnresolvedKey[]): UnresolvedKey[] {
+  const seen = new Set<string>()
+  return list.filter((u) => {
+    const id = `${u.line}\u0000${u.path}`
+    if (seen.has(id)) return false
+    seen.add(id)
+    return true
+  })
+}
+
+/** Renders a compiled template; never throws for missing values (they show as — and are listed). */
+export function renderReport(compiled: CompiledTemplate, options: RenderOptions): RenderedReport {
+  const { model } = compiled
+  const hasResults = options.results !== null && options.results !== undefined
+  const env: ReportEnv = {
+    model,
+    inputs: options.inputs,
+    completedInputs: hasResults && model.inputOf ? model.inputOf(options.results) : undefined,
+    results: options.results,
+    mode: options.mode,
+    checks: hasResults ? model.checksOf(options.results) : [],
+    scopes: [],
+    ids: new Map(),
+    fieldIds: new Map(),
+    sections: [],
+    currentSection: null,
+    checkHome: new Map(),
+    checkSummary: new Map(),
+    unresolved: [],
+  }
+  const body = renderTokens(compiled.tokens, env)
+  const homeOf = (c: CheckResult): string | null => env.checkHome.get(c.id) ?? env.checkSummary.get(c.id) ?? null
+  const placed = body.replace(HOME_MARK, (_, i: string) => escapeHtml(homeOf(env.checks[Number(i)]!) ?? ''))
+  const html = `<article class="tb-report tb-mode-${options.mode}" data-model="${escapeHtml(model.id)}">\n${placed}`
+    + `<aside class="tb-caution" role="note"><p>${escapeHtml(REPORT_CAUTION)}</p></aside>\n</article>\n`
+  return {
+    html,
+    sections: env.sections,
+    checks: env.checks.map((c) => ({ ...c, sectionId: homeOf(c) })),
+    unresolved: uniqueUnresolved(env.unresolved),
+  }
+}
