@@ -1,0 +1,7 @@
+import { revisionIdParams } from '../../../utils/records-schemas'
+
+export default defineEventHandler(async (event) => {
+  const { id } = validParams(event, revisionIdParams)
+  const user = await requireUser(event)
+  return getRevisionDetail(id, user)
+})

@@ -1,0 +1,8 @@
+import { revisionIdParams } from '../../../utils/records-schemas'
+
+export default defineEventHandler(async (event) => {
+  const { id } = validParams(event, revisionIdParams)
+  const user = await requireRole(event, 'records', 'admin')
+  setResponseStatus(event, 201)
+  return sealRevision(event, id, user)
+})

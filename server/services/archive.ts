@@ -1,0 +1,156 @@
+import type { H3Event } from 'h3'
+import { and, asc, desc, eq, gte, like, lt, or } from 'drizzle-orm'
+import { alias } from 'drizzle-orm/mysql-core'
+import Papa from 'papaparse'
+import type { ArchiveQuery } from '../utils/records-schemas'
+import { parseVerifyQuery, sha256Hex } from '../utils/hashing'
+
+type SessionUser = { id: number, name: string, email: string, role: import('../../shared/types/roles').Role }
+
+const s = tables.seals
+const r = tables.revisions
+
+async function registerRows(where?: ReturnType<typeof and>) {
+  const sealer = alias(tables.users, 'sealer')
+  const author = alias(tables.users, 'author')
+  return useDb().select({
+    sealId: s.id, archiveRef: s.archiveRef, verificationRef: s.verificationRef, pdfSha256: s.pdfSha256, pdfBytes: s.pdfBytes,
+    pages: s.pages, sealedAt: s.sealedAt, sealedByName: sealer.name,
+    revisionId: r.id, code: r.code, contentHash: r.contentHash, issuedAt: r.issuedAt, authorName: author.name,
+    sheetId: tables.sheets.id, sheetReference: tables.sheets.reference, sheetTitle: tables.sheets.title,
+    projectId: tables.projects.id, jobNumber: tables.projects.jobNumber, projectName: tables.projects.name,
+  }).from(s)
+    .innerJoin(r, eq(r.id, s.revisionId))
+    .innerJoin(sealer, eq(sealer.id, s.sealedBy))
+    .innerJoin(author, eq(author.id, r.authorId))
+    .innerJoin(tables.sheets, eq(tables.sheets.id, r.sheetId))
+    .innerJoin(tables.projects, eq(tables.projects.id, tables.sheets.projectId))
+    .where(where)
+    .orderBy(desc(s.sealedAt), desc(s.id))
+}
+
+async function withStatus<T extends { revisionId: number, sheetId: number }>(rows: T[]) {
+  const cache = new Map<number, Awaited<ReturnType<typeof sheetRevisionStatuses>>>()
+  const out = []
+  for (const row of rows) {
+    if (!cache.has(row.sheetId)) cache.set(row.sheetId, await sheetRevisionStatuses(useDb(), row.sheetId))
+    const statuses = cache.get(row.sheetId)!
+    const status = statuses.get(row.revisionId)!
+    out.push({ ...row, contractCode: status.contractCode, superseded: status.superseded, status: status.label })
+  }
+  return out
+}
+
+/** The register of sealed documents, newest first, filtered by project, sealing date, status, text. */
+export async function archiveRegister(q: ArchiveQuery) {
+  const conditions = []
+  if (q.project) conditions.push(eq(tables.projects.id, q.project))
+  if (q.from) conditions.push(gte(s.sealedAt, new Date(`${q.from}T00:00:00Z`)))
+  if (q.to) conditions.push(lt(s.sealedAt, new Date(new Date(`${q.to}T00:00:00Z`).getTime() + 86_400_000)))
+  if (q.q) {
+    const text = `%${q.q.replace(/[%_\\]/g, c => `\\${c}`)}%`
+    conditions.push(or(like(s.archiveRef, text), like(tables.sheets.title, text), like(tables.sheets.reference, text), like(tables.projects.name, text)))
+  }
+  const rows = await withStatus(await registerRows(conditions.length ? and(...conditions) : undefined))
+  if (q.status === 'current') return rows.filter(x => !x.superseded)
+  if (q.status === 'superseded') return rows.filter(x => x.superseded)
+  return rows
+}
+
+export function registerCsv(rows: Awaited<ReturnType<typeof archiveRegister>>) {
+  return Papa.unparse(rows.map(x => ({
+    'Archive ref.': x.archiveRef,
+    'Verification ref.': x.verificationRef,
+    'Job no.': x.jobNumber,
+    'Project': x.projectName,
+    'Calc ref.': x.sheetReference,
+    'Title': x.sheetTitle,
+    'Revision': x.contractCode ?? '',
+    'Checked as': x.code,
+    'Status': x.status,
+    'Made by': x.authorName,
+    'Sealed by': x.sealedByName,
+    'Sealed at (UTC)': new Date(x.sealedAt).toISOString(),
+    'Pages': x.pages,
+    'PDF SHA-256': x.pdfSha256,
+    'Content SHA-256': x.contentHash,
+  })), { newline: '\r\n' })
+}
+
+/** Approved revisions that still wait for their seal (and are not superseded). */
+export async function awaitingSeal() {
+  const author = alias(tables.users, 'author')
+  const approvals = await useDb().select({
+    revisionId: r.id, code: r.code, sheetId: r.sheetId, sheetReference: tables.sheets.reference, sheetTitle: tables.sheets.title,
+    jobNumber: tables.projects.jobNumber, projectName: tables.projects.name, authorName: author.name, approvedAt: tables.reviews.createdAt,
+  }).from(tables.reviews)
+    .innerJoin(r, eq(r.id, tables.reviews.revisionId))
+    .innerJoin(author, eq(author.id, r.authorId))
+    .innerJoin(tables.sheets, eq(tables.sheets.id, r.sheetId))
+    .innerJoin(tables.projects, eq(tables.projects.id, tables.sheets.projectId))
+    .where(eq(tables.reviews.decision, 'approve'))
+    .orderBy(asc(tables.reviews.createdAt))
+  const rows = await withStatus(approvals)
+  return rows.filter(x => x.status === 'Approved')
+}
+
+async function sealMatch(where: ReturnType<typeof eq>) {
+  const rows = await withStatus(await registerRows(where))
+  const row = rows[0]
+  if (!row) return null
+  const statuses = await sheetRevisionStatuses(useDb(), row.sheetId)
+  const later = await useDb().select({ id: r.id, code: r.code, seq: r.seq }).from(r).where(eq(r.sheetId, row.sheetId)).orderBy(asc(r.seq))
+  const replacement = row.superseded ? later.find(x => x.id !== row.revisionId && statuses.get(x.id)?.contractCode && (statuses.get(x.id)?.status === 'approved' || statuses.get(x.id)?.status === 'sealed')) : undefined
+  return { ...row, supersededBy: replacement ? { revisionId: replacement.id, code: statuses.get(replacement.id)!.contractCode } : null }
+}
+
+export type VerifyResult = {
+  match: boolean
+  message: string
+  sha256?: string
+  query?: string
+  document: Awaited<ReturnType<typeof sealMatch>>
+}
+
+function describe(doc: NonNullable<Awaited<ReturnType<typeof sealMatch>>>) {
+  const what = `${doc.archiveRef}: ${doc.sheetReference} ${doc.contractCode} "${doc.sheetTitle}", job ${doc.jobNumber}`
+  return doc.superseded
+    ? `A sealed document (${what}), but it has been superseded${doc.supersededBy ? ` by ${doc.supersededBy.code}` : ''}`
+    : `A sealed document (${what}), current`
+}
+
+/** Hashes an uploaded file and says whether it is, byte for byte, a sealed document. */
+export async function verifyUpload(event: H3Event, bytes: Uint8Array, user: SessionUser): Promise<VerifyResult> {
+  const sha256 = sha256Hex(bytes)
+  const doc = await sealMatch(eq(s.pdfSha256, sha256))
+  const result: VerifyResult = doc
+    ? { match: true, message: describe(doc), sha256, document: doc }
+    : { match: false, message: 'Not a sealed document: no sealed PDF has this SHA-256 (a single changed byte gives a different hash)', sha256, document: null }
+  await recordAudit(event, { action: 'verify.file', subject: sha256, actorId: user.id, detail: { match: result.match, archiveRef: doc?.archiveRef ?? null } })
+  return result
+}
+
+/** Looks up a pasted PDF hash, revision content hash, verification reference or archive reference. */
+export async function verifyText(event: H3Event, text: string, user: SessionUser): Promise<VerifyResult> {
+  const parsed = parseVerifyQuery(text)
+  let doc: Awaited<ReturnType<typeof sealMatch>> = null
+  let message = ''
+  if (parsed?.kind === 'hash') {
+    doc = await sealMatch(eq(s.pdfSha256, parsed.value)) ?? await sealMatch(eq(r.contentHash, parsed.value))
+    if (!doc) {
+      const [rev] = await useDb().select({ code: r.code, ref: tables.sheets.reference }).from(r).innerJoin(tables.sheets, eq(tables.sheets.id, r.sheetId)).where(eq(r.contentHash, parsed.value))
+      message = rev ? `This is the content hash of ${rev.ref} ${rev.code}, which has not been sealed` : 'Not a sealed document: no sealed PDF or revision has this hash'
+    }
+  }
+  else if (parsed?.kind === 'ref') {
+    doc = await sealMatch(eq(s.verificationRef, parsed.value))
+    if (!doc) message = `No sealed document has the verification reference ${parsed.value}`
+  }
+  else {
+    doc = await sealMatch(eq(s.archiveRef, text.trim()))
+    if (!doc) message = 'Not found: paste a SHA-256 (64 hex digits), a verification reference (TB-XXXX-XXXX-XXXX) or an archive reference'
+  }
+  const result: VerifyResult = doc ? { match: true, message: describe(doc), query: text, document: doc } : { match: false, message, query: text, document: null }
+  await recordAudit(event, { action: 'verify.reference', subject: text.slice(0, 200), actorId: user.id, detail: { match: result.match, archiveRef: doc?.archiveRef ?? null } })
+  return result
+}

@@ -1,0 +1,63 @@
+import type { H3Event } from 'h3'
+import { and, count, eq, isNotNull } from 'drizzle-orm'
+import type { ReviewBody } from '../utils/records-schemas'
+import { plainJson, reviewHash } from '../utils/hashing'
+import { revisionCode } from '../utils/revision-status'
+
+type SessionUser = { id: number, name: string, email: string, role: import('../../shared/types/roles').Role }
+
+/**
+ * Records a checker's decision (return with comments, approve) or a comment on a revision, with its
+ * audit event and e-mail notices, in one transaction. The sheet is locked so a decision and a new
+ * issue of the same sheet cannot cross.
+ * @throws 403 when the author tries to approve, 409 when the revision is no longer open for a decision.
+ */
+export async function reviewRevision(event: H3Event, revisionId: number, body: ReviewBody, user: SessionUser) {
+  if (body.decision !== 'comment' && user.role !== 'checker' && user.role !== 'admin') {
+    throw createError({ statusCode: 403, message: `Returning or approving a revision needs the checker role; you are signed in as ${user.role}` })
+  }
+  await useDb().transaction(async (tx) => {
+    const [rev] = await tx.select({ id: tables.revisions.id, sheetId: tables.revisions.sheetId, code: tables.revisions.code, authorId: tables.revisions.authorId, sections: tables.revisions.reportSections })
+      .from(tables.revisions).where(eq(tables.revisions.id, revisionId))
+    if (!rev) throw createError({ statusCode: 404, message: `No revision with id ${revisionId}` })
+    const [sheet] = await tx.select().from(tables.sheets).where(eq(tables.sheets.id, rev.sheetId)).for('update')
+    const [project] = await tx.select().from(tables.projects).where(eq(tables.projects.id, sheet!.projectId))
+    const status = (await sheetRevisionStatuses(tx, rev.sheetId)).get(rev.id)!
+
+    const anchors = new Set((rev.sections as Array<{ id: string }>).map(s => s.id))
+    const unknown = body.comments.findIndex(c => c.anchor !== '' && !anchors.has(c.anchor))
+    if (unknown >= 0) {
+      throw createError({ statusCode: 400, message: `comments.${unknown}.anchor: no section "${body.comments[unknown]!.anchor}" in ${rev.code}`, data: { fields: { [`comments.${unknown}.anchor`]: 'No such section in this revision' } } })
+    }
+    if (body.decision !== 'comment' && status.status !== 'issued') {
+      throw createError({ statusCode: 409, message: `${sheet!.reference} ${rev.code} is ${status.label.toLowerCase()}: it is no longer open for a decision` })
+    }
+    if (body.decision === 'approve' && rev.authorId === user.id) {
+      throw createError({ statusCode: 403, message: `You authored ${sheet!.reference} ${rev.code}: a revision must be approved by someone other than its author` })
+    }
+    let contractCode: string | null = null
+    if (body.decision === 'approve') {
+      const [{ n }] = await tx.select({ n: count() }).from(tables.reviews).where(and(eq(tables.reviews.sheetId, rev.sheetId), isNotNull(tables.reviews.contractCode)))
+      contractCode = revisionCode('C', n + 1)
+    }
+    const fields = { revisionId: rev.id, sheetId: rev.sheetId, decision: body.decision, contractCode, comments: plainJson(body.comments), reviewerId: user.id, createdAt: new Date() }
+    const contentHash = reviewHash(fields)
+    const [{ id }] = await tx.insert(tables.reviews).values({ ...fields, contentHash }).$returningId()
+    const subject = `${project!.jobNumber}/${sheet!.reference} ${rev.code}`
+    const action = body.decision === 'approve' ? 'revision.approved' : body.decision === 'return' ? 'revision.returned' : 'revision.commented'
+    await recordAudit(event, { action, subject, actorId: user.id, detail: { revisionId: rev.id, reviewId: id, contractCode, comments: body.comments.length } }, tx)
+
+    const link = `${getRequestURL(event).origin}/revisions/${rev.id}`
+    const [author] = await tx.select({ email: tables.users.email }).from(tables.users).where(eq(tables.users.id, rev.authorId))
+    const commentText = body.comments.map(c => `- ${c.anchor ? `[${c.anchor}] ` : ''}${c.text}`).join('\n')
+    if (body.decision === 'return') {
+      await enqueueMail(tx, { kind: action, to: [author?.email ?? ''], subject: `[Tendonbook] ${sheet!.reference} ${rev.code} returned with comments - job ${project!.jobNumber}`, text: `${user.name} returned ${sheet!.reference} ${rev.code} "${sheet!.title}" with comments:\n\n${commentText}\n\nOpen it: ${link}\n` })
+    }
+    if (body.decision === 'approve') {
+      const text = `${user.name} approved ${sheet!.reference} ${rev.code} "${sheet!.title}" as ${contractCode}.\n${commentText ? `\n${commentText}\n` : ''}\nOpen it: ${link}\n`
+      await enqueueMail(tx, { kind: action, to: [author?.email ?? ''], subject: `[Tendonbook] ${sheet!.reference} ${rev.code} approved as ${contractCode} - job ${project!.jobNumber}`, text })
+      await enqueueMail(tx, { kind: 'revision.ready-to-seal', to: await addressesWithRole(tx, 'records'), subject: `[Tendonbook] ${sheet!.reference} ${contractCode} approved, ready to seal - job ${project!.jobNumber}`, text: `${sheet!.reference} ${rev.code} was approved as ${contractCode} by ${user.name} and can be sealed.\n\nOpen it: ${link}\n` })
+    }
+  }, { isolationLevel: 'read committed' })
+  return getRevisionDetail(revisionId, user)
+}

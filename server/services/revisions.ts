@@ -1,0 +1,182 @@
+import type { H3Event } from 'h3'
+import { and, asc, desc, eq, inArray } from 'drizzle-orm'
+import { alias } from 'drizzle-orm/mysql-core'
+import { EngineInputError } from '../../shared/engine/contract'
+import type { Db } from '../utils/db'
+import type { Tx } from '../utils/audit'
+import { plainJson, revisionHash } from '../utils/hashing'
+import { deriveStatus, revisionCode, type DerivedStatus } from '../utils/revision-status'
+import { diffRevisions } from '../utils/revision-diff'
+
+type DbLike = Db | Tx
+type SessionUser = { id: number, name: string, email: string, role: import('../../shared/types/roles').Role }
+
+/** Columns of a revision without its large frozen payload. */
+const r = tables.revisions
+const revisionSummary = {
+  id: r.id, sheetId: r.sheetId, seq: r.seq, code: r.code, note: r.note, templateTitle: r.templateTitle,
+  templateVersion: r.templateVersion, engineVersion: r.engineVersion, authorId: r.authorId,
+  issuedAt: r.issuedAt, contentHash: r.contentHash, prevHash: r.prevHash,
+}
+
+/** Derived status of every revision of a sheet, from the reviews, seals and later revisions. */
+export async function sheetRevisionStatuses(db: DbLike, sheetId: number): Promise<Map<number, DerivedStatus>> {
+  const revs = await db.select({ id: r.id, seq: r.seq }).from(r).where(eq(r.sheetId, sheetId)).orderBy(asc(r.seq))
+  const reviews = await db.select({ revisionId: tables.reviews.revisionId, decision: tables.reviews.decision, contractCode: tables.reviews.contractCode })
+    .from(tables.reviews).where(eq(tables.reviews.sheetId, sheetId)).orderBy(asc(tables.reviews.id))
+  const ids = revs.map(x => x.id)
+  const seals = ids.length ? await db.select({ revisionId: tables.seals.revisionId }).from(tables.seals).where(inArray(tables.seals.revisionId, ids)) : []
+  const sealed = new Set(seals.map(s => s.revisionId))
+  const approvedSeqs = revs.filter(x => reviews.some(v => v.revisionId === x.id && v.decision === 'approve')).map(x => x.seq)
+  const maxSeq = revs.at(-1)?.seq ?? 0
+  const out = new Map<number, DerivedStatus>()
+  for (const rev of revs) {
+    const decisions = reviews.filter(v => v.revisionId === rev.id && v.decision !== 'comment')
+      .map(v => ({ decision: v.decision as 'return' | 'approve', contractCode: v.contractCode }))
+    out.set(rev.id, deriveStatus({ decisions, sealed: sealed.has(rev.id), laterIssued: rev.seq < maxSeq, laterApproved: approvedSeqs.some(s => s > rev.seq) }))
+  }
+  return out
+}
+
+function mailLink(event: H3Event, path: string) {
+  return `${getRequestURL(event).origin}${path}`
+}
+
+/**
+ * Freezes the sheet's current inputs as its next revision: the server runs the engine itself,
+ * renders the report from the sheet's own template version, and writes the row, its audit event and
+ * the notice to the checkers in one transaction. The sheet row is locked first, so concurrent issues
+ * of one sheet queue up and get consecutive codes (the unique index and the chain trigger back that up).
+ * @throws 404 unknown sheet, 422 naming the input at fault.
+ */
+export async function issueRevision(event: H3Event, sheetId: number, note: string, user: SessionUser) {
+  const created = await useDb().transaction(async (tx) => {
+    const [sheet] = await tx.select().from(tables.sheets).where(eq(tables.sheets.id, sheetId)).for('update')
+    if (!sheet) throw createError({ statusCode: 404, message: `No calc sheet with id ${sheetId}` })
+    const [template] = await tx.select().from(tables.templates).where(eq(tables.templates.id, sheet.templateId))
+    const [project] = await tx.select().from(tables.projects).where(eq(tables.projects.id, sheet.projectId))
+    if (!template || !project) throw createError({ statusCode: 500, message: 'The sheet refers to a missing template or project' })
+
+    let frozen
+    try {
+      frozen = freezeRun(template.model, template.body, sheet.inputs)
+    }
+    catch (error) {
+      if (error instanceof EngineInputError) {
+        throw createError({ statusCode: 422, message: `inputs.${error.field}: ${error.message}`, data: { fields: { [`inputs.${error.field}`]: error.message } } })
+      }
+      throw error
+    }
+    const [last] = await tx.select({ seq: r.seq, contentHash: r.contentHash }).from(r).where(eq(r.sheetId, sheetId)).orderBy(desc(r.seq)).limit(1).for('update')
+    const seq = (last?.seq ?? 0) + 1
+    const fields = {
+      sheetId, seq, code: revisionCode('P', seq), note,
+      inputs: plainJson(frozen.inputs), results: plainJson(frozen.results),
+      templateId: template.id, templateSlug: template.slug, templateVersion: template.version, templateTitle: template.title,
+      model: template.model, templateBody: template.body, engineVersion: frozen.engineVersion,
+      reportHtml: frozen.html, reportSections: plainJson(frozen.sections),
+      authorId: user.id, issuedAt: new Date(), prevHash: last?.contentHash ?? null,
+    }
+    const contentHash = revisionHash(fields)
+    const [{ id }] = await tx.insert(r).values({ ...fields, contentHash }).$returningId()
+    await recordAudit(event, { action: 'revision.issued', subject: `${project.jobNumber}/${sheet.reference} ${fields.code}`, actorId: user.id, detail: { revisionId: id, contentHash } }, tx)
+    await enqueueMail(tx, {
+      kind: 'revision.issued',
+      to: await addressesWithRole(tx, 'checker'),
+      subject: `[Tendonbook] ${sheet.reference} ${fields.code} issued for check - job ${project.jobNumber} ${project.name}`,
+      text: `${user.name} issued ${sheet.reference} ${fields.code} "${sheet.title}" for check.\n${note ? `Note: ${note}\n` : ''}\nOpen it: ${mailLink(event, `/revisions/${id}`)}\n\nContent hash: ${contentHash}\n`,
+    })
+    return id
+  }, { isolationLevel: 'read committed' })
+  return getRevisionDetail(created, user)
+}
+
+export async function listSheetRevisions(sheetId: number) {
+  const db = useDb()
+  const [sheet] = await db.select({ id: tables.sheets.id }).from(tables.sheets).where(eq(tables.sheets.id, sheetId))
+  if (!sheet) throw createError({ statusCode: 404, message: `No calc sheet with id ${sheetId}` })
+  const author = alias(tables.users, 'author')
+  const rows = await db.select({ ...revisionSummary, authorName: author.name }).from(r).innerJoin(author, eq(author.id, r.authorId))
+    .where(eq(r.sheetId, sheetId)).orderBy(desc(r.seq))
+  const statuses = await sheetRevisionStatuses(db, sheetId)
+  return rows.map(row => ({ ...row, status: statuses.get(row.id)! }))
+}
+
+async function loadRevision(id: number) {
+  const [row] = await useDb().select().from(r).where(eq(r.id, id)).limit(1)
+  if (!row) throw createError({ statusCode: 404, message: `No revision with id ${id}` })
+  return row
+}
+
+/** Everything the revision page shows: the frozen report, status, reviews, seal, neighbours, what the user may do. */
+export async function getRevisionDetail(id: number, user: SessionUser) {
+  const db = useDb()
+  const rev = await loadRevision(id)
+  const [ctx] = await db.select({ sheet: tables.sheets, project: tables.projects, authorName: tables.users.name })
+    .from(tables.sheets).innerJoin(tables.projects, eq(tables.projects.id, tables.sheets.projectId))
+    .innerJoin(tables.users, eq(tables.users.id, rev.authorId)).where(eq(tables.sheets.id, rev.sheetId))
+  const statuses = await sheetRevisionStatuses(db, rev.sheetId)
+  const status = statuses.get(rev.id)!
+  const reviewer = alias(tables.users, 'reviewer')
+  const reviews = await db.select({ id: tables.reviews.id, decision: tables.reviews.decision, contractCode: tables.reviews.contractCode, comments: tables.reviews.comments, reviewerId: tables.reviews.reviewerId, reviewerName: reviewer.name, createdAt: tables.reviews.createdAt })
+    .from(tables.reviews).innerJoin(reviewer, eq(reviewer.id, tables.reviews.reviewerId)).where(eq(tables.reviews.revisionId, id)).orderBy(asc(tables.reviews.id))
+  const sealer = alias(tables.users, 'sealer')
+  const [seal] = await db.select({ id: tables.seals.id, archiveRef: tables.seals.archiveRef, verificationRef: tables.seals.verificationRef, pdfSha256: tables.seals.pdfSha256, pdfBytes: tables.seals.pdfBytes, pages: tables.seals.pages, sealedAt: tables.seals.sealedAt, sealedByName: sealer.name })
+    .from(tables.seals).innerJoin(sealer, eq(sealer.id, tables.seals.sealedBy)).where(eq(tables.seals.revisionId, id))
+  const siblings = await db.select({ id: r.id, seq: r.seq, code: r.code }).from(r).where(eq(r.sheetId, rev.sheetId)).orderBy(asc(r.seq))
+  const results = rev.results as { checks?: unknown[] }
+  const approval = reviews.find(v => v.decision === 'approve')
+  const canDecide = status.status === 'issued' && (user.role === 'checker' || user.role === 'admin')
+  return {
+    id: rev.id, seq: rev.seq, code: rev.code, note: rev.note, issuedAt: rev.issuedAt, contentHash: rev.contentHash, prevHash: rev.prevHash,
+    engineVersion: rev.engineVersion, template: { id: rev.templateId, slug: rev.templateSlug, version: rev.templateVersion, title: rev.templateTitle, model: rev.model },
+    reportHtml: rev.reportHtml, sections: rev.reportSections as Array<{ id: string, title: string, level: number }>,
+    checks: Array.isArray(results.checks) ? results.checks : [],
+    author: { id: rev.authorId, name: ctx?.authorName ?? '' },
+    sheet: { id: rev.sheetId, reference: ctx?.sheet.reference ?? '', title: ctx?.sheet.title ?? '', partOfStructure: ctx?.sheet.partOfStructure ?? '' },
+    project: { id: ctx?.project.id ?? 0, jobNumber: ctx?.project.jobNumber ?? '', name: ctx?.project.name ?? '', client: ctx?.project.client ?? '', site: ctx?.project.site ?? '' },
+    status, reviews,
+    approvedBy: approval ? { name: approval.reviewerName, at: approval.createdAt } : null,
+    seal: seal ?? null,
+    previous: siblings.filter(s => s.seq < rev.seq).at(-1) ?? null,
+    next: siblings.find(s => s.seq > rev.seq) ?? null,
+    can: {
+      decide: canDecide,
+      approve: canDecide && user.id !== rev.authorId,
+      comment: user.role !== 'records',
+      seal: status.status === 'approved' && (user.role === 'records' || user.role === 'admin'),
+    },
+  }
+}
+
+/** Diff against an earlier revision of the same sheet (default: the one just before). */
+export async function revisionDiff(id: number, againstId?: number) {
+  const rev = await loadRevision(id)
+  let base
+  if (againstId !== undefined) {
+    base = await loadRevision(againstId)
+    if (base.sheetId !== rev.sheetId) throw createError({ statusCode: 400, message: 'against: that revision belongs to another sheet', data: { fields: { against: 'Another sheet' } } })
+  }
+  else {
+    [base] = await useDb().select().from(r).where(and(eq(r.sheetId, rev.sheetId), eq(r.seq, rev.seq - 1)))
+  }
+  if (!base) return { against: null, diff: null }
+  return { against: { id: base.id, code: base.code }, diff: diffRevisions(base, rev, { specFor: resultSpecFor }) }
+}
+
+/** Revisions waiting for a decision: the latest of their sheet and neither returned nor approved. */
+export async function checkQueue(user: SessionUser) {
+  const db = useDb()
+  const author = alias(tables.users, 'author')
+  const rows = await db.select({ ...revisionSummary, authorName: author.name, sheetReference: tables.sheets.reference, sheetTitle: tables.sheets.title, jobNumber: tables.projects.jobNumber, projectName: tables.projects.name })
+    .from(r).innerJoin(author, eq(author.id, r.authorId)).innerJoin(tables.sheets, eq(tables.sheets.id, r.sheetId))
+    .innerJoin(tables.projects, eq(tables.projects.id, tables.sheets.projectId)).orderBy(asc(r.issuedAt))
+  const statusBySheet = new Map<number, Map<number, DerivedStatus>>()
+  const out = []
+  for (const row of rows) {
+    if (!statusBySheet.has(row.sheetId)) statusBySheet.set(row.sheetId, await sheetRevisionStatuses(db, row.sheetId))
+    const status = statusBySheet.get(row.sheetId)!.get(row.id)!
+    if (status.status === 'issued') out.push({ ...row, status, authoredByYou: row.authorId === user.id })
+  }
+  return out
+}

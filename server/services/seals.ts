@@ -1,0 +1,118 @@
+import type { H3Event } from 'h3'
+import { eq } from 'drizzle-orm'
+import { sha256Hex, verificationRef } from '../utils/hashing'
+import { makeReproducible, PdfRenderError, printOrigin, renderPdf } from '../utils/pdf'
+import { footerTemplate, headerTemplate, isoDay, type TitleBlock } from '../utils/print-templates'
+
+type SessionUser = { id: number, name: string, email: string, role: import('../../shared/types/roles').Role }
+type Detail = Awaited<ReturnType<typeof getRevisionDetail>>
+
+/** 2417-PS-2-C01: job, calc reference and contractual code; unique because the contractual code is. */
+export function archiveRefOf(detail: Pick<Detail, 'project' | 'sheet' | 'status'>) {
+  return `${detail.project.jobNumber}-${detail.sheet.reference}-${detail.status.contractCode}`.replace(/[^A-Za-z0-9._-]+/g, '-')
+}
+
+/** The title block of a printed revision: only facts fixed at approval, so a re-print gives the same bytes. */
+export function titleBlockOf(detail: Detail): TitleBlock {
+  return {
+    projectName: detail.project.name,
+    jobNumber: detail.project.jobNumber,
+    client: detail.project.client,
+    site: detail.project.site,
+    sheetReference: detail.sheet.reference,
+    title: detail.sheet.title,
+    partOfStructure: detail.sheet.partOfStructure,
+    revision: detail.status.contractCode ? `${detail.status.contractCode} (checked as ${detail.code})` : detail.code,
+    status: detail.status.contractCode ? 'A1 Approved' : `${detail.status.suitability} ${detail.status.label}`,
+    madeBy: detail.author.name,
+    madeOn: isoDay(detail.issuedAt),
+    checkedBy: detail.approvedBy?.name ?? '',
+    checkedOn: isoDay(detail.approvedBy?.at),
+    archiveRef: detail.status.contractCode ? archiveRefOf(detail) : '',
+    contentHash: detail.contentHash,
+    verificationRef: verificationRef(detail.contentHash),
+  }
+}
+
+/** Renders the approved revision's print page to reproducible PDF bytes. @throws 502 saying why rendering failed. */
+async function renderRevisionPdf(event: H3Event, detail: Detail) {
+  const block = titleBlockOf(detail)
+  const origin = printOrigin()
+  const session = useRuntimeConfig().session as { name?: string }
+  const cookieName = session.name || 'nuxt-session'
+  const value = getCookie(event, cookieName)
+  try {
+    const raw = await renderPdf({
+      url: `${origin}/revisions/${detail.id}/print`,
+      origin,
+      cookies: value ? [{ name: cookieName, value }] : [],
+      headerTemplate: headerTemplate(block),
+      footerTemplate: footerTemplate(block),
+    })
+    return await makeReproducible(raw, {
+      title: `${block.jobNumber} ${block.sheetReference} ${block.revision} ${block.title}`,
+      subject: `${block.projectName}: ${block.title}`,
+      keywords: [block.archiveRef, block.verificationRef, detail.contentHash],
+      date: new Date(detail.approvedBy?.at ?? detail.issuedAt),
+      documentId: detail.contentHash.slice(0, 32),
+    })
+  }
+  catch (error) {
+    const reason = error instanceof PdfRenderError ? error.message : error instanceof Error ? error.message : String(error)
+    throw createError({ statusCode: 502, message: `The PDF could not be rendered: ${reason}` })
+  }
+}
+
+/**
+ * Seals an approved revision: renders it, stores the PDF under a generated key, and records its
+ * SHA-256 and archive reference in a seal row with its audit event.
+ * @throws 409 when the revision is not approved or already sealed.
+ */
+export async function sealRevision(event: H3Event, revisionId: number, user: SessionUser) {
+  const detail = await getRevisionDetail(revisionId, user)
+  if (detail.status.status !== 'approved') {
+    throw createError({ statusCode: 409, message: `${detail.sheet.reference} ${detail.code} is ${detail.status.label.toLowerCase()}: only an approved, unsealed revision can be sealed` })
+  }
+  const { bytes, pages } = await renderRevisionPdf(event, detail)
+  const pdfSha256 = sha256Hex(bytes)
+  const archiveRef = archiveRefOf(detail)
+  const storageKey = generatedKey('seals', 'pdf')
+  await writeStored(storageKey, bytes)
+  try {
+    await useDb().transaction(async (tx) => {
+      await tx.insert(tables.seals).values({
+        revisionId, archiveRef, verificationRef: verificationRef(detail.contentHash), storageKey, pdfSha256,
+        pdfBytes: bytes.length, pages, sealedBy: user.id, sealedAt: new Date(),
+      })
+      await recordAudit(event, { action: 'revision.sealed', subject: archiveRef, actorId: user.id, detail: { revisionId, pdfSha256, pages } }, tx)
+    })
+  }
+  catch (error) {
+    if ((error as { code?: string }).code === 'ER_DUP_ENTRY' || (error as { cause?: { code?: string } }).cause?.code === 'ER_DUP_ENTRY') {
+      throw createError({ statusCode: 409, message: `${archiveRef} was sealed by someone else a moment ago` })
+    }
+    throw error
+  }
+  return getRevisionDetail(revisionId, user)
+}
+
+/** Renders a sealed revision again and says whether the bytes are identical to the sealed ones. */
+export async function resealCheck(event: H3Event, revisionId: number, user: SessionUser) {
+  const detail = await getRevisionDetail(revisionId, user)
+  if (!detail.seal) throw createError({ statusCode: 409, message: `${detail.sheet.reference} ${detail.code} is not sealed` })
+  const { bytes } = await renderRevisionPdf(event, detail)
+  const renderedSha256 = sha256Hex(bytes)
+  const identical = renderedSha256 === detail.seal.pdfSha256
+  await recordAudit(event, { action: 'revision.reseal-check', subject: detail.seal.archiveRef, actorId: user.id, detail: { revisionId, identical, renderedSha256 } })
+  return { identical, sealedSha256: detail.seal.pdfSha256, renderedSha256, bytes: bytes.length }
+}
+
+/** The sealed PDF's bytes, checked against the recorded hash before they are handed out. */
+export async function sealedPdf(revisionId: number) {
+  const [seal] = await useDb().select().from(tables.seals).where(eq(tables.seals.revisionId, revisionId))
+  if (!seal) throw createError({ statusCode: 404, message: `Revision ${revisionId} has no sealed PDF` })
+  const bytes = await readStored(seal.storageKey)
+  if (!bytes) throw createError({ statusCode: 410, message: `The sealed PDF ${seal.archiveRef} is missing from storage` })
+  if (sha256Hex(bytes) !== seal.pdfSha256) throw createError({ statusCode: 500, message: `The stored PDF ${seal.archiveRef} no longer matches its recorded hash` })
+  return { seal, bytes }
+}

@@ -1,0 +1,145 @@
+// Content hashes of the records side: SHA-256 over RFC 8785 canonical JSON (package `canonicalize`).
+// Pure functions (no Nitro auto-imports) so unit tests can check them against independent values.
+import { createHash } from 'node:crypto'
+import canonicalize from 'canonicalize'
+
+/** RFC 8785 canonical JSON. @throws when the value holds something JSON cannot carry (NaN, a function). */
+export function canonicalJson(value: unknown): string {
+  assertPlainJson(value, '')
+  const text = canonicalize(value)
+  if (text === undefined) throw new TypeError('value has no JSON form')
+  return text
+}
+
+export function sha256Hex(data: string | Uint8Array): string {
+  return createHash('sha256').update(data).digest('hex')
+}
+
+export function hashCanonical(value: unknown): string {
+  return sha256Hex(canonicalJson(value))
+}
+
+/**
+ * The value exactly as it will read back from a JSON column: hashing this form (not the live
+ * object) means a later re-hash of the stored row gives the same digest.
+ */
+export function plainJson<T>(value: T): T {
+  assertPlainJson(value, '')
+  return JSON.parse(JSON.stringify(value)) as T
+}
+
+function assertPlainJson(value: unknown, path: string): void {
+  if (typeof value === 'number' && !Number.isFinite(value)) throw new TypeError(`${path || '(root)'}: ${value} has no JSON form`)
+  if (typeof value === 'function' || typeof value === 'symbol' || typeof value === 'bigint') throw new TypeError(`${path || '(root)'}: a ${typeof value} has no JSON form`)
+  if (Array.isArray(value)) value.forEach((v, i) => assertPlainJson(v, `${path}[${i}]`))
+  else if (value && typeof value === 'object' && !(value instanceof Date)) {
+    for (const [k, v] of Object.entries(value)) if (v !== undefined) assertPlainJson(v, path ? `${path}.${k}` : k)
+  }
+}
+
+/** The fields of a revision that its content hash covers (everything that makes it what it is). */
+export interface RevisionHashFields {
+  sheetId: number
+  seq: number
+  code: string
+  note: string
+  inputs: unknown
+  results: unknown
+  templateId: number
+  templateSlug: string
+  templateVersion: number
+  templateTitle: string
+  model: string
+  templateBody: string
+  engineVersion: string
+  reportHtml: string
+  reportSections: unknown
+  authorId: number
+  issuedAt: Date
+  prevHash: string | null
+}
+
+export function revisionHash(r: RevisionHashFields): string {
+  return hashCanonical({
+    kind: 'tendonbook.revision',
+    sheetId: r.sheetId,
+    seq: r.seq,
+    code: r.code,
+    note: r.note,
+    inputs: r.inputs,
+    results: r.results,
+    template: { id: r.templateId, slug: r.templateSlug, version: r.templateVersion, title: r.templateTitle, model: r.model, body: r.templateBody },
+    engineVersion: r.engineVersion,
+    report: { html: r.reportHtml, sections: r.reportSections },
+    authorId: r.authorId,
+    issuedAt: r.issuedAt.toISOString(),
+    prevHash: r.prevHash,
+  })
+}
+
+export interface ReviewHashFields {
+  revisionId: number
+  sheetId: number
+  decision: string
+  contractCode: string | null
+  comments: unknown
+  reviewerId: number
+  createdAt: Date
+}
+
+export function reviewHash(r: ReviewHashFields): string {
+  return hashCanonical({
+    kind: 'tendonbook.review',
+    revisionId: r.revisionId,
+    sheetId: r.sheetId,
+    decision: r.decision,
+    contractCode: r.contractCode,
+    comments: r.comments,
+    reviewerId: r.reviewerId,
+    createdAt: r.createdAt.toISOString(),
+  })
+}
+
+export interface AuditHashFields {
+  seq: number
+  action: string
+  subject: string
+  actorId: number | null
+  address: string
+  detail: unknown
+  createdAt: Date
+  prevHash: string | null
+}
+
+export function auditHash(e: AuditHashFields): string {
+  return hashCanonical({
+    kind: 'tendonbook.audit',
+    seq: e.seq,
+    action: e.action,
+    subject: e.subject,
+    actorId: e.actorId,
+    address: e.address,
+    detail: e.detail,
+    createdAt: e.createdAt.toISOString(),
+    prevHash: e.prevHash,
+  })
+}
+
+/**
+ * Short reference printed on a sealed PDF and typed back to verify it: TB-XXXX-XXXX-XXXX, from the
+ * revision's content hash (the PDF's own hash cannot be printed inside it).
+ */
+export function verificationRef(contentHash: string): string {
+  const h = contentHash.slice(0, 12).toUpperCase()
+  return `TB-${h.slice(0, 4)}-${h.slice(4, 8)}-${h.slice(8, 12)}`
+}
+
+/** What a person might paste: a 64-hex hash or a verification reference, normalised. */
+export function parseVerifyQuery(text: string): { kind: 'hash', value: string } | { kind: 'ref', value: string } | null {
+  const t = text.trim()
+  if (/^[0-9a-f]{64}$/i.test(t)) return { kind: 'hash', value: t.toLowerCase() }
+  const compact = t.toUpperCase().replace(/[\s-]/g, '')
+  const m = /^TB([0-9A-F]{12})$/.exec(compact)
+  if (m) return { kind: 'ref', value: verificationRef(m[1]!.toLowerCase()) }
+  return null
+}

@@ -1,0 +1,135 @@
+// PDF rendering with puppeteer-core and the system Chromium: one browser for the process (relaunched
+// when it goes away), a fresh page per job, only our own origin reachable, a deadline per job.
+import puppeteer, { type Browser } from 'puppeteer-core'
+import { PDFDocument, PDFHexString } from 'pdf-lib'
+
+const LAUNCH_ARGS = [
+  '--no-sandbox', '--disable-gpu', '--disable-dev-shm-usage', '--disable-background-networking',
+  '--disable-component-update', '--disable-sync', '--no-first-run', '--disable-quic',
+]
+
+let browser: Promise<Browser> | null = null
+
+function useBrowser(): Promise<Browser> {
+  if (!browser) {
+    const launching = puppeteer.launch({ executablePath: useRuntimeConfig().chromiumPath || '/usr/bin/chromium', headless: true, args: LAUNCH_ARGS })
+    browser = launching
+    launching.then(b => b.on('disconnected', () => {
+      if (browser === launching) browser = null
+    })).catch(() => {
+      if (browser === launching) browser = null
+    })
+  }
+  return browser
+}
+
+/** Closes the shared browser (server shutdown, tests). */
+export async function closeBrowser() {
+  const current = browser
+  browser = null
+  if (current) await (await current.catch(() => null))?.close()
+}
+
+export class PdfRenderError extends Error {
+  constructor(message: string) {
+    super(message)
+    this.name = 'PdfRenderError'
+  }
+}
+
+export interface PdfJob {
+  /** the page to print, on `origin` */
+  url: string
+  origin: string
+  cookies: Array<{ name: string, value: string }>
+  headerTemplate: string
+  footerTemplate: string
+  timeoutMs?: number
+}
+
+/** The origin Chromium reaches this server on: the loopback address it listens on. */
+export function printOrigin() {
+  return process.env.TENDONBOOK_PRINT_ORIGIN || `http://127.0.0.1:${process.env.PORT || process.env.NITRO_PORT || 3000}`
+}
+
+/** @throws PdfRenderError saying why (page status, deadline, browser failure). */
+export async function renderPdf(job: PdfJob): Promise<Uint8Array> {
+  const timeoutMs = job.timeoutMs ?? 30_000
+  const b = await useBrowser().catch((error: unknown) => {
+    throw new PdfRenderError(`Chromium could not start: ${error instanceof Error ? error.message : String(error)}`)
+  })
+  const page = await b.newPage()
+  let timer: NodeJS.Timeout | undefined
+  const deadline = new Promise<never>((_, reject) => {
+    timer = setTimeout(() => reject(new PdfRenderError(`rendering took longer than ${timeoutMs / 1000} s`)), timeoutMs)
+  })
+  const work = (async () => {
+    // the print page is static HTML and CSS: no script runs in it
+    await page.setJavaScriptEnabled(false)
+    await page.setRequestInterception(true)
+    page.on('request', (request) => {
+      let allowed = false
+      try {
+        allowed = new URL(request.url()).origin === job.origin
+      }
+      catch {}
+      if (allowed) void request.continue()
+      else void request.abort('blockedbyclient')
+    })
+    if (job.cookies.length) await page.setCookie(...job.cookies.map(c => ({ ...c, url: job.origin })))
+    const response = await page.goto(job.url, { waitUntil: 'networkidle0', timeout: timeoutMs })
+    if (!response) throw new PdfRenderError('the print page gave no response')
+    if (!response.ok()) throw new PdfRenderError(`the print page answered ${response.status()} ${response.statusText()}`)
+    await page.evaluate(() => document.fonts.ready.then(() => undefined))
+    const pdf = await page.pdf({
+      format: 'A4',
+      printBackground: true,
+      displayHeaderFooter: true,
+      headerTemplate: job.headerTemplate,
+      footerTemplate: job.footerTemplate,
+      margin: { top: '44mm', bottom: '24mm', left: '16mm', right: '16mm' },
+      timeout: timeoutMs,
+    })
+    return new Uint8Array(pdf)
+  })()
+  try {
+    return await Promise.race([work, deadline])
+  }
+  catch (error) {
+    if (error instanceof PdfRenderError) throw error
+    throw new PdfRenderError(error instanceof Error ? error.message : String(error))
+  }
+  finally {
+    clearTimeout(timer)
+    await page.close().catch(() => {})
+  }
+}
+
+export interface FixedMetadata {
+  title: string
+  subject: string
+  keywords: string[]
+  /** creation and modification date written into the file */
+  date: Date
+  /** 32 hex digits for the trailer /ID */
+  documentId: string
+}
+
+/**
+ * Same revision, same bytes: Chromium's output differs between runs only in its dates and trailer
+ * /ID, so those are set from the revision (pdf-lib, no object streams) and the rest is left alone.
+ */
+export async function makeReproducible(bytes: Uint8Array, meta: FixedMetadata): Promise<{ bytes: Uint8Array, pages: number }> {
+  const doc = await PDFDocument.load(bytes, { updateMetadata: false })
+  doc.setTitle(meta.title)
+  doc.setSubject(meta.subject)
+  doc.setKeywords(meta.keywords)
+  doc.setProducer('Tendonbook')
+  doc.setCreator('Tendonbook')
+  doc.setCreationDate(meta.date)
+  doc.setModificationDate(meta.date)
+  const id = PDFHexString.of(meta.documentId)
+  doc.context.trailerInfo.ID = doc.context.obj([id, id])
+  const out = await doc.save({ useObjectStreams: false, addDefaultPage: false, updateFieldAppearances: false })
+  return { bytes: out, pages: doc.getPageCount() }
+}

@@ -1,0 +1,54 @@
+// The title block repeated on every sheet of a printed revision and the footer with its hash,
+// verification reference and caution. Chromium's header/footer templates take inline styles only.
+
+export const CAUTION = 'Results are for a competent engineer to verify; the local code, its national annex and licensed practice govern.'
+
+export interface TitleBlock {
+  projectName: string
+  jobNumber: string
+  client: string
+  site: string
+  sheetReference: string
+  title: string
+  partOfStructure: string
+  revision: string
+  status: string
+  madeBy: string
+  madeOn: string
+  checkedBy: string
+  checkedOn: string
+  archiveRef: string
+  contentHash: string
+  verificationRef: string
+}
+
+export function escapeHtml(text: string): string {
+  return text.replace(/[&<>"']/g, c => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', '\'': '&#39;' })[c]!)
+}
+
+/** yyyy-mm-dd in UTC: the same on every machine, so the printed bytes do not depend on where they were made. */
+export function isoDay(date: Date | string | null | undefined): string {
+  return date ? new Date(date).toISOString().slice(0, 10) : ''
+}
+
+const cell = 'border:0.6pt solid #1f2937;padding:1.2mm 1.8mm;vertical-align:top;'
+const label = 'display:block;font-size:5.6pt;text-transform:uppercase;letter-spacing:0.04em;color:#4b5563;'
+const value = 'display:block;font-size:8pt;color:#111827;'
+
+function field(name: string, text: string, extra = '') {
+  return `<td style="${cell}${extra}"><span style="${label}">${escapeHtml(name)}</span><span style="${value}">${escapeHtml(text) || '&nbsp;'}</span></td>`
+}
+
+export function headerTemplate(t: TitleBlock): string {
+  return `<div style="width:100%;margin:0 16mm;font-family:'DejaVu Sans','Liberation Sans',sans-serif;-webkit-print-color-adjust:exact;">
+<table style="width:100%;border-collapse:collapse;table-layout:fixed;">
+<tr>${field('Project', t.projectName, 'width:34%;')}${field('Job no.', t.jobNumber)}${field('Calc ref.', t.sheetReference)}${field('Revision', t.revision)}<td style="${cell}"><span style="${label}">Sheet</span><span style="${value}"><span class="pageNumber"></span> of <span class="totalPages"></span></span></td></tr>
+<tr>${field('Title', t.title)}${field('Part of structure', t.partOfStructure, 'width:auto;')}${field('Status', t.status)}${field('Made by / date', `${t.madeBy} ${t.madeOn}`)}${field('Checked by / date', `${t.checkedBy} ${t.checkedOn}`)}</tr>
+</table></div>`
+}
+
+export function footerTemplate(t: TitleBlock): string {
+  return `<div style="width:100%;margin:0 16mm;font-family:'DejaVu Sans','Liberation Sans',sans-serif;font-size:6.4pt;color:#374151;border-top:0.6pt solid #1f2937;padding-top:1.2mm;">
+<div>Archive ${escapeHtml(t.archiveRef)} · verification ${escapeHtml(t.verificationRef)} · content SHA-256 ${escapeHtml(t.contentHash)}</div>
+<div style="margin-top:0.6mm;">${escapeHtml(CAUTION)}</div></div>`
+}

@@ -1,0 +1,83 @@
+import { describe, expect, it } from 'vitest'
+import { auditHash, canonicalJson, hashCanonical, parseVerifyQuery, plainJson, revisionHash, sha256Hex, verificationRef, type RevisionHashFields } from '../../../server/utils/hashing'
+
+describe('canonical JSON (RFC 8785)', () => {
+  it('matches the sample of RFC 8785 §3.2.2 (sorting, numbers, string escapes)', () => {
+    // RFC 8785 §3.2.2: the input object and its canonical form, copied from the RFC
+    const input = JSON.parse('{"numbers":[333333333.33333329,1E30,4.50,2e-3,0.000000000000000000000000001],"string":"\\u20ac$\\u000F\\u000aA\'\\u0042\\u0022\\u005c\\\\\\"\\/","literals":[null,true,false]}')
+    expect(canonicalJson(input)).toBe('{"literals":[null,true,false],"numbers":[333333333.3333333,1e+30,4.5,0.002,1e-27],"string":"€$\\u000f\\nA\'B\\"\\\\\\\\\\"/"}')
+  })
+
+  it('sorts keys by UTF-16 code units, as RFC 8785 §3.2.3 requires', () => {
+    // RFC 8785 §3.2.3 sorting example (subset): "\r" < "1" < "\u0080" < "\u00f6" < "\u20ac" < "\ud83d\ude00" < "\ufb33"
+    const keys = ['\ufb33', '\u20ac', '\r', '\ud83d\ude00', '1', '\u00f6', '\u0080']
+    const obj = Object.fromEntries(keys.map((k, i) => [k, i]))
+    const order = ['\r', '1', '\u0080', '\u00f6', '\u20ac', '\ud83d\ude00', '\ufb33']
+    // read the order off the text: JS objects put integer-like keys first, so no JSON.parse here
+    expect(canonicalJson(obj)).toBe(`{${order.map(k => `${JSON.stringify(k)}:${keys.indexOf(k)}`).join(',')}}`)
+  })
+
+  it('refuses values JSON cannot carry, naming where they are', () => {
+    expect(() => canonicalJson({ a: { b: [1, Number.NaN] } })).toThrow('a.b[1]')
+    expect(() => plainJson({ x: Number.POSITIVE_INFINITY })).toThrow('x')
+  })
+})
+
+describe('SHA-256', () => {
+  it('gives the FIPS 180-2 digest of "abc"', () => {
+    // FIPS 180-2, Appendix B.1
+    expect(sha256Hex('abc')).toBe('ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f20015ad')
+  })
+
+  it('hashes the canonical form, so key order does not matter', () => {
+    expect(hashCanonical({ b: 1, a: [1, { d: 2, c: 3 }] })).toBe(hashCanonical({ a: [1, { c: 3, d: 2 }], b: 1 }))
+  })
+})
+
+function revision(): RevisionHashFields {
+  return {
+    sheetId: 3, seq: 2, code: 'P02', note: 'spans revised', inputs: { spans: [7800, 9600] }, results: { checks: [{ id: 'a', pass: true }] },
+    templateId: 1, templateSlug: 'pt-slab', templateVersion: 1, templateTitle: 'Slab', model: 'pt-member', templateBody: '# Slab',
+    engineVersion: '1.0.0', reportHtml: '<h1>Slab</h1>', reportSections: [{ id: 'slab', title: 'Slab', level: 1 }],
+    authorId: 7, issuedAt: new Date('2026-03-02T10:11:12.345Z'), prevHash: 'a'.repeat(64),
+  }
+}
+
+describe('revision and audit hashes', () => {
+  it('changes when any hashed field changes', () => {
+    const base = revisionHash(revision())
+    const variants: Array<Partial<RevisionHashFields>> = [
+      { seq: 3 }, { code: 'P03' }, { note: '' }, { inputs: { spans: [7800, 9601] } }, { results: { checks: [{ id: 'a', pass: false }] } },
+      { templateBody: '# Slab ' }, { templateVersion: 2 }, { engineVersion: '1.0.1' }, { reportHtml: '<h1>Slab.</h1>' },
+      { authorId: 8 }, { issuedAt: new Date('2026-03-02T10:11:12.346Z') }, { prevHash: null },
+    ]
+    const hashes = variants.map(v => revisionHash({ ...revision(), ...v }))
+    for (const h of hashes) expect(h).not.toBe(base)
+    expect(new Set(hashes).size).toBe(hashes.length)
+  })
+
+  it('survives the round trip through a JSON column', () => {
+    const r = revision()
+    const stored = { ...r, inputs: JSON.parse(JSON.stringify(r.inputs)), results: JSON.parse(JSON.stringify(r.results)) }
+    expect(revisionHash(stored)).toBe(revisionHash(r))
+  })
+
+  it('chains audit events through prevHash', () => {
+    const e = { seq: 1, action: 'signin', subject: 'a@b', actorId: 1, address: '127.0.0.1', detail: {}, createdAt: new Date(0), prevHash: null }
+    const h1 = auditHash(e)
+    const h2 = auditHash({ ...e, seq: 2, prevHash: h1 })
+    expect(auditHash({ ...e, seq: 2, prevHash: h1.replace(/^./, c => (c === '0' ? '1' : '0')) })).not.toBe(h2)
+  })
+})
+
+describe('verification references', () => {
+  it('reads back a reference typed with spaces, lower case or no dashes', () => {
+    const hash = sha256Hex('some revision')
+    const ref = verificationRef(hash)
+    expect(ref).toMatch(/^TB-[0-9A-F]{4}-[0-9A-F]{4}-[0-9A-F]{4}$/)
+    expect(parseVerifyQuery(ref.toLowerCase())).toEqual({ kind: 'ref', value: ref })
+    expect(parseVerifyQuery(ref.replace(/-/g, ' '))).toEqual({ kind: 'ref', value: ref })
+    expect(parseVerifyQuery(` ${hash.toUpperCase()} `)).toEqual({ kind: 'hash', value: hash })
+    expect(parseVerifyQuery('TB-12')).toBeNull()
+  })
+})
