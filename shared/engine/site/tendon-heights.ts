@@ -1,0 +1,100 @@
+/**
+ * Tendon height schedule for the site: height of the tendon centroid and of the tendon's underside
+ * (what the chairs support) above the member soffit, per span, at regular stations and at every high
+ * point, low point and point of inflection of the profile. Heights in mm, x in mm from the left
+ * support of the span; e positive below the centroid (prestress/profile.ts).
+ */
+import { EngineInputError } from '../contract'
+import { eccentricityIn, lowPointFraction, resolveProfile } from '../prestress/profile'
+import type { TendonProfile } from '../prestress/profile'
+import { requireNonNegative, requirePositive } from '../uls/inputs'
+
+export type HeightPointKind = 'support' | 'low' | 'inflection' | 'station'
+
+export interface TendonHeightInput {
+  profile: TendonProfile
+  /** member depth, mm */
+  h: number
+  /** height of the section centroid above the soffit, mm */
+  centroidHeight: number
+  /** distance between stations, mm (typically 500 or 1000) */
+  spacing: number
+  /** distance from the tendon centroid down to the underside of the strand or duct, mm */
+  centroidToUnderside: number
+  /** the schedule rounds heights to this, mm (5 mm is common practice); 0 leaves them unrounded */
+  roundTo?: number
+}
+
+export interface HeightRow {
+  span: number
+  /** from the span's left support, mm */
+  x: number
+  /** from the first support, mm */
+  xGlobal: number
+  kind: HeightPointKind
+  e: number
+  /** tendon centroid above the soffit, mm */
+  centroid: number
+  /** underside of the strand or duct above the soffit (chair height), mm */
+  underside: number
+  /** underside rounded for the schedule, mm */
+  chair: number
+}
+
+export interface TendonHeightSchedule {
+  spacing: number
+  roundTo: number
+  rows: HeightRow[]
+  /** per span, the rows of that span */
+  spans: Array<{ span: number; L: number; rows: HeightRow[] }>
+  /** rows where the tendon would leave the section (should not happen with a checked profile) */
+  outside: number
+}
+
+export function tendonHeightSchedule(i: TendonHeightInput): TendonHeightSchedule {
+  const pieces = resolveProfile(i.profile)
+  requirePositive('h', i.h)
+  requirePositive('centroidHeight', i.centroidHeight)
+  if (i.centroidHeight >= i.h) throw new EngineInputError('centroidHeight', 'the centroid must lie within the section')
+  requirePositive('spacing', i.spacing)
+  requireNonNegative('centroidToUnderside', i.centroidToUnderside)
+  const roundTo = requireNonNegative('roundTo', i.roundTo ?? 5)
+  const lambda = i.profile.inflection ?? 0.1
+  const n = i.profile.spans.length
+  const rows: HeightRow[] = []
+  const spans: TendonHeightSchedule['spans'] = []
+  let x0 = 0
+  let outside = 0
+  i.profile.spans.forEach((L, s) => {
+    const points = new Map<number, HeightPointKind>()
+    const add = (x: number, kind: HeightPointKind): void => {
+      const key = Math.round(x * 1000) / 1000
+      const near = [...points.keys()].find((k) => Math.abs(k - key) < 1)
+      if (near !== undefined) {
+        if ((points.get(near) as HeightPointKind) === 'station') points.set(near, kind)
+        return
+      }
+      points.set(key, kind)
+    }
+    for (let x = 0; x < L - 1e-6; x += i.spacing) add(x, 'station')
+    add(0, 'support')
+    add(L, 'support')
+    add(lowPointFraction(i.profile, s) * L, 'low')
+    if (lambda > 0 && s > 0) add(lambda * L, 'inflection')
+    if (lambda > 0 && s < n - 1) add(L - lambda * L, 'inflection')
+    const spanRows = [...points.entries()]
+      .sort((a, b) => a[0] - b[0])
+      .map(([x, kind]) => {
+        const e = eccentricityIn(pieces[s] as NonNullable<(typeof pieces)[number]>, x)
+        const centroid = i.centroidHeight - e // e below the centroid lowers the tendon
+        const underside = centroid - i.centroidToUnderside
+        if (underside < 0 || centroid + i.centroidToUnderside > i.h) outside++
+        const chair = roundTo > 0 ? Math.round(underside / roundTo) * roundTo : underside
+        return { span: s, x, xGlobal: x0 + x, kind, e, centroid, underside, chair }
+      })
+    rows.push(...spanRows)
+    spans.push({ span: s, L, rows: spanRows })
+    x0 += L
+  })
+  return { spacing: i.spacing, roundTo, rows, spans, outside }
+}

@@ -1,0 +1,173 @@
+/**
+ * Deflection of a continuous member under the unbalanced quasi-permanent load (gravity minus the
+ * tendon's equivalent loads), short term with Ecm and long term with the effective modulus
+ * Ec,eff = Ecm/(1 + φ) (EN 1992-1-1 eq. (7.20)). Curvatures are computed at frequent stations and
+ * integrated twice in each span (7.4.3(7), the rigorous method); where a section cracks the curvature
+ * is interpolated between the uncracked and the fully cracked state with ζ = 1 − β(Mcr/M)²
+ * (eqs. (7.18), (7.19), with σsr/σs = Mcr/M for bending). Deflection positive downward, mm.
+ */
+import { analyseContinuousBeam } from '../analysis/continuous-beam'
+import type { BeamLoad, SupportKind } from '../analysis/continuous-beam'
+import { EngineInputError } from '../contract'
+import { requireNonNegative, requirePositive, requireRange } from '../uls/inputs'
+
+/** Cracking data of one span: net moments at first cracking and the cracked second moments. */
+export interface SpanCracking {
+  /** sagging moment (positive) at which the bottom fibre reaches fct,eff, N·mm */
+  McrSagging: number
+  /** hogging moment magnitude at which the top fibre reaches fct,eff, N·mm */
+  McrHogging: number
+  IcrSagging: number
+  IcrHogging: number
+}
+
+export interface DeflectionInput {
+  spans: number[]
+  supports?: SupportKind[]
+  /** unbalanced quasi-permanent loads, gravity positive */
+  loads: BeamLoad[]
+  Ecm: number
+  /** creep coefficient φ(∞, t0) (Annex B) */
+  phi: number
+  /** uncracked second moment, one value or one per span, mm⁴ */
+  I: number | number[]
+  /** omit for an uncracked member; one entry or one per span */
+  cracking?: SpanCracking | SpanCracking[]
+  /** β of eq. (7.19): 1.0 single short-term load, 0.5 sustained (default) */
+  beta?: number
+  /** span/ratio limits: total 250 (7.4.1(4)), after construction 500 (7.4.1(5)) */
+  ratioTotal?: number
+  ratioAfter?: number
+  /** engineer's own limit on the long-term deflection, mm */
+  limit?: number | null
+  /** stations per span (even) */
+  stations?: number
+}
+
+export interface SpanDeflection {
+  span: number
+  L: number
+  /** largest downward (positive) and upward (negative) deflection, mm, and where (x from the span's left support) */
+  shortTerm: { down: number; up: number; at: number }
+  longTerm: { down: number; up: number; at: number }
+  /** long-term minus short-term: the part after the partitions and finishes are in place (common practice), mm */
+  afterConstruction: number
+  limitTotal: number
+  limitAfter: number
+  limitEngineer: number | null
+  /** largest of |long-term| / limit-total, after / limit-after, |long-term| / engineer's limit */
+  utilisation: number
+  cracked: boolean
+}
+
+export interface DeflectionResult {
+  EcEff: number
+  spans: SpanDeflection[]
+  /** sampled for figures: global x, span index, short- and long-term deflection */
+  series: { x: number[]; span: number[]; shortTerm: number[]; longTerm: number[] }
+}
+
+function perSpan<T>(v: T | T[], n: number, field: string): T[] {
+  if (!Array.isArray(v)) return Array.from({ length: n }, () => v)
+  if (v.length !== n) throw new EngineInputError(field, `give one value per span (${n})`)
+  return v
+}
+
+/** Distribution coefficient ζ = 1 − β(σsr/σs)², EN 1992-1-1 eq. (7.19); 0 when uncracked. */
+export function distributionCoefficient(beta: number, ratio: number): number {
+  if (!(ratio >= 0) || !Number.isFinite(ratio)) throw new EngineInputError('ratio', 'σsr/σs must be a non-negative number')
+  if (ratio >= 1) return 0 // uncracked: the cracking stress is not reached
+  return 1 - beta * ratio * ratio // EN 1992-1-1 eq. (7.19)
+}
+
+/** α = ζ αII + (1 − ζ) αI, EN 1992-1-1 eq. (7.18). */
+export function interpolate(zeta: number, uncracked: number, cracked: number): number {
+  return zeta * cracked + (1 - zeta) * uncracked // EN 1992-1-1 eq. (7.18)
+}
+
+/** Deflection w(x) of one span from curvatures at equal stations: w'' = −κ, w(0) = w(L) = 0. */
+export function deflectionFromCurvature(kappa: number[], L: number): number[] {
+  const n = kappa.length - 1
+  const h = L / n
+  const slope: number[] = [0]
+  for (let j = 1; j <= n; j++) slope.push((slope[j - 1] as number) + ((kappa[j - 1] as number) + (kappa[j] as number)) * h / 2) // ∫κ, trapezoidal rule
+  const I2: number[] = [0]
+  for (let j = 1; j <= n; j++) I2.push((I2[j - 1] as number) + ((slope[j - 1] as number) + (slope[j] as number)) * h / 2) // ∫∫κ
+  const end = I2[n] as number
+  return I2.map((v, j) => -v + (end * j) / n) // the chord term restores w(L) = 0
+}
+
+export function memberDeflection(i: DeflectionInput): DeflectionResult {
+  const n = i.spans.length
+  requirePositive('Ecm', i.Ecm)
+  requireRange('phi', i.phi, 0, 10, 'the creep coefficient must lie between 0 and 10')
+  const Is = perSpan(i.I, n, 'I')
+  Is.forEach((v, k) => requirePositive(`I.${k}`, v))
+  const cracking = i.cracking === undefined ? null : perSpan(i.cracking, n, 'cracking')
+  cracking?.forEach((c, k) => {
+    requireNonNegative(`cracking.${k}.McrSagging`, c.McrSagging)
+    requireNonNegative(`cracking.${k}.McrHogging`, c.McrHogging)
+    requirePositive(`cracking.${k}.IcrSagging`, c.IcrSagging)
+    requirePositive(`cracking.${k}.IcrHogging`, c.IcrHogging)
+  })
+  const beta = i.beta ?? 0.5
+  requireRange('beta', beta, 0.5, 1, 'β is 1.0 for a single short-term load and 0.5 for sustained loads (7.4.3(3))')
+  const ratioTotal = requirePositive('ratioTotal', i.ratioTotal ?? 250)
+  const ratioAfter = requirePositive('ratioAfter', i.ratioAfter ?? 500)
+  if (i.limit !== undefined && i.limit !== null) requirePositive('limit', i.limit)
+  const stations = Math.max(20, Math.round((i.stations ?? 100) / 2) * 2)
+  const EcEff = i.Ecm / (1 + i.phi) // EN 1992-1-1 eq. (7.20)
+  // moments do not depend on a uniform modulus, only on the relative stiffness of the spans
+  const beam = analyseContinuousBeam({ spans: i.spans, EI: Is, ...(i.supports ? { supports: i.supports } : {}), loads: i.loads })
+  const series = { x: [] as number[], span: [] as number[], shortTerm: [] as number[], longTerm: [] as number[] }
+  let x0 = 0
+  const spans = i.spans.map((L, s) => {
+    const I = Is[s] as number
+    const c = cracking?.[s] ?? null
+    let cracked = false
+    const curv = (M: number, E: number): number => {
+      const uncr = M / (E * I)
+      if (!c) return uncr
+      const Mcr = M >= 0 ? c.McrSagging : c.McrHogging
+      const Icr = M >= 0 ? c.IcrSagging : c.IcrHogging
+      const zeta = Math.abs(M) > 0 ? distributionCoefficient(beta, Mcr / Math.abs(M)) : 0
+      if (zeta > 0) cracked = true
+      return interpolate(zeta, uncr, M / (E * Icr))
+    }
+    const xs = Array.from({ length: stations + 1 }, (_, j) => (L * j) / stations)
+    const Ms = xs.map((x) => beam.momentAt(s, x))
+    const wShort = deflectionFromCurvature(Ms.map((M) => curv(M, i.Ecm)), L)
+    const wLong = deflectionFromCurvature(Ms.map((M) => curv(M, EcEff)), L)
+    const extreme = (w: number[]): { down: number; up: number; at: number } => {
+      let down = 0
+      let up = 0
+      let at = L / 2
+      w.forEach((v, j) => {
+        if (v > down) {
+          down = v
+          at = xs[j] as number
+        }
+        if (v < up) up = v
+      })
+      return { down, up, at }
+    }
+    const shortTerm = extreme(wShort)
+    const longTerm = extreme(wLong)
+    const afterConstruction = Math.max(...wLong.map((v, j) => Math.abs(v - (wShort[j] as number))))
+    const limitTotal = L / ratioTotal // EN 1992-1-1 7.4.1(4): span/250 under quasi-permanent loads
+    const limitAfter = L / ratioAfter // EN 1992-1-1 7.4.1(5): span/500 after construction
+    const limitEngineer = i.limit ?? null
+    const longMax = Math.max(longTerm.down, -longTerm.up)
+    const utilisation = Math.max(longMax / limitTotal, afterConstruction / limitAfter, limitEngineer ? longMax / limitEngineer : 0)
+    xs.forEach((x, j) => {
+      if (s > 0 && j === 0) return
+      series.x.push(x0 + x)
+      series.span.push(s)
+      series.shortTerm.push(wShort[j] as number)
+      series.longTerm.push(wLong[j] as number)
+    })
+    x0 += L
+    return { span: s, L, shortTerm, longTerm, afterConstruction, limitTotal, limitAfter, limitEngineer, utilisation, cracked }
+  })
+  return { EcEff, spans, series }
+}
