@@ -1,0 +1,63 @@
+/**
+ * Load balancing (T. Y. Lin, ACI Journal 1963): a parabola of sag a over L under force P exerts
+ * w = 8Pa/L² on the concrete. The complete set of equivalent loads of a tendon — every parabola's
+ * uniform load, any kink force, and at each anchorage the vertical component and the couple P·e —
+ * is self-equilibrating. Gravity (downward) positive; couples counter-clockwise positive.
+ */
+import { EngineInputError } from '../contract'
+import type { BeamLoad } from '../analysis/continuous-beam'
+import { drapes, resolveProfile, slopeIn } from './profile'
+import type { ProfilePiece, TendonProfile } from './profile'
+
+export interface BalancingForce {
+  perSpan: number[]
+  governing: number
+}
+
+/** Force per span to balance the line load w (N/mm): P = w L² / (8 a) (Lin). */
+export function balancingForce(profile: TendonProfile, w: number | number[]): BalancingForce {
+  const a = drapes(profile)
+  const perSpan = profile.spans.map((L, i) => {
+    const wi = Array.isArray(w) ? w[i] : w
+    if (wi === undefined || !Number.isFinite(wi)) throw new EngineInputError(`w.${i}`, 'the balanced load must be a finite number')
+    const ai = a[i] as number
+    if (!(ai > 0)) throw new EngineInputError(`profile.spanEcc.${i}`, `span ${i + 1} has no drape: the low point must lie below the chord of its support points`)
+    return (wi * L * L) / (8 * ai) // Lin: P = w L² / 8a
+  })
+  return { perSpan, governing: Math.max(...perSpan) }
+}
+
+/** Equivalent loads of the tendon on the concrete under a constant force P (N). */
+export function equivalentLoads(profile: TendonProfile, P: number): BeamLoad[] {
+  if (!Number.isFinite(P)) throw new EngineInputError('P', 'the force must be a finite number')
+  const all = resolveProfile(profile)
+  const n = profile.spans.length
+  const loads: BeamLoad[] = []
+  all.forEach((pieces, span) => {
+    for (const p of pieces) {
+      if (p.c !== 0 && p.x1 > p.x0) loads.push({ kind: 'patch', span, from: p.x0, to: p.x1, w: 2 * p.c * P }) // w = P·e'' (curvature load)
+    }
+  })
+  // kinks at interior supports: downward force P·(e'right − e'left)
+  for (let j = 1; j < n; j++) {
+    const left = slopeIn(all[j - 1] as ProfilePiece[], profile.spans[j - 1] as number)
+    const right = slopeIn(all[j] as ProfilePiece[], 0)
+    const kink = P * (right - left)
+    if (Math.abs(kink) > 0) loads.push({ kind: 'point', span: j, at: 0, P: kink })
+  }
+  const Llast = profile.spans[n - 1] as number
+  const e0 = profile.supportEcc[0] as number
+  const eN = profile.supportEcc[n] as number
+  // anchorages: vertical component of P along the tendon, and the couple of the horizontal force at e
+  loads.push({ kind: 'point', span: 0, at: 0, P: P * slopeIn(all[0] as ProfilePiece[], 0) })
+  loads.push({ kind: 'couple', span: 0, at: 0, M: P * e0 })
+  loads.push({ kind: 'point', span: n - 1, at: Llast, P: -P * slopeIn(all[n - 1] as ProfilePiece[], Llast) })
+  loads.push({ kind: 'couple', span: n - 1, at: Llast, M: -P * eN })
+  return loads
+}
+
+/** Uniform balanced load per span implied by P and the drapes, w = 8Pa/L² (Lin). */
+export function balancedLoad(profile: TendonProfile, P: number): number[] {
+  const a = drapes(profile)
+  return profile.spans.map((L, i) => (8 * P * (a[i] as number)) / (L * L)) // Lin: w = 8Pa/L²
+}
