@@ -1,0 +1,157 @@
+// Shared set-up of the records tests: a fresh project and calc sheet straight in the test database
+// (so these tests depend only on the records side), sessions that can also send multipart bodies,
+// root access for the tests that try to rewrite history, and the SMTP peer's mailbox.
+import { readdirSync, readFileSync } from 'node:fs'
+import { join, resolve } from 'node:path'
+import mysql from 'mysql2/promise'
+import { inject } from 'vitest'
+import { DEMO_PS2 } from '../../shared/engine/demo'
+import { DEMO, unique } from '../helpers/client'
+import { withDb } from '../helpers/db'
+
+const root = resolve(import.meta.dirname, '..', '..')
+
+/** A signed-in session for fetch calls of any kind (JSON, multipart, binary downloads). */
+export class Session {
+  cookie = ''
+  constructor(readonly baseUrl: string = inject('baseUrl')) {}
+
+  async fetch(path: string, init: RequestInit = {}) {
+    const res = await fetch(`${this.baseUrl}${path}`, { ...init, headers: { ...(init.headers as Record<string, string> ?? {}), cookie: this.cookie }, redirect: 'manual' })
+    const set = res.headers.getSetCookie().map(l => l.split(';')[0]!).filter(p => !p.endsWith('='))
+    if (set.length) this.cookie = set.join('; ')
+    return res
+  }
+
+  async json<T = any>(method: string, path: string, body?: unknown): Promise<{ status: number, body: T }> {
+    const res = await this.fetch(path, { method, headers: body === undefined ? {} : { 'content-type': 'application/json' }, body: body === undefined ? undefined : JSON.stringify(body) })
+    const text = await res.text()
+    let parsed: unknown = text
+    try {
+      parsed = JSON.parse(text)
+    }
+    catch {}
+    return { status: res.status, body: parsed as T }
+  }
+
+  async upload<T = any>(path: string, bytes: Uint8Array, filename: string, type = 'application/octet-stream') {
+    const form = new FormData()
+    form.append('file', new Blob([bytes], { type }), filename)
+    const res = await this.fetch(path, { method: 'POST', body: form })
+    return { status: res.status, body: await res.json() as T }
+  }
+}
+
+export async function session(role: keyof typeof DEMO) {
+  const s = new Session()
+  const res = await s.json('POST', '/api/auth/signin', { email: DEMO[role].email, password: DEMO[role].password })
+  if (res.status !== 200) throw new Error(`sign-in as ${role} failed: ${res.status}`)
+  return s
+}
+
+/** A short template of the records tests' own, used only when no built-in pt-member template is seeded. */
+const FALLBACK_TEMPLATE = `---
+model: pt-member
+title: Records test sheet
+version: 1
+---
+# Prestress
+
+The governing force to balance the chosen load is :val[balancing.governing].
+
+# Stresses at transfer
+
+::: checks{group=transfer}
+:::
+
+# Stresses in service
+
+::: checks{group=service}
+:::
+`
+
+/** The first built-in pt-member template seeded in the database, else the fallback above. */
+async function templateId(conn: mysql.Connection) {
+  const [rows] = await conn.query('SELECT id FROM templates WHERE model = ? AND builtin = 1 ORDER BY id ASC LIMIT 1', ['pt-member'])
+  const found = (rows as Array<{ id: number }>)[0]
+  if (found) return found.id
+  // INSERT IGNORE: the integration and e2e runs may both get here first
+  await conn.query('INSERT IGNORE INTO templates (slug, version, title, model, body, builtin) VALUES (?, 1, ?, ?, ?, 0)', ['records-test-sheet', 'Records test sheet', 'pt-member', FALLBACK_TEMPLATE])
+  const [made] = await conn.query('SELECT id FROM templates WHERE slug = ? LIMIT 1', ['records-test-sheet'])
+  return (made as Array<{ id: number }>)[0]!.id
+}
+
+export async function userId(role: keyof typeof DEMO) {
+  return withDb(async (conn) => {
+    const [rows] = await conn.query('SELECT id FROM users WHERE email = ?', [DEMO[role].email])
+    return (rows as Array<{ id: number }>)[0]!.id
+  })
+}
+
+/** A new project with one calc sheet holding the PS-2 demo inputs. */
+export async function makeSheet(inputs: unknown = DEMO_PS2) {
+  const engineer = await userId('engineer')
+  return withDb(async (conn) => {
+    const job = unique('R')
+    const [p] = await conn.query('INSERT INTO projects (job_number, name, client, site, created_by) VALUES (?, ?, ?, ?, ?)', [job, 'Alder Yard podium (records test)', 'Alder Yard Developments (fictional)', 'Northgate', engineer])
+    const projectId = (p as { insertId: number }).insertId
+    const [s] = await conn.query('INSERT INTO sheets (project_id, reference, title, part_of_structure, template_id, inputs, created_by, updated_by) VALUES (?, ?, ?, ?, ?, ?, ?, ?)', [projectId, 'PS-2', 'Podium slab strip', 'Level 1 podium', await templateId(conn), JSON.stringify(inputs), engineer, engineer])
+    return { projectId, jobNumber: job, sheetId: (s as { insertId: number }).insertId }
+  })
+}
+
+export async function setSheetInputs(sheetId: number, inputs: unknown) {
+  await withDb(conn => conn.query('UPDATE sheets SET inputs = ? WHERE id = ?', [JSON.stringify(inputs), sheetId]))
+}
+
+/** Root over the test instance's socket: the one connection that may drop a trigger. */
+export async function withRoot<T>(fn: (conn: mysql.Connection) => Promise<T>): Promise<T> {
+  const base = process.env.TENDONBOOK_TEST_BASE
+  if (!base) throw new Error('TENDONBOOK_TEST_BASE is not set: run with npm test')
+  const conn = await mysql.createConnection({ socketPath: join(base, 'run', 'mysqld.sock'), user: 'root', database: process.env.NUXT_DATABASE_NAME })
+  try {
+    return await fn(conn)
+  }
+  finally {
+    await conn.end()
+  }
+}
+
+/** The CREATE TRIGGER statement of the records migration for one trigger name. */
+export function triggerSql(name: string) {
+  const dir = join(root, 'drizzle')
+  for (const file of readdirSync(dir).filter(f => f.endsWith('.sql'))) {
+    for (const chunk of readFileSync(join(dir, file), 'utf8').split('--> statement-breakpoint')) {
+      if (chunk.includes(`CREATE TRIGGER \`${name}\``)) return chunk.trim()
+    }
+  }
+  throw new Error(`no trigger ${name} in the migrations`)
+}
+
+export interface ReceivedMail { to: string[], raw: string, file: string }
+
+/** Waits until a message matching `match` reaches the SMTP peer. */
+export async function waitForMail(match: (m: ReceivedMail) => boolean, timeoutMs = 30_000): Promise<ReceivedMail> {
+  const dir = inject('mailboxDir')
+  const until = Date.now() + timeoutMs
+  for (;;) {
+    for (const file of readdirSync(dir).filter(f => f.endsWith('.json'))) {
+      const m = { ...(JSON.parse(readFileSync(join(dir, file), 'utf8')) as { to: string[], raw: string }), file }
+      if (match(m)) return m
+    }
+    if (Date.now() > until) throw new Error('the expected e-mail did not arrive')
+    await new Promise(r => setTimeout(r, 300))
+  }
+}
+
+/** Text of every page of a PDF, read with pdfjs-dist (a general-purpose PDF reader). */
+export async function pdfText(bytes: Uint8Array) {
+  const pdfjs = await import('pdfjs-dist/legacy/build/pdf.mjs')
+  const doc = await pdfjs.getDocument({ data: new Uint8Array(bytes) }).promise
+  const pages: string[] = []
+  for (let i = 1; i <= doc.numPages; i++) {
+    const content = await (await doc.getPage(i)).getTextContent()
+    pages.push(content.items.map(item => ('str' in item ? item.str : '')).join(' '))
+  }
+  return { pages, numPages: doc.numPages }
+}

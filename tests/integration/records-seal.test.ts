@@ -1,0 +1,130 @@
+import { beforeAll, describe, expect, it } from 'vitest'
+import { PDFDocument } from 'pdf-lib'
+import { sha256Hex } from '../../server/utils/hashing'
+import { DEMO_PS2 } from '../../shared/engine/demo'
+import { makeSheet, pdfText, session, setSheetInputs, type Session } from './records-fixtures'
+
+let engineer: Session
+let checker: Session
+let records: Session
+let sheet: Awaited<ReturnType<typeof makeSheet>>
+let approved: { id: number, contentHash: string, code: string, checks: Array<{ title: string, pass: boolean }> }
+let sealedBytes: Uint8Array
+
+beforeAll(async () => {
+  ;[engineer, checker, records] = await Promise.all([session('engineer'), session('checker'), session('records')])
+  sheet = await makeSheet()
+  const rev = (await engineer.json('POST', `/api/sheets/${sheet.sheetId}/revisions`, { note: 'for sealing' })).body
+  approved = (await checker.json('POST', `/api/revisions/${rev.id}/reviews`, { decision: 'approve' })).body
+})
+
+async function download(s: Session, revisionId: number) {
+  const res = await s.fetch(`/api/revisions/${revisionId}/pdf`)
+  return { status: res.status, type: res.headers.get('content-type'), bytes: new Uint8Array(await res.arrayBuffer()) }
+}
+
+describe('sealing an approved revision', () => {
+  it('refuses sealing to an engineer, and an unapproved revision to records', async () => {
+    expect((await engineer.json('POST', `/api/revisions/${approved.id}/seal`)).status).toBe(403)
+    const other = await makeSheet()
+    const pending = (await engineer.json('POST', `/api/sheets/${other.sheetId}/revisions`, {})).body
+    const res = await records.json('POST', `/api/revisions/${pending.id}/seal`)
+    expect(res.status).toBe(409)
+    expect(res.body.message).toContain('only an approved')
+  })
+
+  it('renders, stores and records the PDF; its text carries the hash, the references, the results and the caution', async () => {
+    const res = await records.json('POST', `/api/revisions/${approved.id}/seal`)
+    expect(res.status, JSON.stringify(res.body)).toBe(201)
+    expect(res.body.status.status).toBe('sealed')
+    const seal = res.body.seal
+    expect(seal.archiveRef).toBe(`${sheet.jobNumber}-PS-2-C01`)
+    const file = await download(records, approved.id)
+    expect(file.status).toBe(200)
+    expect(file.type).toBe('application/pdf')
+    sealedBytes = file.bytes
+    expect(sha256Hex(sealedBytes)).toBe(seal.pdfSha256)
+
+    const { pages, numPages } = await pdfText(sealedBytes)
+    expect(numPages).toBe(seal.pages)
+    const all = pages.join('\n')
+    const compact = all.replace(/\s+/g, '')
+    expect(compact).toContain(approved.contentHash)
+    expect(compact).toContain(seal.verificationRef)
+    expect(compact).toContain(seal.archiveRef)
+    expect(all).toContain('competent engineer')
+    // the title block is on every sheet, with its number
+    pages.forEach((text, i) => {
+      expect(text).toContain('Alder Yard podium (records test)')
+      expect(text.replace(/\s+/g, ' ')).toContain(`${i + 1} of ${numPages}`)
+    })
+    // a key result: the title of the first check of the frozen run appears in the check tables
+    expect(all.replace(/\s+/g, ' ')).toContain(approved.checks[0]!.title.replace(/\s+/g, ' '))
+    const doc = await PDFDocument.load(sealedBytes, { updateMetadata: false })
+    expect(doc.getPage(0).getSize().width).toBeCloseTo(595.28, 0) // A4 is 210 mm = 595.28 pt (ISO 216)
+  })
+
+  it('re-renders the sealed revision to the very same bytes, and refuses a second seal', async () => {
+    const check = await records.json('POST', `/api/revisions/${approved.id}/reseal-check`)
+    expect(check.status).toBe(200)
+    expect(check.body).toMatchObject({ identical: true, sealedSha256: sha256Hex(sealedBytes) })
+    expect((await records.json('POST', `/api/revisions/${approved.id}/seal`)).status).toBe(409)
+  })
+})
+
+describe('verification', () => {
+  it('recognises the sealed PDF byte for byte, and a single changed byte as not sealed', async () => {
+    const ok = await records.upload('/api/verify', sealedBytes, 'from-site.pdf', 'application/pdf')
+    expect(ok.status).toBe(200)
+    expect(ok.body).toMatchObject({ match: true, document: { revisionId: approved.id, superseded: false } })
+    const changed = new Uint8Array(sealedBytes)
+    changed[Math.floor(changed.length / 2)] ^= 0x01
+    const bad = await records.upload('/api/verify', changed, 'from-site.pdf', 'application/pdf')
+    expect(bad.body.match).toBe(false)
+    expect(bad.body.message).toContain('Not a sealed document')
+    expect(bad.body.sha256).toBe(sha256Hex(changed))
+  })
+
+  it('finds the document from a pasted PDF hash, content hash or verification reference', async () => {
+    const detail = (await records.json('GET', `/api/revisions/${approved.id}`)).body
+    for (const query of [detail.seal.pdfSha256, approved.contentHash, detail.seal.verificationRef.toLowerCase(), detail.seal.archiveRef]) {
+      const res = await records.json('POST', '/api/verify', { query })
+      expect(res.body.match, query).toBe(true)
+      expect(res.body.document.archiveRef).toBe(detail.seal.archiveRef)
+    }
+    expect((await records.json('POST', '/api/verify', { query: 'f'.repeat(64) })).body.match).toBe(false)
+    expect((await records.json('POST', '/api/verify', { query: '' })).status).toBe(400)
+    expect((await engineer.json('POST', '/api/verify', { query: 'f'.repeat(64) })).status).toBe(403)
+  })
+
+  it('says a sealed document was superseded once a later revision is approved', async () => {
+    await setSheetInputs(sheet.sheetId, { ...DEMO_PS2, loads: { ...DEMO_PS2.loads, superimposed: 2.5e-3 } })
+    const next = (await engineer.json('POST', `/api/sheets/${sheet.sheetId}/revisions`, { note: 'heavier finishes' })).body
+    const c02 = (await checker.json('POST', `/api/revisions/${next.id}/reviews`, { decision: 'approve' })).body
+    expect(c02.status.contractCode).toBe('C02')
+    const res = await records.upload('/api/verify', sealedBytes, 'old.pdf', 'application/pdf')
+    expect(res.body).toMatchObject({ match: true, document: { superseded: true, supersededBy: { revisionId: next.id, code: 'C02' } } })
+    expect(res.body.message).toContain('superseded by C02')
+  })
+})
+
+describe('archive register', () => {
+  it('lists sealed documents with filters and exports CSV', async () => {
+    const all = await records.json('GET', `/api/archive?project=${sheet.projectId}`)
+    expect(all.status).toBe(200)
+    expect(all.body.register.map((r: { archiveRef: string }) => r.archiveRef)).toEqual([`${sheet.jobNumber}-PS-2-C01`])
+    expect(all.body.awaiting.some((a: { contractCode: string }) => a.contractCode === 'C02')).toBe(true)
+    expect((await records.json('GET', `/api/archive?project=${sheet.projectId}&status=current`)).body.register).toEqual([])
+    expect((await records.json('GET', `/api/archive?project=${sheet.projectId}&status=superseded`)).body.register).toHaveLength(1)
+    expect((await records.json('GET', '/api/archive?from=2001-01-01&to=2001-12-31')).body.register).toEqual([])
+    expect((await records.json('GET', '/api/archive?from=yesterday')).status).toBe(400)
+    const csv = await records.fetch(`/api/archive/export.csv?project=${sheet.projectId}`)
+    expect(csv.headers.get('content-type')).toContain('text/csv')
+    const text = await csv.text()
+    const Papa = (await import('papaparse')).default
+    const parsed = Papa.parse<Record<string, string>>(text.trim(), { header: true })
+    expect(parsed.data).toHaveLength(1)
+    expect(parsed.data[0]).toMatchObject({ 'Archive ref.': `${sheet.jobNumber}-PS-2-C01`, 'Revision': 'C01', 'Status': 'Superseded', 'PDF SHA-256': sha256Hex(sealedBytes) })
+    expect((await checker.json('GET', '/api/archive')).status).toBe(403)
+  })
+})
