@@ -60,10 +60,13 @@ export function magnelLine(s: MagnelSection, c: MagnelCondition): MagnelLine {
   const ke = c.fibre === 'top' ? -1 / s.Zt : 1 / s.Zb // fibre stress per unit P·e (bending theory)
   const kM = c.fibre === 'top' ? 1 / s.Zt : -1 / s.Zb // fibre stress per unit M
   const r = c.forceFactor
-  const line = c.bound === 'compression'
-    ? { ae: r * ke, au: kM * c.M - c.limit, b: -r / s.A } // σ ≤ fc, multiplied by 1/P
-    : { ae: -r * ke, au: -(kM * c.M + c.limit), b: r / s.A } // σ ≥ −ft, multiplied by 1/P
-  return { ...c, ...line }
+  const compression = c.bound === 'compression'
+  return {
+    id: c.id, label: c.label, stage: c.stage, fibre: c.fibre, bound: c.bound, forceFactor: r, M: c.M, limit: c.limit,
+    ae: compression ? r * ke : -r * ke, // σ ≤ fc or σ ≥ −ft, multiplied by 1/P
+    au: compression ? kM * c.M - c.limit : -(kM * c.M + c.limit),
+    b: compression ? -r / s.A : r / s.A,
+  }
 }
 
 type Pt = { e: number; invP: number }

@@ -49,11 +49,6 @@ export function tensionRules(exposure: ExposureClass, bonded: boolean): TensionR
   return rules
 }
 
-/** Characteristic compression limit applies where exposure is XD, XF or XS (7.2(2)); many engineers apply it always. */
-export function characteristicCompressionRequired(exposure: ExposureClass): boolean {
-  return exposure.startsWith('XD') || exposure.startsWith('XS')
-}
-
 /** Utilisation of a compression check: σ / limit (0 when in tension). */
 export function compressionUtilisation(sigma: number, limit: number): number {
   return limit > 0 ? Math.max(0, sigma) / limit : sigma > 0 ? Infinity : 0

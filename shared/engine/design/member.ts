@@ -30,6 +30,11 @@ import type { ExposureClass, ServiceCombination, TensionRule } from '../checks/s
 import { magnelRegion, requiredModuli } from '../checks/magnel'
 import type { MagnelCondition, MagnelResult } from '../checks/magnel'
 import { mergeInputPatch } from './patch'
+import { withPartTwo } from '../uls/part2'
+import type { DesignPartOne } from '../uls/design-part-one'
+import type { MemberUls } from '../uls/member-uls'
+import type { MemberCracking, MemberDeflection } from '../sls/member-sls'
+import type { MemberSite } from '../site/member-site'
 import type { InputPatch } from './patch'
 
 export type Stage = 'transfer' | ServiceCombination
@@ -199,6 +204,14 @@ export interface Design {
     limitServiceTension: number[]
   }
   warnings: string[]
+  /** part 2: design moments and shears, resistances, detailing limits, punching (design.md §1 step 9) */
+  uls: MemberUls
+  /** part 2: short- and long-term deflection under the unbalanced quasi-permanent load (7.4) */
+  deflection: MemberDeflection
+  /** part 2: crack control by exposure, crack widths and decompression (7.3) */
+  cracking: MemberCracking
+  /** part 2: tendon height schedule and stressing schedule */
+  site: MemberSite
 }
 
 export interface DesignOptions {
@@ -704,7 +717,7 @@ interface Assembled {
   momentsBySection: Array<Record<Stage, MomentRange>>
 }
 
-function assemble(input: MemberInput): Assembled {
+function assemble(input: MemberInput, withMagnel = true): Assembled {
   const c = runCore(input)
   const sites = criticalSites(c)
   const stressBySection: Array<Record<Stage, StageStress>> = []
@@ -747,7 +760,9 @@ function assemble(input: MemberInput): Assembled {
         totalService: -Pi * eK + at(c.service.M2, k),
       },
       stress, envelope, utilisation: u,
-      magnel: magnelRegion({ A: c.sec.A, Zt: c.sec.Zt, Zb: c.sec.Zb }, magnelConditions(c, k, M), -c.eTop, c.eBot),
+      magnel: withMagnel
+        ? magnelRegion({ A: c.sec.A, Zt: c.sec.Zt, Zb: c.sec.Zb }, magnelConditions(c, k, M), -c.eTop, c.eBot)
+        : { feasible: false, minP: null, eAtMinP: null, lines: [], region: [], eLimits: { min: -c.eTop, max: c.eBot }, unbounded: false },
     }
   })
 
@@ -807,69 +822,97 @@ function profileBasis(c: Core, ks: number[]): Basis {
   return { phi, psi }
 }
 
-interface HalfSpace { g: number[]; h: number; norm2: number }
+/**
+ * The stress conditions of every section, stage, force factor and fibre as rows g·p ≤ c0/s − c1,
+ * where p are the profile eccentricities and s the strands relative to the run linearised about
+ * (the force and its secondary moment scale with s; the external moments do not).
+ */
+interface LinearModel { m: number; k: number; G: Float64Array; c0: Float64Array; c1: Float64Array; N2: Float64Array; boxMax: Float64Array }
 
-function buildHalfSpaces(c: Core, a: Assembled, basis: Basis, scale: number, margin: number): HalfSpace[] {
-  const out: HalfSpace[] = []
+function linearModel(c: Core, a: Assembled, basis: Basis, margin: number): LinearModel {
+  const rows: Array<{ g: number[]; c0: number; c1: number }> = []
   const rs = c.rsup === c.rinf ? [c.rsup] : [c.rsup, c.rinf]
-  a.sections.forEach((sec, r) => {
-    const site = c.stations.findIndex((s) => s.span === sec.span && Math.abs(s.x - sec.x) < 1e-6)
+  const sites = siteIndex(a)
+  a.sections.forEach((_, r) => {
+    const site = sites[r] as number
     const phi = basis.phi[r] as number[]
     const psi = basis.psi[r] as number[]
     const M = a.momentsBySection[r] as Record<Stage, MomentRange>
     for (const stage of STAGES) {
       const f = stage === 'transfer' ? c.transfer : c.service
-      const P = at(f.P, site) * scale
-      const Pm = f.Pmean * scale
+      const P = at(f.P, site)
+      const Pm = f.Pmean
       const L = c.limits[stage]
       for (const rr of rs) {
         for (const fibre of ['top', 'bottom'] as const) {
           const ke = fibre === 'top' ? -1 / c.sec.Zt : 1 / c.sec.Zb
           const kM = fibre === 'top' ? 1 / c.sec.Zt : -1 / c.sec.Zb
-          const g = phi.map((v, j) => rr * P * ke * v + kM * rr * Pm * at(psi, j)) // dσ/dp
-          const norm2 = g.reduce((s, v) => s + v * v, 0)
-          if (norm2 === 0) continue
+          const g = phi.map((v, j) => rr * P * ke * v + kM * rr * Pm * at(psi, j)) // dσ/dp per unit s
+          if (g.every((v) => v === 0)) continue
           const mC = fibre === 'top' ? M[stage].max : M[stage].min
           const mT = fibre === 'top' ? M[stage].min : M[stage].max
-          if (L.compression !== null) out.push({ g, h: L.compression - margin - rr * P / c.sec.A - kM * mC, norm2 }) // σ ≤ fc
-          if (L.tension !== null) out.push({ g: g.map((v) => -v), h: L.tension - margin + rr * P / c.sec.A + kM * mT, norm2 }) // σ ≥ −ft
+          // σ = s·(rP/A + g·p) + kM·M within [−ft, fc], divided by s
+          if (L.compression !== null) rows.push({ g, c0: L.compression - margin - kM * mC, c1: (rr * P) / c.sec.A })
+          if (L.tension !== null) rows.push({ g: g.map((v) => -v), c0: L.tension - margin + kM * mT, c1: (-rr * P) / c.sec.A })
         }
       }
     }
   })
-  return out
+  const m = 2 * c.n + 1
+  const k = rows.length
+  const G = new Float64Array(k * m)
+  const c0 = new Float64Array(k)
+  const c1 = new Float64Array(k)
+  const N2 = new Float64Array(k)
+  const boxMax = new Float64Array(k)
+  rows.forEach((row, r) => {
+    let n2 = 0
+    let bm = 0
+    row.g.forEach((g, j) => {
+      G[r * m + j] = g
+      n2 += g * g
+      bm += Math.max(-g * c.eTop, g * c.eBot) // greatest g·p over the eccentricity box
+    })
+    c0[r] = row.c0
+    c1[r] = row.c1
+    N2[r] = n2
+    boxMax[r] = bm
+  })
+  return { m, k, G, c0, c1, N2, boxMax }
 }
 
-function project(all: HalfSpace[], start: number[], lo: number, hi: number, sweeps: number): { p: number[]; violation: number } {
-  // a half-space that no point of the box can violate never needs a projection
-  const hs = all.filter((h) => h.g.reduce((s, g) => s + Math.max(g * lo, g * hi), 0) > h.h)
-  const p = [...start]
-  const clamp = (): void => {
-    for (let j = 0; j < p.length; j++) p[j] = Math.min(hi, Math.max(lo, at(p, j)))
+/** Cyclic projection onto the violated rows at strand ratio s, within lo ≤ p ≤ hi. */
+function project(model: LinearModel, s: number, start: number[], lo: number, hi: number, sweeps: number): { p: number[]; violation: number } {
+  const { m, k, G, c0, c1, N2, boxMax } = model
+  const H = new Float64Array(k)
+  const live: number[] = []
+  for (let r = 0; r < k; r++) {
+    H[r] = c0[r]! / s - c1[r]!
+    if (boxMax[r]! > H[r]!) live.push(r) // a row no point of the box can violate needs no projection
   }
-  clamp()
-  let violation = Infinity
+  const p = Float64Array.from(start, (v) => Math.min(hi, Math.max(lo, v)))
   for (let it = 0; it < sweeps; it++) {
-    violation = 0
-    for (const h of hs) {
-      let v = -h.h
-      for (let j = 0; j < p.length; j++) v += at(h.g, j) * at(p, j)
+    let violated = false
+    for (const r of live) {
+      const o = r * m
+      let v = -H[r]!
+      for (let j = 0; j < m; j++) v += G[o + j]! * p[j]!
       if (v > 0) {
-        violation = Math.max(violation, v)
-        const f = (1.02 * v) / h.norm2 // a slight over-relaxation speeds the cycle
-        for (let j = 0; j < p.length; j++) p[j] = at(p, j) - f * at(h.g, j)
+        violated = true
+        const f = (1.02 * v) / N2[r]! // a slight over-relaxation speeds the cycle
+        for (let j = 0; j < m; j++) p[j] = p[j]! - f * G[o + j]!
       }
     }
-    clamp()
-    if (violation === 0) break
+    for (let j = 0; j < m; j++) p[j] = Math.min(hi, Math.max(lo, p[j]!))
+    if (!violated) break
   }
   let final = 0
-  for (const h of all) {
-    let v = -h.h
-    for (let j = 0; j < p.length; j++) v += at(h.g, j) * at(p, j)
-    final = Math.max(final, v)
+  for (let r = 0; r < k; r++) {
+    let v = -H[r]!
+    for (let j = 0; j < m; j++) v += G[r * m + j]! * p[j]!
+    final = Math.max(final, v * s) // back in MPa
   }
-  return { p, violation: final }
+  return { p: Array.from(p), violation: final }
 }
 
 function noProposal(reason: string): Proposal {
@@ -924,11 +967,11 @@ function propose(first: Assembled): Proposal {
   const c0 = first.core
   const cands = candidates(c0)
   const n = c0.n
-  const basisCache = new Map<Assembled, Basis>()
-  const basisOf = (a: Assembled): Basis => {
-    const b = basisCache.get(a) ?? profileBasis(a.core, siteIndex(a))
-    basisCache.set(a, b)
-    return b
+  const modelCache = new Map<Assembled, LinearModel>()
+  const modelOf = (a: Assembled): LinearModel => {
+    const mdl = modelCache.get(a) ?? linearModel(a.core, a, profileBasis(a.core, siteIndex(a)), 0.03)
+    modelCache.set(a, mdl)
+    return mdl
   }
   const accepted = (cand: Candidate, supportEcc: number[], spanEcc: number[], run: Assembled): Proposal => ({
     feasible: true, reason: null, strands: cand.strands, forceTransfer: run.core.transfer.Pmean,
@@ -943,8 +986,7 @@ function propose(first: Assembled): Proposal {
     let a = first
     let start = [...c0.profile.supportEcc, ...c0.profile.spanEcc]
     for (let t = 0; t < 3; t++) {
-      const hs = buildHalfSpaces(a.core, a, basisOf(a), cand.strands / a.core.strands, 0.03)
-      const res = project(hs, start, -a.core.eTop, a.core.eBot, 150)
+      const res = project(modelOf(a), cand.strands / a.core.strands, start, -a.core.eTop, a.core.eBot, 150)
       if (res.violation > 1e-6) return null
       const supportEcc = res.p.slice(0, n + 1).map(round1)
       const spanEcc = res.p.slice(n + 1).map(round1)
@@ -954,7 +996,7 @@ function propose(first: Assembled): Proposal {
       }
       let rerun: Assembled
       try {
-        rerun = assemble(parseMemberInput(mergeInputPatch(c0.input, patch)))
+        rerun = assemble(parseMemberInput(mergeInputPatch(c0.input, patch)), false)
       } catch {
         return null
       }
@@ -965,44 +1007,38 @@ function propose(first: Assembled): Proposal {
     }
     return null
   }
-  const current = cands.findIndex((k) => Math.abs(k.strands - c0.strands) < 1e-9)
-  let best: Proposal | null = null
-  let hi = -1
-  if (current >= 0 && stressesPass(first)) {
-    hi = current
-    best = accepted(cands[current] as Candidate, c0.profile.supportEcc, c0.profile.spanEcc, first)
-  }
+  const startP = [...c0.profile.supportEcc, ...c0.profile.spanEcc]
+  const firstModel = modelOf(first)
+  // feasibility of the linearised conditions alone: cheap, used to bracket the least force
+  const linearOK = (i: number): boolean =>
+    project(firstModel, (cands[i] as Candidate).strands / c0.strands, startP, -c0.eTop, c0.eBot, 150).violation <= 1e-6
   // the per-section Magnel regions give the least force each section needs on its own: a start
   const need = Math.max(0, ...first.sections.map((s) => (s.magnel.minP ?? 0) / s.force.transfer))
   let lo = Math.max(0, cands.findIndex((k) => k.strands >= 0.9 * need * c0.strands))
-  if (hi < 0) {
-    // search upward with a growing step for a first arrangement that works
-    let step = 1
-    for (let i = lo; i < cands.length; i += step, step *= 2) {
-      const p = attempt(cands[i] as Candidate)
-      if (p) {
-        best = p
-        hi = i
-        break
-      }
-      lo = i + 1
-    }
-    if (hi < 0) {
-      for (let i = lo; i < cands.length && hi < 0; i++) {
-        const p = attempt(cands[i] as Candidate)
-        if (p) { best = p; hi = i }
-      }
-    }
+  let hi = -1
+  for (let i = lo, step = 1; i < cands.length; i += step, step *= 2) {
+    if (linearOK(i)) { hi = i; break }
+    lo = i + 1
   }
-  if (best === null || hi < 0) {
+  if (hi < 0) for (let i = lo; i < cands.length && hi < 0; i++) if (linearOK(i)) hi = i
+  let best: Proposal | null = null
+  if (hi >= 0) {
+    // the feasible forces form an interval (the conditions are convex in e and 1/P): bisect below hi
+    let fail = Math.min(lo, hi) - 1
+    while (hi - fail > 1) {
+      const mid = Math.floor((hi + fail) / 2)
+      if (linearOK(mid)) hi = mid
+      else fail = mid
+    }
+    // verify by full runs, stepping up where friction and losses moved with the new profile
+    for (let i = hi; i < Math.min(cands.length, hi + 6) && best === null; i++) best = attempt(cands[i] as Candidate)
+  }
+  const current = cands.findIndex((k) => Math.abs(k.strands - c0.strands) < 1e-9)
+  if (current >= 0 && stressesPass(first) && (best === null || (best.strands as number) > c0.strands)) {
+    best = accepted(cands[current] as Candidate, c0.profile.supportEcc, c0.profile.spanEcc, first)
+  }
+  if (best === null) {
     return noProposal(sectionTooSmallReason(first) ?? 'No single force and profile satisfies every section at once within the eccentricity limits: revise the section, the spans or the concrete class.')
-  }
-  // the feasible forces form an interval (the conditions are convex in e and 1/P): bisect below hi
-  let fail = Math.min(lo, hi) - 1
-  while (hi - fail > 1) {
-    const mid = Math.floor((hi + fail) / 2)
-    const p = attempt(cands[mid] as Candidate)
-    if (p) { best = p; hi = mid } else fail = mid
   }
   return best
 }
@@ -1071,7 +1107,7 @@ export function designMember(raw: unknown, options: DesignOptions = {}): Design 
     warnings.push('The proposal passes every stress check with fewer strands than provided.')
   }
 
-  return {
+  const partOne: DesignPartOne = {
     engineVersion: ENGINE_VERSION,
     input,
     section: { ...c.sec, tributaryWidth: c.trib, spanDepth },
@@ -1167,4 +1203,5 @@ export function designMember(raw: unknown, options: DesignOptions = {}): Design 
     },
     warnings,
   }
+  return withPartTwo(partOne)
 }
