@@ -5,7 +5,7 @@
  */
 import type { QuantitySpec } from '../engine/contract'
 import type { ModelInputField, ReportModel, ShapeKind } from './model'
-import { patternOf } from './syntax'
+import { isPosition, patternOf } from './syntax'
 
 export interface KeyInfo {
   source: 'input' | 'result'
@@ -61,7 +61,7 @@ export function describeKey(model: ReportModel, pattern: string): KeyInfo | unde
   const input = index.inputs.get(pattern)
   if (input) return input
   if (index.inputPrefixes.has(pattern)) return { source: 'input', pattern, kind: 'object' }
-  const spec = model.resultSpecs[pattern]
+  const spec = model.resultSpecs[pattern] ?? model.resultSpec?.(pattern)
   const shape = model.resultShape.get(pattern)
   if (spec) return { source: 'result', pattern, kind: shape ?? 'leaf', spec }
   if (shape) return { source: 'result', pattern, kind: shape }
@@ -111,14 +111,19 @@ export interface PatternScope {
 
 export type ResolvedPattern = { kind: 'pattern'; pattern: string } | { kind: 'index' } | { kind: 'unchecked' } | { kind: 'bad'; problem: string }
 
+function findLocal<T extends { name: string }>(scopes: readonly T[], name: string): T | undefined {
+  for (let i = scopes.length - 1; i >= 0; i -= 1) if (scopes[i]!.name === name) return scopes[i]
+  return undefined
+}
+
 export function resolvePattern(segments: readonly string[], scopes: readonly PatternScope[]): ResolvedPattern {
-  const head = segments[0]!
-  const local = [...scopes].reverse().find((s) => s.name === head)
-  const last = segments[segments.length - 1]
-  if (last === '#') {
-    if (!local || segments.length !== 2) return { kind: 'bad', problem: `"${segments.join('.')}": ".#" counts the elements of an each block and follows its local name alone (e.g. s.#)` }
-    return { kind: 'index' }
+  for (const s of segments) {
+    if (isPosition(s) && !findLocal(scopes, s.slice(1))) {
+      return { kind: 'bad', problem: `"${segments.join('.')}": ${s} is the position of a local name, but no enclosing each is called ${s.slice(1)}` }
+    }
   }
+  if (segments.length === 1 && isPosition(segments[0]!)) return { kind: 'index' }
+  const local = findLocal(scopes, segments[0]!)
   if (!local) return { kind: 'pattern', pattern: patternOf(segments) }
   if (local.pattern === null) return { kind: 'unchecked' }
   const rest = patternOf(['x', ...segments.slice(1)]).slice(1)
@@ -135,10 +140,9 @@ export interface PathScope {
 export type ResolvedPath = { kind: 'path'; path: string; pattern: string } | { kind: 'index'; index: number }
 
 export function resolvePath(segments: readonly string[], scopes: readonly PathScope[]): ResolvedPath {
-  const head = segments[0]!
-  const local = [...scopes].reverse().find((s) => s.name === head)
-  if (!local) return { kind: 'path', path: segments.join('.'), pattern: patternOf(segments) }
-  if (segments[segments.length - 1] === '#') return { kind: 'index', index: local.index }
-  const path = [local.path, ...segments.slice(1)].join('.')
+  if (segments.length === 1 && isPosition(segments[0]!)) return { kind: 'index', index: findLocal(scopes, segments[0]!.slice(1))?.index ?? -1 }
+  const concrete = segments.map((s) => (isPosition(s) ? String(findLocal(scopes, s.slice(1))?.index ?? -1) : s))
+  const local = findLocal(scopes, concrete[0]!)
+  const path = local ? [local.path, ...concrete.slice(1)].join('.') : concrete.join('.')
   return { kind: 'path', path, pattern: patternOf(path.split('.')) }
 }

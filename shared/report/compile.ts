@@ -101,7 +101,16 @@ function checkBlock(model: ReportModel, meta: BlockMeta, scopes: PatternScope[],
       return { name: local, pattern: null }
     }
     const pattern = checkKey(model, attrs.in!, parsed.segments, 'each', line, scopes, errors, used)
-    return { name: local, pattern }
+    const scope = { name: local, pattern }
+    if ((attrs.where === undefined) !== (attrs.is === undefined)) {
+      errors.push(new TemplateSyntaxError(line, '::: each takes where=… and is=… together: where names a value of the element, is lists the values to keep, separated by commas'))
+    } else if (attrs.where !== undefined) {
+      const where = parseKey(attrs.where)
+      if ('problem' in where) errors.push(new TemplateSyntaxError(line, `where=… needs a key, but ${where.problem}`))
+      else if (where.segments[0] !== local) errors.push(new TemplateSyntaxError(line, `where=… names a value of the element, so it starts with the local name: where=${local}.…`))
+      else checkKey(model, attrs.where, where.segments, 'val', line, [...scopes, scope], errors, used)
+    }
+    return scope
   }
   return null
 }

@@ -30,6 +30,8 @@ export interface ReportModel {
   inputGroups: readonly string[]
   /** result catalogue: pattern ('sections[].stress.transfer.top') → spec */
   resultSpecs: Readonly<Record<string, QuantitySpec>>
+  /** specs the table does not list by pattern (e.g. the input echoed in the results) */
+  resultSpec?(pattern: string): QuantitySpec | undefined
   /** every result pattern with what it holds, numbers or not ('sections[].label', 'sections') */
   resultShape: ReadonlyMap<string, ShapeKind>
   /** the check groups a `checks` block may name */

@@ -279,13 +279,36 @@ function renderEach(meta: BlockMeta, inner: readonly Token[], env: ReportEnv): s
     if (list === undefined) env.unresolved.push({ key: meta.attrs.in!, path: r.path, line: meta.line ?? 0 })
     return ''
   }
-  let out = ''
+  const local = meta.attrs.as!
+  const where = meta.attrs.where === undefined ? null : parseKey(meta.attrs.where)
+  const keep = new Set((meta.attrs.is ?? '').split(',').map((v) => v.trim()).filter(Boolean))
+  const selected: PathScope[] = []
   for (let i = 0; i < list.length; i += 1) {
-    env.scopes.push({ name: meta.attrs.as!, path: `${r.path}.${i}`, index: i })
-    out += renderTokens(inner, env)
-    env.scopes.pop()
+    const scope = { name: local, path: `${r.path}.${i}`, index: i }
+    if (where && 'segments' in where) {
+      const w = resolvePath(where.segments, [...env.scopes, scope])
+      const wInfo = w.kind === 'path' ? describeKey(env.model, w.pattern) : undefined
+      const value = w.kind === 'path' && wInfo ? lookup(env, wInfo, w.path) : undefined
+      if (!keep.has(String(value))) continue
+    }
+    selected.push(scope)
   }
-  return out
+  const each = (tokens: readonly Token[]): string => {
+    let out = ''
+    for (const scope of selected) {
+      env.scopes.push(scope)
+      out += renderTokens(tokens, env)
+      env.scopes.pop()
+    }
+    return out
+  }
+  // A block that holds one table repeats the table's body rows, not the whole table.
+  const bodyOpen = inner.findIndex((t) => t.type === 'tbody_open')
+  const bodyClose = inner.findIndex((t) => t.type === 'tbody_close')
+  if (inner[0]?.type === 'table_open' && inner[inner.length - 1]?.type === 'table_close' && bodyOpen > 0 && bodyClose > bodyOpen) {
+    return renderTokens(inner.slice(0, bodyOpen + 1), env) + each(inner.slice(bodyOpen + 1, bodyClose)) + renderTokens(inner.slice(bodyClose), env)
+  }
+  return each(inner)
 }
 
 function checkCell(value: number, unit: CheckResult['unit']): string {

@@ -2,7 +2,9 @@
  * The small grammar of the template language's own forms: keys, attribute lists and the names of
  * the directives. Everything a template can say is one of these forms; anything else is Markdown.
  *
- *   key        = name ( "." ( name | index ) )* ( "." "#" )?     e.g. loads.sdl, spans.2, s.label, s.#
+ *   key        = position | name ( "." ( name | index | position ) )*   e.g. loads.sdl, spans.2, s.label, drapes.#s
+ *   position   = "#" name        the position of the element a local name stands for: alone it prints
+ *                                the element's number (from 1), inside a key it picks that position
  *   attributes = "{" ( attr ( " "+ attr )* )? "}"                 e.g. {group=transfer}, {in=sections as=s}
  *   attr       = name "=" ( bare | '"' text '"' )
  */
@@ -17,22 +19,28 @@ export type BlockDirective = (typeof BLOCK_DIRECTIVES)[number]
 export const BLOCK_ATTRIBUTES: Record<BlockDirective, { required: readonly string[]; optional: readonly string[] }> = {
   checks: { required: [], optional: ['group'] },
   figure: { required: ['plot'], optional: ['at'] },
-  each: { required: ['in', 'as'], optional: [] },
+  each: { required: ['in', 'as'], optional: ['where', 'is'] },
 }
 
 const NAME = /^[A-Za-z_][A-Za-z0-9_]*$/
-const SEGMENT = /^(?:[A-Za-z_][A-Za-z0-9_]*|\d+)$/
+const SEGMENT = /^(?:[A-Za-z_][A-Za-z0-9_]*|\d+|#[A-Za-z_][A-Za-z0-9_]*)$/
+const POSITION = /^#[A-Za-z_][A-Za-z0-9_]*$/
+
+/** `#s`: the position of the element the local name s stands for. */
+export function isPosition(segment: string): boolean {
+  return POSITION.test(segment)
+}
 
 /** The segments of a key, or a reason why the text is not a key. */
 export function parseKey(text: string): { segments: string[] } | { problem: string } {
   if (text.length === 0) return { problem: 'an empty key' }
   if (text.length > 200) return { problem: 'a key longer than 200 characters' }
   const segments = text.split('.')
+  if (segments.length === 1 && POSITION.test(text)) return { segments }
   for (let i = 0; i < segments.length; i += 1) {
     const s = segments[i]!
     if (i === 0 && !NAME.test(s)) return { problem: `"${text}" is not a key: it must start with a name (letters, digits, _)` }
-    if (s === '#' && i === segments.length - 1 && i > 0) continue
-    if (!SEGMENT.test(s)) return { problem: `"${text}" is not a key: "${s}" is neither a name nor an index` }
+    if (!SEGMENT.test(s)) return { problem: `"${text}" is not a key: "${s}" is neither a name, an index nor a position (#name)` }
   }
   return { segments }
 }
@@ -43,13 +51,13 @@ export function isName(text: string): boolean {
 
 /** `spans.2.x` → `spans[].x`: the pattern under which the catalogue lists a concrete path. */
 export function patternOf(segments: readonly string[]): string {
-  return segments.map((s) => (/^\d+$/.test(s) ? '[]' : s)).join('.').replace(/\.\[\]/g, '[]')
+  return segments.map((s) => (/^\d+$/.test(s) || POSITION.test(s) ? '[]' : s)).join('.').replace(/\.\[\]/g, '[]')
 }
 
 /** Attribute list text (between the braces) → map, or the first problem. Values are plain text. */
 export function parseAttributes(text: string): { attrs: Record<string, string> } | { problem: string } {
   const attrs: Record<string, string> = {}
-  const re = /\s*([A-Za-z][A-Za-z0-9_-]*)=(?:"([^"{}\n]*)"|([A-Za-z0-9_.#-]+))\s*/y
+  const re = /\s*([A-Za-z][A-Za-z0-9_-]*)=(?:"([^"{}\n]*)"|([A-Za-z0-9_.#,-]+))\s*/y
   let pos = 0
   while (pos < text.length) {
     if (/^\s+$/.test(text.slice(pos))) break

@@ -16,7 +16,7 @@ function loadErrors(body: string): TemplateLoadError {
 
 describe('binding keys to the model', () => {
   it('loads a template whose keys all exist, and lists the keys it uses', () => {
-    const compiled = compileBody(':in[geometry.h] :val[selfWeight] $\\val{loads.qk}$\n\n::: each{in=spans as=s}\n:val[s.M] :val[s.#]\n:::\n')
+    const compiled = compileBody(':in[geometry.h] :val[selfWeight] $\\val{loads.qk}$\n\n::: each{in=spans as=s}\n:val[s.M] :val[#s]\n:::\n')
     expect(compiled.keys).toEqual(['geometry.h', 'loads.qk', 'selfWeight', 'spans', 'spans[].M'])
     expect(compiled.meta.model).toBe('test-beam')
   })
@@ -101,13 +101,25 @@ describe('binding keys to the model', () => {
     expect(errors[8]!.message).toMatch(/no attribute "colour"/)
   })
 
-  it('scopes local names to their each block, and .# to local names', () => {
-    const errors = loadErrors('::: each{in=spans as=s}\n:val[s.M]\n:::\n\n:val[s.M]\n\n:val[spans.#]\n\n:in[s.#]\n').errors
+  it('scopes local names to their each block, and #name to local names', () => {
+    const ok = ':::  each{in=spans as=s}\n:val[#s] :val[s.M] :val[geometry.spans.#s]\n:::\n'
+    expect(compileBody(ok).keys).toEqual(['geometry.spans[]', 'spans', 'spans[].M'])
+    const errors = loadErrors('::: each{in=spans as=s}\n:val[s.M]\n:::\n\n:val[s.M]\n\n:val[spans.#t]\n\n:val[#s]\n\n::: each{in=spans as=s}\n:in[#s]\n:::\n').errors
     expect(errors.map((e) => [e.line, (e as TemplateKeyError).key])).toEqual([
       [BODY_LINE + 4, 's.M'],
-      [BODY_LINE + 6, 'spans.#'],
-      [BODY_LINE + 8, 's.#'],
+      [BODY_LINE + 6, 'spans.#t'],
+      [BODY_LINE + 8, '#s'],
+      [BODY_LINE + 11, '#s'],
     ])
+  })
+
+  it('filters an each with where=… is=…, and checks both', () => {
+    expect(() => compileBody('::: each{in=spans as=s where=s.label is="Span 2"}\n:val[s.M]\n:::\n')).not.toThrow()
+    const errors = loadErrors('::: each{in=spans as=s where=s.lable is=x}\n:::\n\n::: each{in=spans as=s where=s.label}\n:::\n\n::: each{in=spans as=s where=selfWeight is=x}\n:::\n').errors
+    expect(errors.map((e) => e.line)).toEqual([BODY_LINE, BODY_LINE + 3, BODY_LINE + 6])
+    expect(errors[0]!.message).toMatch(/unknown key "s.lable"/)
+    expect(errors[1]!.message).toMatch(/where=… and is=… together/)
+    expect(errors[2]!.message).toMatch(/starts with the local name/)
   })
 
   it('refuses a template written for another model, or listing groups the model lacks', () => {

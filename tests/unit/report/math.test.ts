@@ -31,7 +31,7 @@ describe('values in formulas', () => {
   })
 
   it('uses the element of an each block and its number', () => {
-    const body = '::: each{in=spans as=s}\n$M_{\\val{s.#}} = \\val{s.M}$\n:::\n'
+    const body = '::: each{in=spans as=s}\n$M_{\\val{#s}} = \\val{s.M}$\n:::\n'
     const tex = annotations(renderBody(body).html)
     // span 2: 13.5 × 9.6² / 8 = 155.52 kNm
     expect(tex).toEqual(['M_{\\text{1}} = \\text{102.7}\\,\\mathrm{kNm}', 'M_{\\text{2}} = \\text{155.5}\\,\\mathrm{kNm}'])

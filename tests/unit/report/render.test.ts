@@ -11,11 +11,11 @@ const SHEET = [
   'Again :in[geometry.h].',
   '',
   '::: each{in=spans as=s}',
-  '## Span :val[s.#]',
+  '## Span :val[#s]',
   'Moment :val[s.M] over :val[s.L].',
   '',
   '::: figure{plot=span at=s}',
-  'Span :val[s.#] to scale.',
+  'Span :val[#s] to scale.',
   ':::',
   ':::',
   '',
@@ -72,6 +72,18 @@ describe('rendering a sheet', () => {
     // 13.5 kN/m on 9.6 m: wL²/8 = 155.5 kNm (simple-span formula)
     expect(report.html).toContain('Moment <span class="tb-val">155.5\u202fkNm</span> over <span class="tb-val">9.60\u202fm</span>.')
     expect([...report.html.matchAll(/<figure class="tb-figure" data-plot="span"><svg[^>]*><text x="1" y="5">([\d.]+)<\/text><\/svg><figcaption><p>Span <span class="tb-val">(\d)<\/span>/g)].map((m) => [m[1], m[2]])).toEqual([['7.8', '1'], ['9.6', '2']])
+  })
+
+  it('repeats the body rows of a table held by an each, once per kept element', () => {
+    const body = '::: each{in=spans as=s}\n| Span | L | M |\n| --- | --- | --- |\n| :val[#s] | :val[geometry.spans.#s] | :val[s.M] |\n:::\n'
+    const html = renderBody(body).html
+    expect((html.match(/<table>/g) ?? []).length).toBe(1)
+    expect((html.match(/<th>/g) ?? []).length).toBe(3)
+    const rows = [...html.matchAll(/<tr>\s*<td><span class="tb-val">(\d)<\/span><\/td>\s*<td><span class="tb-val">([^<]+)<\/span><\/td>\s*<td><span class="tb-val">([^<]+)<\/span><\/td>/g)].map((m) => m.slice(1))
+    expect(rows).toEqual([['1', '7.80\u202fm', '102.7\u202fkNm'], ['2', '9.60\u202fm', '155.5\u202fkNm']])
+    const only = renderBody('::: each{in=spans as=s where=s.label is="Span 2"}\n- :val[#s]: :val[s.M]\n:::\n').html
+    expect(only).toContain('<li><span class="tb-val">2</span>: <span class="tb-val">155.5\u202fkNm</span></li>')
+    expect(only).not.toContain('102.7')
   })
 
   it('fills the check tables and ties every check to the section that shows it', () => {

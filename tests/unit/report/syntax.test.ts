@@ -14,14 +14,16 @@ describe('keys and attributes', () => {
   it('reads dot paths with indices and the element number', () => {
     expect(parseKey('loads.sdl')).toEqual({ segments: ['loads', 'sdl'] })
     expect(parseKey('geometry.spans.2')).toEqual({ segments: ['geometry', 'spans', '2'] })
-    expect(parseKey('s.#')).toEqual({ segments: ['s', '#'] })
-    for (const bad of ['', '.a', 'a..b', '2a', 'a b', 'a.b-c', '#', 'a.#.b', 'a"b', 'a<b']) expect(parseKey(bad)).toHaveProperty('problem')
+    expect(parseKey('#s')).toEqual({ segments: ['#s'] })
+    expect(parseKey('profile.drapes.#s')).toEqual({ segments: ['profile', 'drapes', '#s'] })
+    for (const bad of ['', '.a', 'a..b', '2a', 'a b', 'a.b-c', '#', '#1', 'a.#', 'a.#.b', '#s.a', 'a"b', 'a<b']) expect(parseKey(bad)).toHaveProperty('problem')
   })
 
   it('maps concrete paths to catalogue patterns', () => {
     expect(patternOf(['sections', '3', 'stress', 'transfer', 'top'])).toBe('sections[].stress.transfer.top')
     expect(patternOf(['geometry', 'spans', '0'])).toBe('geometry.spans[]')
     expect(patternOf(['a', '1', '2'])).toBe('a[][]')
+    expect(patternOf(['profile', 'drapes', '#s'])).toBe('profile.drapes[]')
   })
 
   it('reads attribute lists, bare or quoted, and refuses anything else', () => {
@@ -64,7 +66,7 @@ describe('inline directives', () => {
 
 describe('blocks', () => {
   it('nests blocks and closes each with its own :::', () => {
-    const body = '::: each{in=spans as=s}\n## Span :val[s.#]\n::: checks{group=service}\nNote.\n:::\nAfter.\n:::\nOutside.\n'
+    const body = '::: each{in=spans as=s}\n## Span :val[#s]\n::: checks{group=service}\nNote.\n:::\nAfter.\n:::\nOutside.\n'
     const tokens = parseTemplate(template(body)).tokens
     const blocks = tokens.filter((t) => t.type === 'tb_block_open').map((t) => t.meta as BlockMeta)
     expect(blocks.map((b) => [b.directive, b.line, b.attrs])).toEqual([

@@ -1,0 +1,62 @@
+/**
+ * Bending-moment diagrams along the member, drawn on the tension side as engineers draw them:
+ * sagging (+) below the axis, hogging above. Values in N·mm, shown in kNm.
+ */
+import { PALETTE, bandPath, esc, extent, frame, hline, legend, linear, seriesPath, supports, svgOpen, xAxis, yAxis } from './svg'
+import type { Dash, LegendItem } from './svg'
+
+export interface MomentCurve {
+  label: string
+  values: readonly number[]
+  stroke: string
+  dash?: Dash
+}
+
+export interface MomentBand {
+  label: string
+  min: readonly number[]
+  max: readonly number[]
+}
+
+export interface MomentDiagramData {
+  title: string
+  /** along the member, mm */
+  X: readonly number[]
+  curves: readonly MomentCurve[]
+  /** an envelope drawn as a shaded band behind the curves */
+  band?: MomentBand
+  supportsX: readonly number[]
+  /** moment unit label, e.g. 'kNm' or 'kNm per strip' */
+  unit: string
+}
+
+export function momentDiagramSvg(d: MomentDiagramData): string {
+  const f = frame(720, 270)
+  const length = Math.max(...d.X, ...d.supportsX, 1)
+  const kNm = (v: readonly number[]): number[] => v.map((m) => m / 1e6)
+  const all = [...d.curves.flatMap((c) => kNm(c.values)), ...(d.band ? [...kNm(d.band.min), ...kNm(d.band.max)] : []), 0]
+  const [lo, hi] = extent(all)
+  const x = linear([0, length / 1000], [f.left, f.width - f.right])
+  // tension side: sagging (+) downwards
+  const y = linear([lo, hi], [f.top, f.height - f.bottom]).nice()
+  const xs = d.X.map((v) => v / 1000)
+  const items: LegendItem[] = []
+  let body = ''
+  if (d.band) {
+    body += bandPath(xs, kNm(d.band.min), kNm(d.band.max), x, y, PALETTE.band)
+    items.push({ label: d.band.label, stroke: PALETTE.band, fill: PALETTE.band })
+  }
+  for (const c of d.curves) {
+    body += seriesPath({ label: c.label, x: xs, y: kNm(c.values), stroke: c.stroke, ...(c.dash ? { dash: c.dash } : {}) }, x, y)
+    items.push({ label: c.label, stroke: c.stroke, ...(c.dash ? { dash: c.dash } : {}) })
+  }
+  return svgOpen(f, d.title)
+    + `<title>${esc(d.title)}</title>`
+    + legend(f, items)
+    + xAxis(f, x, 'distance along the member (m)')
+    + yAxis(f, y, `M (${d.unit}), sagging + below`)
+    + hline(f.left, f.width - f.right, y(0), PALETTE.ink, 'stroke-width="1"')
+    + body
+    + supports(d.supportsX.map((v) => v / 1000), x, y(0))
+    + '</svg>'
+}

@@ -1,0 +1,194 @@
+/**
+ * The engine models templates can bind to, by the name in their front matter. 'pt-member' is the
+ * post-tensioned continuous member of shared/engine (designMember), with its input schema, its
+ * result catalogue and its figures drawn from Design.series.
+ */
+import { RESULT_SPECS, specFor } from '../engine/catalogue'
+import { DEMO_BB1, DEMO_PS2 } from '../engine/demo'
+import { designMember } from '../engine/design/member'
+import type { CriticalSection, Design } from '../engine/design/member'
+import { INPUT_GROUPS, inputFieldSpecs, memberInputSchema } from '../engine/schema'
+import { getPath } from '../utils/paths'
+import { magnelSvg } from './figures/magnel'
+import { momentDiagramSvg } from './figures/moments'
+import { forceAlongTendonSvg } from './figures/force'
+import { stressEnvelopeSvg } from './figures/stresses'
+import { PALETTE } from './figures/svg'
+import { tendonProfileSvg } from './figures/tendon'
+import { shapeOf } from './model'
+import type { ModelFigure, ReportModel, ShapeKind } from './model'
+
+function supportsX(d: Design): number[] {
+  const out = [0]
+  for (const L of d.input.geometry.spans) out.push(out[out.length - 1]! + L)
+  return out
+}
+
+/** The section a figure is about: the one `at` names, else the one nearest its limits. */
+function sectionAt(d: Design, at: string | undefined): CriticalSection | undefined {
+  const named = at === undefined ? undefined : (getPath(d, at) as CriticalSection | undefined)
+  if (named) return named
+  return d.sections.reduce<CriticalSection | undefined>((a, s) => (!a || s.utilisation > a.utilisation ? s : a), undefined)
+}
+
+const figures: Record<string, ModelFigure> = {
+  tendon: {
+    label: 'Tendon profile with the eccentricity limits',
+    render: (r) => {
+      const d = r as Design
+      const s = d.series
+      return tendonProfileSvg({ X: s.X, e: s.e, eLimitTop: s.eLimitTop, eLimitBottom: s.eLimitBottom, depth: s.depth, centroid: s.centroid, supportsX: supportsX(d) })
+    },
+  },
+  'prestress-moments': {
+    label: 'Moments of prestress in service: primary, secondary and total',
+    render: (r) => {
+      const d = r as Design
+      const s = d.series
+      return momentDiagramSvg({
+        title: 'Moments of prestress in service',
+        X: s.X,
+        curves: [
+          { label: 'primary  M1 = −P e', values: s.primaryService, stroke: PALETTE.olive, dash: 'dashed' },
+          { label: 'secondary  M2', values: s.secondaryService, stroke: PALETTE.plum },
+          { label: 'total  Mp = M1 + M2', values: s.totalService, stroke: PALETTE.blue },
+        ],
+        supportsX: supportsX(d),
+        unit: 'kNm',
+      })
+    },
+  },
+  moments: {
+    label: 'Moments from the loads: characteristic envelope over the load arrangements, and at transfer',
+    render: (r) => {
+      const d = r as Design
+      const s = d.series
+      return momentDiagramSvg({
+        title: 'Bending moments from the loads',
+        X: s.X,
+        band: { label: 'characteristic envelope', min: s.momentServiceMin, max: s.momentServiceMax },
+        curves: [
+          { label: 'characteristic, greatest', values: s.momentServiceMax, stroke: PALETTE.blue },
+          { label: 'characteristic, least', values: s.momentServiceMin, stroke: PALETTE.blue, dash: 'dashed' },
+          { label: 'at transfer', values: s.momentTransfer, stroke: PALETTE.sand },
+        ],
+        supportsX: supportsX(d),
+        unit: 'kNm',
+      })
+    },
+  },
+  'stresses-transfer': {
+    label: 'Fibre stresses at transfer against their limits',
+    render: (r) => {
+      const s = (r as Design).series
+      return stressEnvelopeSvg({
+        title: 'Fibre stresses at transfer',
+        X: s.X,
+        topMin: s.stressTransferTopMin,
+        topMax: s.stressTransferTopMax,
+        bottomMin: s.stressTransferBottomMin,
+        bottomMax: s.stressTransferBottomMax,
+        compressionLimit: s.limitTransferCompression,
+        tensionLimit: s.limitTransferTension,
+      })
+    },
+  },
+  'stresses-service': {
+    label: 'Fibre stresses in service against their limits',
+    render: (r) => {
+      const s = (r as Design).series
+      return stressEnvelopeSvg({
+        title: 'Fibre stresses in service',
+        X: s.X,
+        topMin: s.stressServiceTopMin,
+        topMax: s.stressServiceTopMax,
+        bottomMin: s.stressServiceBottomMin,
+        bottomMax: s.stressServiceBottomMax,
+        compressionLimit: s.limitServiceCompression,
+        tensionLimit: s.limitServiceTension,
+      })
+    },
+  },
+  force: {
+    label: 'Force along the tendon after friction, draw-in, at transfer and in service',
+    render: (r) => {
+      const d = r as Design
+      const s = d.series
+      return forceAlongTendonSvg({
+        X: s.X,
+        curves: [
+          { label: 'after friction', values: s.forceFriction, stroke: PALETTE.axis, dash: 'dashed' },
+          { label: 'after draw-in', values: s.forceDrawIn, stroke: PALETTE.sand },
+          { label: 'at transfer', values: s.forceTransfer, stroke: PALETTE.blue },
+          { label: 'in service', values: s.forceService, stroke: PALETTE.olive },
+        ],
+        supportsX: supportsX(d),
+      })
+    },
+  },
+  magnel: {
+    label: 'Magnel diagram of a section',
+    at: 'sections[]',
+    render: (r, at) => {
+      const d = r as Design
+      const section = sectionAt(d, at)
+      if (!section) return ''
+      const m = section.magnel
+      return magnelSvg({
+        title: `Magnel diagram, ${section.label}`,
+        lines: m.lines,
+        region: m.region,
+        eLimits: m.eLimits,
+        least: m.minP !== null && m.minP > 0 && m.eAtMinP !== null ? { e: m.eAtMinP, invP: 1 / m.minP } : null,
+        design: section.force.transfer > 0 ? { e: section.e, invP: 1 / section.force.transfer } : null,
+      })
+    },
+  },
+}
+
+// The shape of a Design does not depend on the numbers: two demo runs show every key.
+let shape: Map<string, ShapeKind> | null = null
+function resultShape(): Map<string, ShapeKind> {
+  if (!shape) {
+    const s = shapeOf(designMember(DEMO_PS2))
+    shapeOf(designMember(DEMO_BB1), s)
+    shape = s
+  }
+  return shape
+}
+
+/** Check groups: those the engine documents, and any the demo runs produce. */
+let groups: string[] | null = null
+function checkGroups(): string[] {
+  if (!groups) {
+    const found = new Set(['transfer', 'service', 'precompression', 'tendon', 'balancing'])
+    for (const demo of [DEMO_PS2, DEMO_BB1]) for (const c of designMember(demo).checks) found.add(c.group)
+    groups = [...found].sort()
+  }
+  return groups
+}
+
+export const ptMemberModel: ReportModel = {
+  id: 'pt-member',
+  label: 'Post-tensioned continuous member (EN 1992-1-1)',
+  inputFields: inputFieldSpecs(),
+  inputGroups: INPUT_GROUPS,
+  resultSpecs: RESULT_SPECS,
+  resultSpec: (pattern) => specFor(pattern),
+  get resultShape() {
+    return resultShape()
+  },
+  get checkGroups() {
+    return checkGroups()
+  },
+  figures,
+  checksOf: (r) => (r as Design).checks,
+  inputOf: (r) => (r as Design).input,
+  run: (inputs) => designMember(inputs),
+}
+
+/** Models by the name templates give in their front matter. */
+export const MODELS: Readonly<Record<string, ReportModel>> = { 'pt-member': ptMemberModel }
+
+/** The engine's input schema for a model, for the editor's form and for parsing uploads. */
+export const MODEL_INPUT_SCHEMAS = { 'pt-member': memberInputSchema } as const
