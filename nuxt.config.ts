@@ -13,6 +13,7 @@ export default defineNuxtConfig({
     '@fontsource/merriweather/700.css',
     '@fontsource/merriweather/400-italic.css',
     'katex/dist/katex.min.css',
+    '~/assets/css/report.css',
   ],
   tailwindcss: { cssPath: '~/assets/css/tailwind.css', viewer: false },
   app: {

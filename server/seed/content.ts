@@ -1,5 +1,10 @@
+import { readdirSync, readFileSync } from 'node:fs'
+import { dirname, join, resolve } from 'node:path'
+import { fileURLToPath } from 'node:url'
+import { and, desc, eq } from 'drizzle-orm'
 import type { MySql2Database } from 'drizzle-orm/mysql2'
-import type * as schema from '../database/schema'
+import * as schema from '../database/schema'
+import { compileSheet, starterInputsFor } from '../../shared/sheet/runtime'
 
 export interface SeedOwners {
   projectId: number
@@ -7,5 +12,53 @@ export interface SeedOwners {
   adminId: number
 }
 
-/** Built-in templates and the demo calc sheets; filled in once the template library exists. */
-export async function seedContent(_db: MySql2Database<typeof schema>, _owners: SeedOwners) {}
+const root = resolve(dirname(fileURLToPath(import.meta.url)), '..', '..')
+
+/** The demo calc sheets of design.md §6, each made from a built-in template. */
+const DEMO_SHEETS = [
+  { reference: 'PS-2', title: 'Podium slab strip, grid 1–5', partOfStructure: 'Podium slab, level 1', template: /slab-strip/ },
+  { reference: 'BB-1', title: 'Band beam on grid C', partOfStructure: 'Podium band beams, level 1', template: /band-beam/ },
+]
+
+type Db = MySql2Database<typeof schema>
+
+/**
+ * Built-in templates from content-templates/: a new immutable version whenever the file's text
+ * differs from the newest stored version; unchanged files add nothing.
+ */
+export async function syncBuiltinTemplates(db: Db, adminId: number) {
+  const dir = join(root, 'content-templates')
+  const files = readdirSync(dir).filter(f => f.endsWith('.md')).sort()
+  const ids: Record<string, number> = {}
+  for (const file of files) {
+    const slug = file.replace(/\.md$/, '')
+    const body = readFileSync(join(dir, file), 'utf8')
+    const compiled = compileSheet(body)
+    if (!compiled.ok) throw new Error(`content-templates/${file} does not load:\n${compiled.errors.join('\n')}`)
+    const [latest] = await db.select().from(schema.templates).where(eq(schema.templates.slug, slug)).orderBy(desc(schema.templates.version)).limit(1)
+    if (latest && latest.body === body) {
+      ids[slug] = latest.id
+      continue
+    }
+    const [row] = await db.insert(schema.templates).values({
+      slug, version: (latest?.version ?? 0) + 1, title: compiled.meta.title, model: compiled.meta.model, body, builtin: true, publishedBy: adminId,
+    }).$returningId()
+    ids[slug] = row!.id
+  }
+  return ids
+}
+
+export async function seedContent(db: Db, owners: SeedOwners) {
+  const templates = await syncBuiltinTemplates(db, owners.adminId)
+  for (const demo of DEMO_SHEETS) {
+    const slug = Object.keys(templates).find(s => demo.template.test(s))
+    if (!slug) continue
+    const [exists] = await db.select({ id: schema.sheets.id }).from(schema.sheets)
+      .where(and(eq(schema.sheets.projectId, owners.projectId), eq(schema.sheets.reference, demo.reference))).limit(1)
+    if (exists) continue
+    await db.insert(schema.sheets).values({
+      projectId: owners.projectId, reference: demo.reference, title: demo.title, partOfStructure: demo.partOfStructure,
+      templateId: templates[slug]!, inputs: starterInputsFor(slug), createdBy: owners.engineerId, updatedBy: owners.engineerId,
+    })
+  }
+}

@@ -1,0 +1,8 @@
+import { idParamSchema } from '../../../../shared/schemas/project'
+
+export default defineEventHandler(async (event) => {
+  const { id } = validParams(event, idParamSchema)
+  await requireUser(event)
+  const template = await getTemplate(id)
+  return { ...template, versions: await templateVersions(template.slug) }
+})
