@@ -1,4 +1,4 @@
-import { readdirSync, readFileSync } from 'node:fs'
+import { existsSync, readdirSync, readFileSync } from 'node:fs'
 import { dirname, join, resolve } from 'node:path'
 import { fileURLToPath } from 'node:url'
 import { and, desc, eq } from 'drizzle-orm'
@@ -28,7 +28,7 @@ type Db = MySql2Database<typeof schema>
  */
 export async function syncBuiltinTemplates(db: Db, adminId: number) {
   const dir = join(root, 'content-templates')
-  const files = readdirSync(dir).filter(f => f.endsWith('.md')).sort()
+  const files = existsSync(dir) ? readdirSync(dir).filter(f => f.endsWith('.md')).sort() : []
   const ids: Record<string, number> = {}
   for (const file of files) {
     const slug = file.replace(/\.md$/, '')
