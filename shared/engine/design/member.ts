@@ -349,9 +349,11 @@ function runCore(input: MemberInput): Core {
   const sigmaJack = input.tendon.jackingFactor * jack.sigmaPmax
   const Pjack = sigmaJack * Ap
 
-  // eccentricity limits to the tendon centroid at the duct centre (practice: h/2 − cover − duct/2)
-  const dTop = input.tendon.coverTop + input.tendon.ductHeight / 2
-  const dBot = input.tendon.coverBottom + input.tendon.ductHeight / 2
+  // eccentricity limits: practice e = h/2 − cover − duct/2, less the strands' offset in the duct, since at high
+  // and low points the tendon is pulled towards the centre of curvature, against the far side of the duct
+  const offset = input.tendon.centroidOffset ?? Math.max(0, (input.tendon.ductHeight - strand.diameter) / 2)
+  const dTop = input.tendon.coverTop + input.tendon.ductHeight / 2 + offset
+  const dBot = input.tendon.coverBottom + input.tendon.ductHeight / 2 + offset
   const eTop = sec.yt - dTop
   const eBot = sec.yb - dBot
   if (!(eTop > 0)) fail('tendon.coverTop', 'the top cover and duct reach below the centroid of the section')
