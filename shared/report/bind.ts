@@ -55,17 +55,41 @@ function indexOf(model: ReportModel): ModelIndex {
   return index
 }
 
-/** What a key pattern names in the model, inputs first; undefined when it names nothing. */
-export function describeKey(model: ReportModel, pattern: string): KeyInfo | undefined {
-  const index = indexOf(model)
+/** The prefix under which :val[…] reaches the inputs (the engine's results echo them there too). */
+export const INPUT_PREFIX = 'input.'
+
+function inputInfo(index: ModelIndex, pattern: string): KeyInfo | undefined {
   const input = index.inputs.get(pattern)
   if (input) return input
   if (index.inputPrefixes.has(pattern)) return { source: 'input', pattern, kind: 'object' }
+  return undefined
+}
+
+function resultInfo(model: ReportModel, pattern: string): KeyInfo | undefined {
   const spec = model.resultSpecs[pattern] ?? model.resultSpec?.(pattern)
   const shape = model.resultShape.get(pattern)
   if (spec) return { source: 'result', pattern, kind: shape ?? 'leaf', spec }
   if (shape) return { source: 'result', pattern, kind: shape }
   return undefined
+}
+
+/**
+ * What a key pattern names. `:in[…]` names input fields by their own path; every other use names
+ * results, and `input.…` reaches the inputs (falling back to what the results echo under `input`).
+ */
+export function describeKey(model: ReportModel, pattern: string, use: 'input' | 'value'): KeyInfo | undefined {
+  const index = indexOf(model)
+  if (use === 'input') return inputInfo(index, inputPath(pattern))
+  if (pattern.startsWith(INPUT_PREFIX)) {
+    const input = inputInfo(index, pattern.slice(INPUT_PREFIX.length))
+    if (input) return input
+  }
+  return resultInfo(model, pattern)
+}
+
+/** The path of a value inside the inputs, for a key that names an input. */
+export function inputPath(path: string): string {
+  return path.startsWith(INPUT_PREFIX) ? path.slice(INPUT_PREFIX.length) : path
 }
 
 /** Whether a local name would hide a key of the model. */

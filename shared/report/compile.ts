@@ -4,7 +4,7 @@
  * any problem does not load (TemplateLoadError lists them all).
  */
 import type { Token } from 'markdown-it'
-import { describeKey, isModelName, resolvePattern, suggestKeys } from './bind'
+import { INPUT_PREFIX, describeKey, isModelName, resolvePattern, suggestKeys } from './bind'
 import type { PatternScope } from './bind'
 import { TemplateKeyError, TemplateLoadError, TemplateSyntaxError } from './errors'
 import type { TemplateError } from './errors'
@@ -44,17 +44,21 @@ function checkKey(model: ReportModel, key: string, segments: readonly string[], 
     return null
   }
   const { pattern } = resolved
-  const info = describeKey(model, pattern)
+  const info = describeKey(model, pattern, use === 'in' ? 'input' : 'value')
   if (!info) {
-    const hint = suggestKeys(model, pattern)
-    errors.push(new TemplateKeyError(line, key, `unknown key "${key}": the model ${model.id} has no input or result of that name${hint.length ? ` (did you mean ${hint.join(', ')}?)` : ''}`))
+    const other = describeKey(model, pattern, use === 'in' ? 'value' : 'input')
+    if (use === 'in' && other) errors.push(new TemplateKeyError(line, key, `:in[…] takes an input field, but "${key}" is a result: show it with :val[${key}]`))
+    else if (use !== 'in' && other && other.kind !== 'object') errors.push(new TemplateKeyError(line, key, `"${key}" is an input field, not a result: show its value with :val[${INPUT_PREFIX}${key}] or its field with :in[${key}]`))
+    else {
+      const hint = suggestKeys(model, pattern)
+      errors.push(new TemplateKeyError(line, key, `unknown key "${key}": the model ${model.id} has no ${use === 'in' ? 'input field' : 'input or result'} of that name${hint.length ? ` (did you mean ${hint.join(', ')}?)` : ''}`))
+    }
     return null
   }
   used.add(pattern)
-  const element = describeKey(model, `${pattern}[]`)
+  const element = describeKey(model, `${pattern}[]`, use === 'in' ? 'input' : 'value')
   if (use === 'in') {
-    if (info.source !== 'input') errors.push(new TemplateKeyError(line, key, `:in[…] takes an input field, but "${key}" is a result: show it with :val[${key}]`))
-    else if (info.kind === 'object') errors.push(new TemplateKeyError(line, key, `"${key}" is a group of inputs: name one field in it`))
+    if (info.kind === 'object') errors.push(new TemplateKeyError(line, key, `"${key}" is a group of inputs: name one field in it`))
   } else if (use === 'val') {
     const listOfValues = info.kind === 'array' && element?.kind === 'leaf'
     if (info.kind === 'object' || (info.kind === 'array' && !listOfValues)) {

@@ -10,7 +10,7 @@ import type { Env, Renderer, Token } from 'markdown-it'
 import type { CheckResult } from '../engine/contract'
 import { formatQuantity } from '../utils/units'
 import { getPath } from '../utils/paths'
-import { describeKey, resolvePath } from './bind'
+import { describeKey, inputPath, resolvePath } from './bind'
 import type { KeyInfo, PathScope } from './bind'
 import type { CompiledTemplate } from './compile'
 import { checkPrecision, escapeHtml, inputText, valueTex, valueText } from './format'
@@ -90,14 +90,14 @@ const HOME_MARK = /\u0000home:(\d+)\u0000/g
 
 function lookup(env: ReportEnv, info: KeyInfo, path: string): unknown {
   if (info.source === 'result') return getPath(env.results, path)
-  const typed = getPath(env.inputs, path)
-  return typed !== undefined ? typed : getPath(env.completedInputs, path)
+  const typed = getPath(env.inputs, inputPath(path))
+  return typed !== undefined ? typed : getPath(env.completedInputs, inputPath(path))
 }
 
-function resolveValue(env: ReportEnv, segments: readonly string[], key: string, line: number): { text: string; tex: string; missing: boolean } {
+function resolveValue(env: ReportEnv, segments: readonly string[], key: string, line: number, use: 'input' | 'value' = 'value'): { text: string; tex: string; missing: boolean } {
   const r = resolvePath(segments, env.scopes)
   if (r.kind === 'index') return { text: String(r.index + 1), tex: `\\text{${r.index + 1}}`, missing: false }
-  const info = describeKey(env.model, r.pattern)
+  const info = describeKey(env.model, r.pattern, use)
   const value = info ? lookup(env, info, r.path) : undefined
   if (value === undefined) {
     env.unresolved.push({ key, path: r.path, line })
@@ -132,7 +132,7 @@ function plainText(children: readonly Token[], env: ReportEnv): string {
       if (c.type === 'softbreak' || c.type === 'hardbreak') return ' '
       if (c.type === 'tb_val' || c.type === 'tb_in') {
         const meta = c.meta as InlineMeta
-        return resolveValue(env, meta.segments!, meta.key!, meta.line ?? 0).text
+        return resolveValue(env, meta.segments!, meta.key!, meta.line ?? 0, c.type === 'tb_in' ? 'input' : 'value').text
       }
       if (c.type === 'math_inline') return c.content.replace(VAL_IN_MATH, '').trim()
       return ''
@@ -162,15 +162,16 @@ function renderMath(token: Token, display: boolean, env: ReportEnv): string {
 function renderInput(meta: InlineMeta, env: ReportEnv): string {
   const r = resolvePath(meta.segments!, env.scopes)
   if (r.kind !== 'path') return ''
-  const info = describeKey(env.model, r.pattern)
+  const info = describeKey(env.model, r.pattern, 'input')
   const spec = info?.spec
   if (!info || !spec) return ''
   const value = lookup(env, info, r.path)
   if (value === undefined) env.unresolved.push({ key: meta.key!, path: r.path, line: meta.line ?? 0 })
-  const key = escapeHtml(r.path)
+  const fieldPath = inputPath(r.path)
+  const key = escapeHtml(fieldPath)
   if (env.mode !== 'edit') return `<span class="tb-field tb-frozen" data-key="${key}">${escapeHtml(valueText(value, spec))}</span>`
 
-  const id = uniqueId(env.fieldIds, `tb-in-${r.path.replace(/\./g, '-')}`)
+  const id = uniqueId(env.fieldIds, `tb-in-${fieldPath.replace(/\./g, '-')}`)
   const label = escapeHtml(spec.label)
   const unit = spec.unit ? `<span class="tb-unit">${escapeHtml(spec.unit)}</span>` : ''
   const options = info.field?.options
@@ -273,7 +274,7 @@ function renderEach(meta: BlockMeta, inner: readonly Token[], env: ReportEnv): s
   if ('problem' in parsed) return ''
   const r = resolvePath(parsed.segments, env.scopes)
   if (r.kind !== 'path') return ''
-  const info = describeKey(env.model, r.pattern)
+  const info = describeKey(env.model, r.pattern, 'value')
   const list = info ? lookup(env, info, r.path) : undefined
   if (!Array.isArray(list)) {
     if (list === undefined) env.unresolved.push({ key: meta.attrs.in!, path: r.path, line: meta.line ?? 0 })
@@ -287,7 +288,7 @@ function renderEach(meta: BlockMeta, inner: readonly Token[], env: ReportEnv): s
     const scope = { name: local, path: `${r.path}.${i}`, index: i }
     if (where && 'segments' in where) {
       const w = resolvePath(where.segments, [...env.scopes, scope])
-      const wInfo = w.kind === 'path' ? describeKey(env.model, w.pattern) : undefined
+      const wInfo = w.kind === 'path' ? describeKey(env.model, w.pattern, 'value') : undefined
       const value = w.kind === 'path' && wInfo ? lookup(env, wInfo, w.path) : undefined
       if (!keep.has(String(value))) continue
     }

@@ -16,8 +16,8 @@ function loadErrors(body: string): TemplateLoadError {
 
 describe('binding keys to the model', () => {
   it('loads a template whose keys all exist, and lists the keys it uses', () => {
-    const compiled = compileBody(':in[geometry.h] :val[selfWeight] $\\val{loads.qk}$\n\n::: each{in=spans as=s}\n:val[s.M] :val[#s]\n:::\n')
-    expect(compiled.keys).toEqual(['geometry.h', 'loads.qk', 'selfWeight', 'spans', 'spans[].M'])
+    const compiled = compileBody(':in[geometry.h] :val[selfWeight] $\\val{input.loads.qk}$\n\n::: each{in=spans as=s}\n:val[s.M] :val[#s]\n:::\n')
+    expect(compiled.keys).toEqual(['geometry.h', 'input.loads.qk', 'selfWeight', 'spans', 'spans[].M'])
     expect(compiled.meta.model).toBe('test-beam')
   })
 
@@ -26,8 +26,8 @@ describe('binding keys to the model', () => {
       '# Loads', //                         BODY_LINE
       '',
       'Depth :in[geometry.hh].', //         +2
-      'Loads :val[loads.sdll] and', //      +3
-      ':val[loads.qk] (known).', //         +4
+      'Loads :val[input.loads.sdll] and', //  +3
+      ':val[input.loads.qk] (known).', //   +4
       '',
       '$$',
       'M = \\val{spans.0.MM}', //           +7
@@ -41,12 +41,12 @@ describe('binding keys to the model', () => {
     const keyErrors = error.errors.filter((e): e is TemplateKeyError => e instanceof TemplateKeyError)
     expect(keyErrors.map((e) => [e.line, e.key])).toEqual([
       [BODY_LINE + 2, 'geometry.hh'],
-      [BODY_LINE + 3, 'loads.sdll'],
+      [BODY_LINE + 3, 'input.loads.sdll'],
       [BODY_LINE + 7, 'spans.0.MM'],
       [BODY_LINE + 10, 'spanz'],
     ])
     expect(error.errors).toHaveLength(4)
-    expect(keyErrors[1]!.message).toMatch(/did you mean loads\.sdl/)
+    expect(keyErrors[1]!.message).toMatch(/did you mean input\.loads\.sdl/)
     expect(error.message).toContain(`line ${BODY_LINE + 2}: unknown key "geometry.hh"`)
   })
 
@@ -56,21 +56,22 @@ describe('binding keys to the model', () => {
   })
 
   it('refuses a key used for the wrong purpose', () => {
-    const body = ':in[selfWeight]\n\n:val[loads]\n\n:val[spans]\n\n::: each{in=selfWeight as=s}\n:::\n\n:in[geometry]\n'
+    const body = ':in[selfWeight]\n\n:val[input.loads]\n\n:val[spans]\n\n::: each{in=selfWeight as=s}\n:::\n\n:in[geometry]\n\n:val[geometry.h]\n'
     const errors = loadErrors(body).errors
-    expect(errors.map((e) => e.line)).toEqual([0, 2, 4, 6, 9].map((n) => BODY_LINE + n))
+    expect(errors.map((e) => e.line)).toEqual([0, 2, 4, 6, 9, 11].map((n) => BODY_LINE + n))
     const expected = [
       /:in\[…\] takes an input field, but "selfWeight" is a result: show it with :val\[selfWeight\]/,
-      /"loads" is a group of values, not one value/,
+      /"input.loads" is a group of values, not one value/,
       /"spans" is a group of values, not one value/,
       /::: each\{in=…\} repeats over a list, but "selfWeight" is not one/,
       /"geometry" is a group of inputs/,
+      /"geometry.h" is an input field, not a result: show its value with :val\[input.geometry.h\] or its field with :in\[geometry.h\]/,
     ]
     expected.forEach((re, i) => expect(errors[i]!.message).toMatch(re))
   })
 
-  it('lets :val show a list of numbers (an input array) whole', () => {
-    expect(() => compileBody(':val[geometry.spans] and :in[geometry.spans] and :val[geometry.spans.1]\n')).not.toThrow()
+  it('lets :val show a list of numbers (an input array) whole, and :in take the input. prefix too', () => {
+    expect(() => compileBody(':val[input.geometry.spans] and :in[geometry.spans] and :val[input.geometry.spans.1] and :in[input.geometry.h]\n')).not.toThrow()
   })
 
   it('checks block attributes against the model', () => {
@@ -102,8 +103,8 @@ describe('binding keys to the model', () => {
   })
 
   it('scopes local names to their each block, and #name to local names', () => {
-    const ok = ':::  each{in=spans as=s}\n:val[#s] :val[s.M] :val[geometry.spans.#s]\n:::\n'
-    expect(compileBody(ok).keys).toEqual(['geometry.spans[]', 'spans', 'spans[].M'])
+    const ok = ':::  each{in=spans as=s}\n:val[#s] :val[s.M] :val[input.geometry.spans.#s]\n:::\n'
+    expect(compileBody(ok).keys).toEqual(['input.geometry.spans[]', 'spans', 'spans[].M'])
     const errors = loadErrors('::: each{in=spans as=s}\n:val[s.M]\n:::\n\n:val[s.M]\n\n:val[spans.#t]\n\n:val[#s]\n\n::: each{in=spans as=s}\n:in[#s]\n:::\n').errors
     expect(errors.map((e) => [e.line, (e as TemplateKeyError).key])).toEqual([
       [BODY_LINE + 4, 's.M'],

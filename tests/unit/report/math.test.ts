@@ -15,7 +15,7 @@ function annotations(html: string): string[] {
 
 describe('values in formulas', () => {
   it('substitutes \\val{key} with the value and unit at the key\'s precision', () => {
-    const body = '$$\ng_{sw} = \\gamma_c h = \\val{selfWeight}\n$$\n\n$M = \\frac{w L^2}{8} = \\val{spans.0.M}$ on $L = \\val{geometry.spans.0}$\n'
+    const body = '$$\ng_{sw} = \\gamma_c h = \\val{selfWeight}\n$$\n\n$M = \\frac{w L^2}{8} = \\val{spans.0.M}$ on $L = \\val{input.geometry.spans.0}$\n'
     const tex = annotations(renderBody(body).html)
     expect(tex).toEqual([
       'g_{sw} = \\gamma_c h = \\text{6.50}\\,\\mathrm{kN/m}',
@@ -25,7 +25,7 @@ describe('values in formulas', () => {
   })
 
   it('reads a formula as symbols = numbers = result', () => {
-    const body = '$$\nM = \\frac{w L^2}{8} = \\frac{(\\val{selfWeight} + \\val{loads.sdl} + \\val{loads.qk}) \\cdot \\val{geometry.spans.0}^2}{8} = \\val{spans.0.M}\n$$\n'
+    const body = '$$\nM = \\frac{w L^2}{8} = \\frac{(\\val{selfWeight} + \\val{input.loads.sdl} + \\val{input.loads.qk}) \\cdot \\val{input.geometry.spans.0}^2}{8} = \\val{spans.0.M}\n$$\n'
     const [tex] = annotations(renderBody(body).html)
     expect(tex).toBe('M = \\frac{w L^2}{8} = \\frac{(\\text{6.50}\\,\\mathrm{kN/m} + \\text{2.00}\\,\\mathrm{kN/m^{2}} + \\text{5.00}\\,\\mathrm{kN/m^{2}}) \\cdot \\text{7.80}\\,\\mathrm{m}^2}{8} = \\text{102.7}\\,\\mathrm{kNm}')
   })

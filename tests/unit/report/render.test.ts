@@ -75,7 +75,7 @@ describe('rendering a sheet', () => {
   })
 
   it('repeats the body rows of a table held by an each, once per kept element', () => {
-    const body = '::: each{in=spans as=s}\n| Span | L | M |\n| --- | --- | --- |\n| :val[#s] | :val[geometry.spans.#s] | :val[s.M] |\n:::\n'
+    const body = '::: each{in=spans as=s}\n| Span | L | M |\n| --- | --- | --- |\n| :val[#s] | :val[input.geometry.spans.#s] | :val[s.M] |\n:::\n'
     const html = renderBody(body).html
     expect((html.match(/<table>/g) ?? []).length).toBe(1)
     expect((html.match(/<th>/g) ?? []).length).toBe(3)

@@ -37,10 +37,10 @@ describe('keys and attributes', () => {
 
 describe('inline directives', () => {
   it('finds :in and :val with the line each is on', () => {
-    const found = inlineDirectives(template('Intro.\n\nDepth :in[geometry.h] and\nload :val[loads.sdl].\n'))
+    const found = inlineDirectives(template('Intro.\n\nDepth :in[geometry.h] and\nload :val[input.loads.sdl].\n'))
     expect(found.map((d) => [d.directive, d.key, d.line])).toEqual([
       ['in', 'geometry.h', BODY_LINE + 2],
-      ['val', 'loads.sdl', BODY_LINE + 3],
+      ['val', 'input.loads.sdl', BODY_LINE + 3],
     ])
   })
 
