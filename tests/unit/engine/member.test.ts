@@ -124,3 +124,28 @@ describe('proposal on random feasible members (seeded)', () => {
     expect(d.proposal.reason).toMatch(/too small|No single force/)
   })
 })
+
+describe('proposal on random band beams (seeded)', () => {
+  it('the inputPatch makes every transfer and service check pass, with no more strands than a passing input', () => {
+    const r = prng(4242)
+    let proposed = 0
+    for (let trial = 0; trial < 5; trial++) {
+      const L = between(r, 7000, 10000)
+      const spans = [Math.round(0.8 * L), Math.round(L), Math.round(0.8 * L)]
+      const input: MemberInputDraft = {
+        geometry: { spans },
+        section: { kind: 'tee-beam', h: Math.round(L / between(r, 22, 27) / 10) * 10, bw: 2400, bf: 4400, hf: 220, tributaryWidth: Math.round(between(r, 6000, 8000)) },
+        materials: { concreteClass: 'C40/50' },
+        tendon: { strandsPerTendon: 5, count: 1 + Math.floor(r() * 8), coverTop: 40, coverBottom: 40, ductWidth: 75 },
+        loads: { superimposed: between(r, 1, 2) * 1e-3, imposed: between(r, 2.5, 5) * 1e-3 },
+      }
+      const d = designMember(input)
+      if (!d.proposal.feasible) continue
+      proposed++
+      const again = designMember(mergeInputPatch(input, d.proposal.inputPatch ?? {}))
+      expect(stressChecksPass(again)).toBe(true)
+      if (stressChecksPass(d)) expect(d.proposal.strands as number).toBeLessThanOrEqual(d.jacking.strands)
+    }
+    expect(proposed).toBeGreaterThan(2)
+  })
+})
