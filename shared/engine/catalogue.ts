@@ -8,6 +8,7 @@ import type { QuantitySpec } from './contract'
 import type { DisplayUnit } from '../utils/units'
 import { inputFieldSpecs } from './schema'
 import type { InputFieldSpec } from './schema'
+import { PART2_RESULT_SPECS } from './uls/part2-specs'
 
 const q = (label: string, unit: DisplayUnit, precision: number, symbol?: string, clause?: string): QuantitySpec => {
   const s: QuantitySpec = { label, unit, precision }
@@ -213,6 +214,7 @@ export const RESULT_SPECS: Record<string, QuantitySpec> = {
   'series.limitServiceCompression[]': q('Compression limit, characteristic', 'MPa', 2, undefined, 'EN 1992-1-1 7.2(2)'),
   'series.limitServiceTension[]': q('Tension limit in service (negative)', 'MPa', 2, undefined, 'EN 1992-1-1 7.1(2), Table 7.1N'),
   ...stressSpecs(),
+  ...PART2_RESULT_SPECS,
 }
 
 let inputSpecs: InputFieldSpec[] | null = null

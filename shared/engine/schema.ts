@@ -12,8 +12,9 @@ import type { DisplayUnit } from '../utils/units'
 import { CONCRETE_CLASSES } from './materials/concrete'
 import type { ConcreteClass } from './materials/concrete'
 import { EXPOSURE_CLASSES } from './checks/stresses'
+import { part2InputShape } from './uls/input-groups'
 
-export const INPUT_GROUPS = ['geometry', 'section', 'materials', 'loads', 'tendon', 'profile', 'losses', 'limits', 'annex'] as const
+export const INPUT_GROUPS = ['geometry', 'section', 'materials', 'loads', 'tendon', 'profile', 'losses', 'limits', 'annex', 'uls', 'sls', 'site'] as const
 export type InputGroup = (typeof INPUT_GROUPS)[number]
 
 export type FieldMeta = {
@@ -182,6 +183,8 @@ export const memberInputShape = {
     rsupUnbonded: factor({ label: 'rsup, unbonded tendons', group: 'annex', symbol: 'r_{sup}', clause: 'EN 1992-1-1 5.10.9(1)' }, 1, 1.3).default(1.05),
     rinfUnbonded: factor({ label: 'rinf, unbonded tendons', group: 'annex', symbol: 'r_{inf}', clause: 'EN 1992-1-1 5.10.9(1)' }, 0.7, 1).default(0.95),
   }).prefault({}),
+  // part 2: ULS, shear, punching, deflection, cracking and the site schedules, all optional with defaults
+  ...part2InputShape,
 }
 
 type Ctx = z.RefinementCtx

@@ -6,7 +6,7 @@
  */
 import { EngineInputError } from '../contract'
 import { eccentricityIn, lowPointFraction, resolveProfile } from '../prestress/profile'
-import type { TendonProfile } from '../prestress/profile'
+import type { ProfilePiece, TendonProfile } from '../prestress/profile'
 import { requireNonNegative, requirePositive } from '../uls/inputs'
 
 export type HeightPointKind = 'support' | 'low' | 'inflection' | 'station'
@@ -19,8 +19,12 @@ export interface TendonHeightInput {
   centroidHeight: number
   /** distance between stations, mm (typically 500 or 1000) */
   spacing: number
-  /** distance from the tendon centroid down to the underside of the strand or duct, mm */
-  centroidToUnderside: number
+  /**
+   * distance from the tendon centroid down to the underside of the strand or duct, mm; two values where
+   * the strands sit off the duct centre: 'sagging' where the profile curves upwards (strands pressed to
+   * the top of the duct), 'hogging' where it curves downwards (strands on the bottom of the duct)
+   */
+  centroidToUnderside: number | { sagging: number; hogging: number }
   /** the schedule rounds heights to this, mm (5 mm is common practice); 0 leaves them unrounded */
   roundTo?: number
 }
@@ -57,7 +61,9 @@ export function tendonHeightSchedule(i: TendonHeightInput): TendonHeightSchedule
   requirePositive('centroidHeight', i.centroidHeight)
   if (i.centroidHeight >= i.h) throw new EngineInputError('centroidHeight', 'the centroid must lie within the section')
   requirePositive('spacing', i.spacing)
-  requireNonNegative('centroidToUnderside', i.centroidToUnderside)
+  const below = typeof i.centroidToUnderside === 'number' ? { sagging: i.centroidToUnderside, hogging: i.centroidToUnderside } : i.centroidToUnderside
+  requireNonNegative('centroidToUnderside.sagging', below.sagging)
+  requireNonNegative('centroidToUnderside.hogging', below.hogging)
   const roundTo = requireNonNegative('roundTo', i.roundTo ?? 5)
   const lambda = i.profile.inflection ?? 0.1
   const n = i.profile.spans.length
@@ -85,10 +91,14 @@ export function tendonHeightSchedule(i: TendonHeightInput): TendonHeightSchedule
     const spanRows = [...points.entries()]
       .sort((a, b) => a[0] - b[0])
       .map(([x, kind]) => {
-        const e = eccentricityIn(pieces[s] as NonNullable<(typeof pieces)[number]>, x)
+        const spanPieces = pieces[s] as NonNullable<(typeof pieces)[number]>
+        const e = eccentricityIn(spanPieces, x)
         const centroid = i.centroidHeight - e // e below the centroid lowers the tendon
-        const underside = centroid - i.centroidToUnderside
-        if (underside < 0 || centroid + i.centroidToUnderside > i.h) outside++
+        const c = (spanPieces.find((p) => x <= p.x1) ?? (spanPieces[spanPieces.length - 1] as ProfilePiece)).c
+        // e'' < 0: the tendon curves upwards (sagging), e'' > 0 downwards; a straight piece takes the mean
+        const drop = c < 0 ? below.sagging : c > 0 ? below.hogging : (below.sagging + below.hogging) / 2
+        const underside = centroid - drop
+        if (underside < 0 || centroid > i.h) outside++
         const chair = roundTo > 0 ? Math.round(underside / roundTo) * roundTo : underside
         return { span: s, x, xGlobal: x0 + x, kind, e, centroid, underside, chair }
       })

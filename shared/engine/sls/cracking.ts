@@ -7,8 +7,8 @@
 import { EngineInputError } from '../contract'
 import { requireNonNegative, requirePositive, requireRange } from '../uls/inputs'
 
-export const EXPOSURE_CLASSES = ['X0', 'XC1', 'XC2', 'XC3', 'XC4', 'XD1', 'XD2', 'XD3', 'XS1', 'XS2', 'XS3'] as const
-export type CrackExposure = (typeof EXPOSURE_CLASSES)[number]
+export const CRACK_EXPOSURE_CLASSES = ['X0', 'XC1', 'XC2', 'XC3', 'XC4', 'XD1', 'XD2', 'XD3', 'XS1', 'XS2', 'XS3'] as const
+export type CrackExposure = (typeof CRACK_EXPOSURE_CLASSES)[number]
 
 export type Combination = 'quasi-permanent' | 'frequent'
 
@@ -24,8 +24,8 @@ export interface CrackRequirement {
 
 /** EN 1992-1-1 Table 7.1N (recommended values); XD3 is grouped with XD1/XD2 (from memory). */
 export function crackRequirement(exposure: string, tendons: 'bonded' | 'unbonded' | 'none'): CrackRequirement {
-  if (!(EXPOSURE_CLASSES as readonly string[]).includes(exposure)) {
-    throw new EngineInputError('exposure', `Table 7.1N covers ${EXPOSURE_CLASSES.join(', ')}`)
+  if (!(CRACK_EXPOSURE_CLASSES as readonly string[]).includes(exposure)) {
+    throw new EngineInputError('exposure', `Table 7.1N covers ${CRACK_EXPOSURE_CLASSES.join(', ')}`)
   }
   const dry = exposure === 'X0' || exposure === 'XC1'
   const carbonation = /^XC[234]$/.test(exposure)

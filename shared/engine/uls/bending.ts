@@ -280,7 +280,7 @@ function solve(input: BendingInput, fcd: number, block: { lambda: number; eta: n
     const s = state(xMax)
     return { ...s, equilibrium: false }
   }
-  const x = bisect(net, 1e-6 * h, xMax, 200)
+  const x = bisect(net, 1e-6 * h, xMax, 64)
   return state(x)
 }
 
@@ -300,7 +300,7 @@ export function bendingResistance(input: BendingInput): BendingResult {
       const AsMax = 0.04 * grossArea(input.section) // 9.2.1.1(3): As,max = 0.04 Ac
       const withAs = (As: number): Solved => solve({ ...input, bars: [...(input.bars ?? []), { ...added, As }] }, fcd, block)
       const top = withAs(AsMax)
-      if (top.equilibrium && top.MRd >= MEd) AsRequired = bisect((As) => withAs(As).MRd - MEd, 0, AsMax, 60)
+      if (top.equilibrium && top.MRd >= MEd) AsRequired = bisect((As) => withAs(As).MRd - MEd, 0, AsMax, 40)
     }
   }
   return {
