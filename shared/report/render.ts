@@ -103,7 +103,9 @@ function resolveValue(env: ReportEnv, segments: readonly string[], key: string, 
     env.unresolved.push({ key, path: r.path, line })
     return { text: '—', tex: '\\text{—}', missing: true }
   }
-  return { text: valueText(value, info?.spec), tex: valueTex(value, info?.spec), missing: false }
+  // a list of numbers takes the unit and decimals of its elements
+  const spec = info?.spec ?? (info?.kind === 'array' ? describeKey(env.model, `${r.pattern}[]`, use)?.spec : undefined)
+  return { text: valueText(value, spec), tex: valueTex(value, spec), missing: false }
 }
 
 function slug(text: string): string {
