@@ -107,8 +107,8 @@ export const memberInputShape = {
       .meta(meta({ label: 'Duct', unit: '', precision: 0, group: 'tendon' })),
     ductHeight: length({ label: 'Duct height (smaller dimension)', precision: 0, group: 'tendon', symbol: 'h_d' }, 10, 200).default(20),
     ductWidth: length({ label: 'Duct width (larger dimension)', precision: 0, group: 'tendon', symbol: 'b_d' }, 10, 400).default(75),
-    bond: z.enum(['bonded', 'unbonded']).default('bonded')
     centroidOffset: length({ label: 'Tendon centroid from the duct centre, away from the face', precision: 1, group: 'tendon', symbol: '\\Delta_d', help: 'at high and low points the strands bear on the far side of the duct; left out: (duct height − strand diameter)/2' }, 0, 100).optional(),
+    bond: z.enum(['bonded', 'unbonded']).default('bonded')
       .meta(meta({ label: 'Bond', unit: '', precision: 0, group: 'tendon' })),
     coverTop: length({ label: 'Cover to duct, top', precision: 0, group: 'tendon', symbol: 'c_{top}', clause: 'EN 1992-1-1 4.4.1' }, 10, 150),
     coverBottom: length({ label: 'Cover to duct, bottom', precision: 0, group: 'tendon', symbol: 'c_{bot}', clause: 'EN 1992-1-1 4.4.1' }, 10, 150),
@@ -208,10 +208,10 @@ function refineMember(v: z.output<z.ZodObject<typeof memberInputShape>>, ctx: Ct
     issue(['tendon', 'coverBottom'], 'Covers and ducts leave no room for a drape in this depth')
   }
   if (v.tendon.ductWidth < v.tendon.ductHeight) issue(['tendon', 'ductWidth'], 'The duct width must not be less than its height')
+  if (v.tendon.centroidOffset !== undefined && v.tendon.centroidOffset > v.tendon.ductHeight / 2) issue(['tendon', 'centroidOffset'], 'The tendon centroid must lie within the duct')
   const p = v.profile
   if (p.mode === 'custom') {
     if (!p.supportEcc) issue(['profile', 'supportEcc'], 'Give the eccentricity at each support for a custom profile')
-  if (v.tendon.centroidOffset !== undefined && v.tendon.centroidOffset > v.tendon.ductHeight / 2) issue(['tendon', 'centroidOffset'], 'The tendon centroid must lie within the duct')
     if (!p.spanEcc) issue(['profile', 'spanEcc'], 'Give the eccentricity at each low point for a custom profile')
   }
   if (p.supportEcc && p.supportEcc.length !== n + 1) issue(['profile', 'supportEcc'], `Give ${n + 1} support eccentricities for ${n} spans`)

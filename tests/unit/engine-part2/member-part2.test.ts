@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest'
-import { DEMO_BB1, DEMO_PS2, designMember, inputFieldSpecs } from '../../../shared/engine/index'
+import { DEMO_BB1, DEMO_PS2, designMember, inputFieldSpecs, specFor } from '../../../shared/engine/index'
 import type { MemberInputDraft } from '../../../shared/engine/index'
 import { fieldOf, rel } from './helpers'
+import { mulberry32 } from './prng'
 
 const twoSpan: MemberInputDraft = {
   geometry: { spans: [8000, 8000] },
@@ -114,5 +115,40 @@ describe('part 2 in the member design', () => {
     expect(fieldOf(() => designMember({ ...DEMO_PS2, site: { measured: [100, 120] } }, { proposal: false }))).toBe('site.measured')
     expect(fieldOf(() => designMember({ ...DEMO_PS2, uls: { gammaG: 3 } }, { proposal: false }))).toBe('uls.gammaG')
     expect(fieldOf(() => designMember({ ...DEMO_PS2, site: { spacing: 0 } }, { proposal: false }))).toBe('site.spacing')
+  })
+})
+
+describe('part 2 over varied members (seeded)', () => {
+  it('finite results and a spec-complete shape for every option', () => {
+    const rnd = mulberry32(2417)
+    const exposures = ['XC1', 'XC3', 'XD1', 'XS1'] as const
+    for (let k = 0; k < 12; k++) {
+      const slab = rnd() < 0.5
+      const spans = Array.from({ length: 1 + Math.floor(rnd() * 4) }, () => 6000 + Math.round(rnd() * 4000))
+      const input: MemberInputDraft = slab
+        ? { ...twoSpan, geometry: { spans }, section: { kind: 'slab-strip', h: 220 + Math.round(rnd() * 80) } }
+        : { ...DEMO_BB1, geometry: { spans }, profile: { mode: 'deepest', inflection: 0.1 } }
+      const d = designMember({
+        ...input,
+        tendon: { ...input.tendon, bond: rnd() < 0.3 ? 'unbonded' : 'bonded' },
+        limits: { exposure: exposures[Math.floor(rnd() * exposures.length)] },
+        losses: { model: rnd() < 0.5 ? 'detailed' : 'percentage' },
+        uls: { combination: rnd() < 0.5 ? '6.10' : '6.10a/b', branch: rnd() < 0.5 ? 'inclined' : 'horizontal', barsBottom: { area: Math.round(rnd() * 600) }, barsTop: { area: Math.round(rnd() * 600) } },
+        ...(slab && spans.length > 1 ? { punching: { column: 'interior' as const, support: 2 } } : {}),
+        site: { spacing: rnd() < 0.5 ? 500 : 1000 },
+      }, { proposal: false })
+      const leaves: Array<[string, number]> = []
+      const walk = (v: unknown, p: string): void => {
+        if (typeof v === 'number') leaves.push([p, v])
+        else if (Array.isArray(v)) v.forEach((x, i) => walk(x, `${p}.${i}`))
+        else if (v && typeof v === 'object') for (const [key, x] of Object.entries(v)) walk(x, p ? `${p}.${key}` : key)
+      }
+      walk({ uls: d.uls, deflection: d.deflection, cracking: d.cracking, site: d.site }, '')
+      for (const [p, v] of leaves) {
+        expect(Number.isFinite(v), p).toBe(true)
+        expect(specFor(p), p).toBeDefined()
+      }
+      expect(d.uls.sections.every((s) => s.sagging === null || s.sagging.MRd > 0)).toBe(true)
+    }
   })
 })
