@@ -1,7 +1,7 @@
 // PDF rendering with puppeteer-core and the system Chromium: one browser for the process (relaunched
 // when it goes away), a fresh page per job, only our own origin reachable, a deadline per job.
 import puppeteer, { type Browser } from 'puppeteer-core'
-import { PDFDocument, PDFHexString } from 'pdf-lib'
+import { PDFArray, PDFDict, PDFDocument, PDFHexString, PDFName, PDFString, type PDFObject } from 'pdf-lib'
 
 const LAUNCH_ARGS = [
   '--no-sandbox', '--disable-gpu', '--disable-dev-shm-usage', '--disable-background-networking',
@@ -115,12 +115,57 @@ export interface FixedMetadata {
   documentId: string
 }
 
+function textOf(obj: PDFObject | undefined): string | null {
+  return obj instanceof PDFString || obj instanceof PDFHexString ? obj.decodeText() : null
+}
+
 /**
- * Same revision, same bytes: Chromium's output differs between runs only in its dates and trailer
- * /ID, so those are set from the revision (pdf-lib, no object streams) and the rest is left alone.
+ * Chromium's tagged PDF names structure elements after DOM node ids ("node00000088"), which count
+ * up across pages of one renderer process: rename them s00000001… in their own sorted order
+ * everywhere they occur (the elements' /ID, table cells' /Headers, the /IDTree name tree, whose
+ * keys stay sorted because the order is kept).
+ */
+function normaliseStructureIds(doc: PDFDocument) {
+  const ctx = doc.context
+  const ID = PDFName.of('ID')
+  const objects = ctx.enumerateIndirectObjects().map(([, obj]) => obj)
+  const names = new Set<string>()
+  for (const obj of objects) {
+    if (obj instanceof PDFDict && obj.get(PDFName.of('Type')) === PDFName.of('StructElem')) {
+      const id = textOf(obj.get(ID))
+      if (id !== null) names.add(id)
+    }
+  }
+  const renamed = new Map([...names].sort().map((n, i) => [n, PDFString.of(`s${String(i + 1).padStart(8, '0')}`)]))
+  const visit = (obj: PDFObject, depth: number) => {
+    if (depth > 64) return
+    if (obj instanceof PDFDict) {
+      for (const [key, value] of obj.entries()) {
+        const next = renamed.get(textOf(value) ?? '')
+        if (next) obj.set(key, next)
+        else visit(value, depth + 1)
+      }
+    }
+    else if (obj instanceof PDFArray) {
+      for (let i = 0; i < obj.size(); i++) {
+        const value = obj.get(i)
+        const next = renamed.get(textOf(value) ?? '')
+        if (next) obj.set(i, next)
+        else visit(value, depth + 1)
+      }
+    }
+  }
+  if (renamed.size) for (const obj of objects) visit(obj, 0)
+}
+
+/**
+ * Same revision, same bytes: Chromium's output differs between runs in its dates, its trailer /ID
+ * and the ids of its structure elements, so the first two are set from the revision, the ids are
+ * renumbered (pdf-lib, no object streams) and the rest is left alone.
  */
 export async function makeReproducible(bytes: Uint8Array, meta: FixedMetadata): Promise<{ bytes: Uint8Array, pages: number }> {
   const doc = await PDFDocument.load(bytes, { updateMetadata: false })
+  normaliseStructureIds(doc)
   doc.setTitle(meta.title)
   doc.setSubject(meta.subject)
   doc.setKeywords(meta.keywords)

@@ -27,7 +27,7 @@ beforeAll(async () => {
       return
     }
     res.setHeader('content-type', 'text/html')
-    res.end(`<html><body><h1>PS-2 stresses</h1><p>sigma ok</p><img src="${foreignOrigin}/tracker.png"><script>document.body.append('script ran')</script></body></html>`)
+    res.end(`<html><body><h1>PS-2 stresses</h1><p>sigma ok</p><table><tr><th>Check</th><th>Utilisation</th></tr><tr><td>Top fibre</td><td>0.36</td></tr></table><img src="${foreignOrigin}/tracker.png"><script>document.body.append('script ran')</script></body></html>`)
   })
   origin = await listen(own)
 })
@@ -46,10 +46,12 @@ const block: TitleBlock = {
 describe('PDF rendering (system Chromium)', { timeout: 60_000 }, () => {
   it('gives byte-identical files for the same page once dates and /ID are fixed', async () => {
     const job = { url: `${origin}/`, origin, cookies: [], headerTemplate: headerTemplate(block), footerTemplate: footerTemplate(block) }
-    const a = await renderPdf(job)
-    await new Promise(r => setTimeout(r, 1100))
-    const b = await renderPdf(job)
+    // two pages at once share a renderer process, whose DOM node counter tagged PDFs use for ids
+    const [a, b] = await Promise.all([renderPdf(job), new Promise(r => setTimeout(r, 1100)).then(() => renderPdf(job))])
     expect(sha256Hex(a)).not.toBe(sha256Hex(b))
+    const nodeIds = (bytes: Uint8Array) => Buffer.from(bytes).toString('latin1').match(/\/ID \(node\d+\)/g) ?? []
+    expect(nodeIds(a).length).toBeGreaterThan(0)
+    expect(nodeIds(a)).not.toEqual(nodeIds(b))
     const meta = { title: 't', subject: 's', keywords: ['k'], date: new Date('2026-03-02T09:00:00Z'), documentId: 'ab'.repeat(16) }
     const fixedA = await makeReproducible(a, meta)
     const fixedB = await makeReproducible(b, meta)
