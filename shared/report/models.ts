@@ -11,6 +11,7 @@ import { INPUT_GROUPS, inputFieldSpecs, memberInputSchema } from '../engine/sche
 import { getPath } from '../utils/paths'
 import { magnelSvg } from './figures/magnel'
 import { momentDiagramSvg } from './figures/moments'
+import { deflectionSvg } from './figures/deflection'
 import { forceAlongTendonSvg } from './figures/force'
 import { stressEnvelopeSvg } from './figures/stresses'
 import { PALETTE } from './figures/svg'
@@ -126,6 +127,14 @@ const figures: Record<string, ModelFigure> = {
       })
     },
   },
+  deflection: {
+    label: 'Deflection under the quasi-permanent unbalanced load, short-term and long-term',
+    render: (r) => {
+      const d = r as Design
+      const s = d.deflection.series
+      return deflectionSvg({ X: s.x, shortTerm: s.shortTerm, longTerm: s.longTerm, supportsX: supportsX(d) })
+    },
+  },
   magnel: {
     label: 'Magnel diagram of a section',
     at: 'sections[]',
@@ -161,7 +170,7 @@ function resultShape(): Map<string, ShapeKind> {
 let groups: string[] | null = null
 function checkGroups(): string[] {
   if (!groups) {
-    const found = new Set(['transfer', 'service', 'precompression', 'tendon', 'balancing'])
+    const found = new Set(['transfer', 'service', 'precompression', 'tendon', 'balancing', 'uls', 'detailing', 'sls', 'site'])
     for (const demo of [DEMO_PS2, DEMO_BB1]) for (const c of designMember(demo).checks) found.add(c.group)
     groups = [...found].sort()
   }

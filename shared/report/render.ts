@@ -9,7 +9,6 @@ import katex from 'katex'
 import type { Env, Renderer, Token } from 'markdown-it'
 import type { CheckResult } from '../engine/contract'
 import { formatQuantity } from '../utils/units'
-import { getPath } from '../utils/paths'
 import { describeKey, inputPath, resolvePath } from './bind'
 import type { KeyInfo, PathScope } from './bind'
 import type { CompiledTemplate } from './compile'
@@ -88,10 +87,27 @@ const VAL_IN_MATH = /\\val\s*\{([^{}]*)\}/g
 // Marks a summary row's section until every check table has been placed (NUL never survives markdown-it's input normalisation).
 const HOME_MARK = /\u0000home:(\d+)\u0000/g
 
+/**
+ * A value at a dot path: undefined where a key is missing (unresolved), null where the path passes
+ * through a value that does not exist (the engine's null: a part that does not apply shows as —).
+ */
+function valueAt(data: unknown, path: string): unknown {
+  if (data === null || data === undefined) return undefined
+  let node: unknown = data
+  for (const part of path.split('.')) {
+    if (node === null) return null
+    if (typeof node !== 'object') return undefined
+    node = (node as Record<string, unknown>)[part]
+  }
+  return node
+}
+
 function lookup(env: ReportEnv, info: KeyInfo, path: string): unknown {
-  if (info.source === 'result') return getPath(env.results, path)
-  const typed = getPath(env.inputs, inputPath(path))
-  return typed !== undefined ? typed : getPath(env.completedInputs, inputPath(path))
+  if (info.source === 'result') return valueAt(env.results, path)
+  const typed = valueAt(env.inputs, inputPath(path))
+  if (typed !== undefined || env.completedInputs === undefined) return typed
+  // the engine ran and completed the input: a field it left out is an optional one not given
+  return valueAt(env.completedInputs, inputPath(path)) ?? null
 }
 
 function resolveValue(env: ReportEnv, segments: readonly string[], key: string, line: number, use: 'input' | 'value' = 'value'): { text: string; tex: string; missing: boolean } {

@@ -6,7 +6,9 @@
  *   position   = "#" name        the position of the element a local name stands for: alone it prints
  *                                the element's number (from 1), inside a key it picks that position
  *   attributes = "{" ( attr ( " "+ attr )* )? "}"                 e.g. {group=transfer}, {in=sections as=s}
- *   attr       = name "=" ( bare | '"' text '"' )
+ *   attr       = name "=" ( bare | '"' text '"' )    bare: letters, digits and _ . # , -
+ *
+ * A list in an attribute (each's is=…) separates its values with commas.
  */
 
 export const INLINE_DIRECTIVES = ['in', 'val'] as const

@@ -130,6 +130,18 @@ describe('rendering a sheet', () => {
     expect(report.html).toContain('value="260"')
   })
 
+  it('shows a part the engine left out (null) or an optional input not given as —, without listing it', () => {
+    const compiled = compileBody('::: each{in=spans as=s}\n- :val[#s] :val[s.M]\n:::\n\nImposed :val[input.loads.qk], field :in[loads.qk].\n')
+    const inputs = { ...BEAM_INPUT, loads: { sdl: 0.002, qk: 0.005 } }
+    const results = runBeam(inputs) as unknown as { spans: unknown[]; input: { loads: Record<string, unknown> } }
+    results.spans[1] = null
+    results.input = { ...results.input, loads: { sdl: 0.002 } }
+    const report = renderReport(compiled, { inputs: { ...inputs, loads: { sdl: 0.002 } }, results, mode: 'frozen' })
+    expect(report.unresolved).toEqual([])
+    expect(report.html).toContain('<li><span class="tb-val">2</span> <span class="tb-val">—</span></li>')
+    expect(report.html).toContain('Imposed <span class="tb-val">—</span>, field <span class="tb-field tb-frozen" data-key="loads.qk">—</span>.')
+  })
+
   it('is deterministic: the same inputs give the same bytes, from a fresh compile too', () => {
     const results = runBeam(BEAM_INPUT)
     const a = renderReport(compileTemplate(template(SHEET), beamModel), { inputs: BEAM_INPUT, results, mode: 'print' })
