@@ -72,7 +72,7 @@ The governing force to balance the chosen load is :val[balancing.governing].
 
 /** The first built-in pt-member template seeded in the database, else the fallback above. */
 async function templateId(conn: mysql.Connection) {
-  const [rows] = await conn.query('SELECT id FROM templates WHERE model = ? AND builtin = 1 ORDER BY id ASC LIMIT 1', ['pt-member'])
+  const [rows] = await conn.query('SELECT id FROM templates WHERE model = ? AND builtin = 1 ORDER BY (slug LIKE ?) DESC, id ASC LIMIT 1', ['pt-member', '%slab%'])
   const found = (rows as Array<{ id: number }>)[0]
   if (found) return found.id
   // INSERT IGNORE: the integration and e2e runs may both get here first
