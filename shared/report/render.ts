@@ -15,7 +15,7 @@ import type { CompiledTemplate } from './compile'
 import { checkPrecision, escapeHtml, inputText, valueTex, valueText } from './format'
 import { isLocalImage, md } from './markdown'
 import type { BlockMeta, InlineMeta } from './markdown'
-import type { ReportModel } from './model'
+import type { ModelFigure, ReportModel } from './model'
 import type { MathMeta } from './parse'
 import { parseKey } from './syntax'
 
@@ -168,13 +168,26 @@ function renderMath(token: Token, display: boolean, env: ReportEnv): string {
     n += 1
     return k ? resolveValue(env, k.segments, k.key, k.line).tex : whole
   })
+  return display ? `<div class="tb-math">${typeset(tex, true)}</div>\n` : typeset(tex, false)
+}
+
+// KaTeX output depends only on the TeX and the mode; most formulas repeat from one keystroke to the next.
+const typesetCache = new Map<string, string>()
+const TYPESET_CACHE_SIZE = 4000
+
+function typeset(tex: string, display: boolean): string {
+  const key = `${display ? 'D' : 'I'}${tex}`
+  const cached = typesetCache.get(key)
+  if (cached !== undefined) return cached
   let html: string
   try {
     html = katex.renderToString(tex, { ...KATEX_OPTIONS, displayMode: display })
   } catch {
-    html = `<span class="tb-math-error">${escapeHtml(token.content)}</span>`
+    html = `<span class="tb-math-error">${escapeHtml(tex)}</span>`
   }
-  return display ? `<div class="tb-math">${html}</div>\n` : html
+  if (typesetCache.size >= TYPESET_CACHE_SIZE) typesetCache.clear()
+  typesetCache.set(key, html)
+  return html
 }
 
 function renderInput(meta: InlineMeta, env: ReportEnv): string {
@@ -367,6 +380,24 @@ function renderChecks(meta: BlockMeta, inner: readonly Token[], env: ReportEnv):
     + `<tbody>\n${body}\n</tbody></table></div>\n`
 }
 
+// A figure depends only on the results object and its `at`; the editor re-renders the same results often (memoised by input).
+const figureCache = new WeakMap<object, Map<string, string>>()
+
+function drawFigure(figure: ModelFigure, plot: string, results: unknown, at: string | undefined): string {
+  if (typeof results !== 'object' || results === null) return figure.render(results, at)
+  let drawn = figureCache.get(results)
+  if (!drawn) {
+    drawn = new Map()
+    figureCache.set(results, drawn)
+  }
+  const key = `${plot}\u0000${at ?? ''}`
+  const cached = drawn.get(key)
+  if (cached !== undefined) return cached
+  const svg = figure.render(results, at)
+  drawn.set(key, svg)
+  return svg
+}
+
 function renderFigure(meta: BlockMeta, inner: readonly Token[], env: ReportEnv): string {
   const plot = meta.attrs.plot ?? ''
   const figure = env.model.figures[plot]
@@ -382,7 +413,7 @@ function renderFigure(meta: BlockMeta, inner: readonly Token[], env: ReportEnv):
   else if (env.results === null || env.results === undefined) drawing = '<p class="tb-missing">No results yet: the figure appears once the inputs are complete.</p>'
   else {
     try {
-      drawing = figure.render(env.results, at)
+      drawing = drawFigure(figure, plot, env.results, at)
     } catch (error) {
       drawing = `<p class="tb-missing">The figure could not be drawn: ${escapeHtml(error instanceof Error ? error.message : String(error))}</p>`
     }

@@ -74,12 +74,14 @@ export function dashAttr(dash: Dash): string {
 /** Axis ticks, grid lines and labels for a linear scale. */
 export function xAxis(f: Frame, x: ScaleLinear<number, number>, label: string, ticks = 10): string {
   const y0 = f.height - f.bottom
-  const parts = x.ticks(ticks).map((t) => vline(x(t), f.top, y0, PALETTE.grid) + text(x(t), y0 + 14, x.tickFormat(ticks)(t).replace('-', '−'), 'text-anchor="middle"'))
+  const format = x.tickFormat(ticks)
+  const parts = x.ticks(ticks).map((t) => vline(x(t), f.top, y0, PALETTE.grid) + text(x(t), y0 + 14, format(t).replace('-', '−'), 'text-anchor="middle"'))
   return parts.join('') + hline(f.left, f.width - f.right, y0, PALETTE.axis) + text((f.left + f.width - f.right) / 2, f.height - 8, label, 'text-anchor="middle"')
 }
 
 export function yAxis(f: Frame, y: ScaleLinear<number, number>, label: string, ticks = 6): string {
-  const parts = y.ticks(ticks).map((t) => hline(f.left, f.width - f.right, y(t), PALETTE.grid) + text(f.left - 6, y(t) + 4, y.tickFormat(ticks)(t).replace('-', '−'), 'text-anchor="end"'))
+  const format = y.tickFormat(ticks)
+  const parts = y.ticks(ticks).map((t) => hline(f.left, f.width - f.right, y(t), PALETTE.grid) + text(f.left - 6, y(t) + 4, format(t).replace('-', '−'), 'text-anchor="end"'))
   const cx = 14
   const cy = (f.top + f.height - f.bottom) / 2
   return parts.join('') + vline(f.left, f.top, f.height - f.bottom, PALETTE.axis) + `<text x="${n(cx)}" y="${n(cy)}" transform="rotate(-90 ${n(cx)} ${n(cy)})" text-anchor="middle" fill="${PALETTE.ink}">${esc(label)}</text>`

@@ -11,6 +11,8 @@ import { clipLine, magnelSvg } from '../../../shared/report/figures/magnel'
 import { tendonProfileSvg } from '../../../shared/report/figures/tendon'
 import { n } from '../../../shared/report/figures/svg'
 import { ptMemberModel } from '../../../shared/report/models'
+import { compileTemplate } from '../../../shared/report/compile'
+import { renderReport } from '../../../shared/report/render'
 import { startTags } from './helpers'
 
 const SVG_TAGS = new Set(['svg', 'title', 'g', 'path', 'line', 'rect', 'text', 'circle'])
@@ -53,6 +55,17 @@ describe.each(Object.entries(ptMemberModel.figures))('figure %s', (name, figure)
     for (const v of numbersIn(svg)) expect(v, `${name}: ${v}`).toMatch(/^-?\d+(\.\d)?$/)
     expect(svg).not.toMatch(/NaN|Infinity|undefined/)
     expect(figure.render(designMember(sheet === 'PS-2' ? DEMO_PS2 : DEMO_BB1), undefined)).toBe(svg)
+  })
+})
+
+describe('a figure of one element', () => {
+  it('draws the Magnel diagram of the section an each block stands at', () => {
+    const text = '---\nmodel: pt-member\ntitle: t\nversion: 1\n---\n::: each{in=sections as=s where=s.kind is=lowPoint}\n::: figure{plot=magnel at=s}\n:val[s.label]\n:::\n:::\n'
+    const design = DESIGNS['PS-2']!
+    const report = renderReport(compileTemplate(text, ptMemberModel), { inputs: DEMO_PS2, results: design, mode: 'print' })
+    const lows = design.sections.filter((s) => s.kind === 'lowPoint').map((s) => s.label)
+    expect([...report.html.matchAll(/aria-label="Magnel diagram, ([^"]+)"/g)].map((m) => m[1])).toEqual(lows)
+    expect(report.unresolved).toEqual([])
   })
 })
 
