@@ -7,10 +7,13 @@
 /** One problem in a template. */
 export class TemplateError extends Error {
   readonly line: number
+  /** the problem without its line, for a list that shows the line in a column of its own */
+  readonly detail: string
   constructor(line: number, message: string) {
     super(`line ${line}: ${message}`)
     this.name = 'TemplateError'
     this.line = line
+    this.detail = message
   }
 }
 

@@ -48,6 +48,7 @@ describe('binding keys to the model', () => {
     expect(error.errors).toHaveLength(4)
     expect(keyErrors[1]!.message).toMatch(/did you mean input\.loads\.sdl/)
     expect(error.message).toContain(`line ${BODY_LINE + 2}: unknown key "geometry.hh"`)
+    expect(keyErrors[0]!.detail).toMatch(/^unknown key "geometry.hh"/)
   })
 
   it('counts lines in the whole template, front matter included, and through CRLF line ends', () => {

@@ -13,6 +13,7 @@ import { loadBuiltinTemplates } from '../../../shared/report/builtins/node'
 import { textsModule } from '../../../shared/report/builtins/sync'
 import { compileTemplate, lintTemplate } from '../../../shared/report/compile'
 import { TemplateKeyError } from '../../../shared/report/errors'
+import { templateLanguageHelpHtml } from '../../../shared/report/help'
 import { MODELS, ptMemberModel } from '../../../shared/report/models'
 import { REPORT_CAUTION, renderReport } from '../../../shared/report/render'
 import { startTags } from './helpers'
@@ -107,6 +108,16 @@ describe.each(BUILTIN_TEMPLATES.map((t) => [t.id, t] as const))('built-in templa
 })
 
 describe('the language doc', () => {
+  it('renders as a plain help page: directives stay text, headings get ids', () => {
+    const { html, headings } = templateLanguageHelpHtml()
+    expect(headings[0]).toEqual({ id: 'doc-the-calc-sheet-template-language', title: 'The calc-sheet template language', level: 1 })
+    expect(headings.map((h) => h.title)).toContain('A worked example')
+    expect(html).toContain('<code>:val[input.loads.superimposed]</code>')
+    expect(html).not.toContain('tb-val')
+    expect(html).not.toContain('<input')
+    expect(templateLanguageHelpHtml('<script>alert(1)</script>').html).toBe('<p>&lt;script&gt;alert(1)&lt;/script&gt;</p>\n')
+  })
+
   const example = /## A worked example[\s\S]*?```markdown\n([\s\S]*?)\n```/.exec(TEMPLATE_LANGUAGE_DOC)![1]!
 
   it('has a worked example that loads and renders the demo sheet with every key resolved', () => {
