@@ -14,7 +14,7 @@ export type { ModelFigure, ModelInputField, ReportModel, ShapeKind } from './mod
 export { describeKey } from './bind'
 export type { KeyInfo } from './bind'
 export { BLOCK_DIRECTIVES, INLINE_DIRECTIVES, parseKey } from './syntax'
-export { MODELS, MODEL_INPUT_SCHEMAS, ptMemberModel } from './models'
+export { MODELS, ptMemberModel } from './models'
 export { BUILTIN_TEMPLATES, TEMPLATE_LANGUAGE_DOC, builtinTemplate } from './builtins/index'
 export type { BuiltinId, BuiltinTemplate } from './builtins/index'
 export { templateLanguageHelpHtml } from './help'

@@ -177,8 +177,10 @@ function checkGroups(): string[] {
   return groups
 }
 
-export const ptMemberModel: ReportModel = {
+/** The model with its input schema (zod), for the editor's form and for parsing uploaded inputs. */
+export const ptMemberModel: ReportModel & { inputSchema: typeof memberInputSchema } = {
   id: 'pt-member',
+  inputSchema: memberInputSchema,
   label: 'Post-tensioned continuous member (EN 1992-1-1)',
   inputFields: inputFieldSpecs(),
   inputGroups: INPUT_GROUPS,
@@ -198,6 +200,3 @@ export const ptMemberModel: ReportModel = {
 
 /** Models by the name templates give in their front matter. */
 export const MODELS: Readonly<Record<string, ReportModel>> = { 'pt-member': ptMemberModel }
-
-/** The engine's input schema for a model, for the editor's form and for parsing uploads. */
-export const MODEL_INPUT_SCHEMAS = { 'pt-member': memberInputSchema } as const
