@@ -1,7 +1,7 @@
 import { defineStore } from 'pinia'
 import { inputFieldSpecs, memberInputSchema } from '~/shared/engine/schema'
 import { fieldErrors, type FieldErrors } from '~/shared/utils/validation'
-import { getPath, mergePatch, setPath } from '~/shared/utils/paths'
+import { clonePlain, getPath, mergePatch, setPath } from '~/shared/utils/paths'
 import { runSheet, renderSheet, compileSheet, type SheetRun } from '~/shared/sheet/runtime'
 
 export interface SheetPayload {
@@ -24,6 +24,7 @@ export type SaveState = 'saved' | 'pending' | 'saving' | 'invalid' | 'conflict' 
 interface UndoEntry { label: string, inputs: Record<string, unknown>, path?: string, at: number }
 
 const SAVE_DELAY_MS = 800
+const FULL_RUN_DELAY_MS = 350
 const COALESCE_MS = 1200
 const MAX_UNDO = 100
 
@@ -51,7 +52,24 @@ export const useSheetStore = defineStore('sheet', () => {
     return parsed.success ? { ok: true as const, value: parsed.data, errors: {} as FieldErrors } : { ok: false as const, errors: fieldErrors(parsed.error) }
   })
 
-  const run = computed<SheetRun | null>(() => (validation.value.ok ? runSheet(validation.value.value) : null))
+  // Every change runs the engine at once without the proposal search (the costly part); the full
+  // run with the proposal follows when typing pauses. The first run of a sheet is always full.
+  const fullRun = shallowRef<{ key: string, run: SheetRun } | null>(null)
+  const inputKey = computed(() => JSON.stringify(inputs.value))
+  let fullTimer: ReturnType<typeof setTimeout> | undefined
+  const run = computed<SheetRun | null>(() => {
+    if (!validation.value.ok) return null
+    if (fullRun.value?.key === inputKey.value) return fullRun.value.run
+    return runSheet(validation.value.value, { proposal: false })
+  })
+  watch(inputKey, (key) => {
+    clearTimeout(fullTimer)
+    if (!validation.value.ok || fullRun.value?.key === key) return
+    const value = validation.value.value
+    fullTimer = setTimeout(() => {
+      if (inputKey.value === key) fullRun.value = { key, run: runSheet(value) }
+    }, FULL_RUN_DELAY_MS)
+  })
 
   const errors = computed<FieldErrors>(() => {
     const out: FieldErrors = { ...validation.value.errors, ...typingErrors.value }
@@ -70,7 +88,8 @@ export const useSheetStore = defineStore('sheet', () => {
 
   function load(payload: SheetPayload) {
     sheet.value = payload
-    inputs.value = structuredClone(payload.inputs)
+    inputs.value = clonePlain(payload.inputs)
+    fullRun.value = validation.value.ok ? { key: inputKey.value, run: runSheet(validation.value.value) } : null
     draftVersion.value = payload.draftVersion
     saveState.value = 'saved'
     savedAt.value = payload.updatedAt
@@ -87,7 +106,7 @@ export const useSheetStore = defineStore('sheet', () => {
       last.at = now
       return
     }
-    undoStack.value.push({ label, inputs: structuredClone(toRaw(inputs.value)), path, at: now })
+    undoStack.value.push({ label, inputs: clonePlain(inputs.value), path, at: now })
     if (undoStack.value.length > MAX_UNDO) undoStack.value.shift()
     redoStack.value = []
   }
@@ -137,7 +156,7 @@ export const useSheetStore = defineStore('sheet', () => {
 
   function replaceInputs(label: string, next: Record<string, unknown>) {
     remember(label)
-    inputs.value = structuredClone(next)
+    inputs.value = clonePlain(next)
     typingErrors.value = {}
     scheduleSave()
   }
@@ -145,7 +164,7 @@ export const useSheetStore = defineStore('sheet', () => {
   function undo() {
     const entry = undoStack.value.pop()
     if (!entry) return
-    redoStack.value.push({ label: entry.label, inputs: structuredClone(toRaw(inputs.value)), at: Date.now() })
+    redoStack.value.push({ label: entry.label, inputs: clonePlain(inputs.value), at: Date.now() })
     inputs.value = entry.inputs
     typingErrors.value = {}
     scheduleSave()
@@ -154,7 +173,7 @@ export const useSheetStore = defineStore('sheet', () => {
   function redo() {
     const entry = redoStack.value.pop()
     if (!entry) return
-    undoStack.value.push({ label: entry.label, inputs: structuredClone(toRaw(inputs.value)), at: Date.now() })
+    undoStack.value.push({ label: entry.label, inputs: clonePlain(inputs.value), at: Date.now() })
     inputs.value = entry.inputs
     scheduleSave()
   }
@@ -179,7 +198,7 @@ export const useSheetStore = defineStore('sheet', () => {
       return
     }
     saveState.value = 'saving'
-    const body = { inputs: structuredClone(toRaw(inputs.value)), draftVersion: draftVersion.value }
+    const body = { inputs: clonePlain(inputs.value), draftVersion: draftVersion.value }
     inFlight = (async () => {
       try {
         const res = await $fetch<{ draftVersion: number, savedAt: string }>(`/api/sheets/${sheet.value!.id}/draft`, { method: 'PUT', body })

@@ -19,6 +19,8 @@ export const DEMO_PS2: MemberInputDraft = {
     balanceSelfWeight: 0.9, balanceSuperimposed: 0, balanceImposed: 0,
   },
   limits: { exposure: 'XC1' },
+  // H12 at 200 top over the supports (invented demo detailing)
+  uls: { barsTop: { area: 565, diameter: 12, cover: 25 } },
 }
 
 /** BB-1: band beam, three spans 8.1 / 10.2 / 8.1 m, band 2400 × 400 with a 220 mm slab, C40/50. */
@@ -36,4 +38,6 @@ export const DEMO_BB1: MemberInputDraft = {
     balanceSelfWeight: 0.9, balanceSuperimposed: 0, balanceImposed: 0,
   },
   limits: { exposure: 'XC1' },
+  // 12 H16 top over the supports within the band (invented demo detailing)
+  uls: { barsTop: { area: 2413, diameter: 16, cover: 30 } },
 }

@@ -4,7 +4,7 @@
  */
 import Papa from 'papaparse'
 import { DISPLAY_UNITS, fromEngine, isDisplayUnit, toEngine, type DisplayUnit } from '../utils/units'
-import { getPath, leafPaths, setPath } from '../utils/paths'
+import { clonePlain, getPath, leafPaths, setPath } from '../utils/paths'
 
 export const INPUTS_FORMAT = 'tendonbook-inputs/1'
 
@@ -66,7 +66,7 @@ function importCsv(text: string, base: unknown, fields: FieldUnit[]) {
   const problems: string[] = parsed.errors.map(e => `line ${(e.row ?? 0) + 1}: ${e.message}`)
   const header = rows[0]?.map(h => h.trim().toLowerCase())
   if (!header || header[0] !== 'field' || header[1] !== 'value') throw new InputsFileError(['line 1: the header must be "field,value,unit"'])
-  let inputs = structuredClone(base) as Record<string, unknown>
+  let inputs = clonePlain(base) as Record<string, unknown>
   rows.slice(1).forEach((row, i) => {
     const line = i + 2
     const [path = '', raw = '', unitText = ''] = row.map(c => c.trim())

@@ -29,9 +29,9 @@ export function sampleInputs(slug = ''): MemberInput {
 }
 
 /** Runs the engine; bad input comes back as the field it names, never as an exception. */
-export function runSheet(inputs: unknown): SheetRun {
+export function runSheet(inputs: unknown, options: { proposal?: boolean } = {}): SheetRun {
   try {
-    return { ok: true, design: designMember(inputs) }
+    return { ok: true, design: designMember(inputs, { proposal: options.proposal ?? true }) }
   }
   catch (error) {
     if (error instanceof EngineInputError) return { ok: false, field: error.field, message: error.message.replace(`${error.field}: `, '') }
@@ -79,6 +79,7 @@ export function renderSheet(template: CompiledTemplate, inputs: unknown, design:
 /** The engine's proposal as an input patch, or the reason there is none. */
 export function proposalOf(design: Design): { patch: Record<string, unknown> | null, reason: string } {
   const p = design.proposal
+  if (!p.feasible && p.reason === 'not computed') return { patch: null, reason: 'Working out the proposal…' }
   if (p.feasible && p.inputPatch) return { patch: p.inputPatch as Record<string, unknown>, reason: 'Apply the least force and the eccentricities that pass every stress check' }
   return { patch: null, reason: p.reason ?? 'No proposal' }
 }

@@ -2,6 +2,11 @@
 
 export type Json = null | boolean | number | string | Json[] | { [key: string]: Json }
 
+/** A deep copy of plain JSON data; works on reactive proxies too (structuredClone does not). */
+export function clonePlain<T>(data: T): T {
+  return data === undefined ? data : JSON.parse(JSON.stringify(data)) as T
+}
+
 export function getPath(data: unknown, path: string): unknown {
   let node: unknown = data
   for (const part of path.split('.')) {
@@ -14,7 +19,7 @@ export function getPath(data: unknown, path: string): unknown {
 /** A copy of `data` with `value` at `path`; intermediate objects/arrays are created as needed. */
 export function setPath<T>(data: T, path: string, value: unknown): T {
   const parts = path.split('.')
-  const copy = structuredClone(data) as Record<string, unknown>
+  const copy = clonePlain(data) as Record<string, unknown>
   let node: Record<string, unknown> = copy
   parts.forEach((part, i) => {
     if (i === parts.length - 1) {
@@ -30,10 +35,10 @@ export function setPath<T>(data: T, path: string, value: unknown): T {
 
 /** Deep merge of a partial patch into data (arrays are replaced, not merged). */
 export function mergePatch<T>(data: T, patch: unknown): T {
-  if (patch === null || typeof patch !== 'object' || Array.isArray(patch)) return structuredClone(patch) as T
-  const out = (data !== null && typeof data === 'object' && !Array.isArray(data) ? structuredClone(data) : {}) as Record<string, unknown>
+  if (patch === null || typeof patch !== 'object' || Array.isArray(patch)) return clonePlain(patch) as T
+  const out = (data !== null && typeof data === 'object' && !Array.isArray(data) ? clonePlain(data) : {}) as Record<string, unknown>
   for (const [key, value] of Object.entries(patch as Record<string, unknown>)) {
-    out[key] = value !== null && typeof value === 'object' && !Array.isArray(value) ? mergePatch(out[key], value) : structuredClone(value)
+    out[key] = value !== null && typeof value === 'object' && !Array.isArray(value) ? mergePatch(out[key], value) : clonePlain(value)
   }
   return out as T
 }

@@ -56,9 +56,10 @@ describe('part 2 in the member design', () => {
   })
 
   it('the passive steel proposed, added to the input, makes the bending checks pass', () => {
-    const short = d.checks.find((c) => c.id === 'uls.bending.hogging')!
-    expect(short.pass).toBe(false) // the demo slab is short over the supports at ULS without top bars
-    const again = designMember({ ...DEMO_PS2, uls: { barsTop: { area: Math.ceil(d.uls.proposal.AsTop as number) }, barsBottom: { area: Math.ceil(d.uls.proposal.AsBottom as number) } } }, { proposal: false })
+    // the demo slab without its top bars is short over the supports at ULS
+    const bare = designMember({ ...DEMO_PS2, uls: {} }, { proposal: false })
+    expect(bare.checks.find((c) => c.id === 'uls.bending.hogging')!.pass).toBe(false)
+    const again = designMember({ ...DEMO_PS2, uls: { barsTop: { area: Math.ceil(bare.uls.proposal.AsTop as number) }, barsBottom: { area: Math.ceil(bare.uls.proposal.AsBottom as number) } } }, { proposal: false })
     for (const id of ['uls.bending.sagging', 'uls.bending.hogging']) expect(again.checks.find((c) => c.id === id)?.pass, id).toBe(true)
   })
 
