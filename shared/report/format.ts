@@ -4,7 +4,7 @@
  * engine units happens here, at the edge, through shared/utils/units.ts.
  */
 import type { QuantitySpec } from '../engine/contract'
-import { DISPLAY_UNITS, formatQuantity, fromEngine } from '../utils/units'
+import { DISPLAY_UNITS, formatQuantity, fromEngine, numberParts } from '../utils/units'
 import type { DisplayUnit } from '../utils/units'
 
 export function escapeHtml(text: string): string {
@@ -63,12 +63,12 @@ export function valueText(value: unknown, spec: QuantitySpec | undefined): strin
 /** A value as TeX: numbers as \text{…} with \,\mathrm{unit}; text escaped inside \text{…}. */
 export function valueTex(value: unknown, spec: QuantitySpec | undefined): string {
   if (typeof value === 'number' && Number.isFinite(value) && spec) {
-    const shown = fromEngine(value, spec.unit)
-    const digits = Math.abs(shown).toFixed(Math.max(0, spec.precision))
-    const negative = shown < 0 && !/^0(\.0+)?$/.test(digits)
+    const { digits, exponent, negative } = numberParts(fromEngine(value, spec.unit), spec.precision)
     const unit = unitTex(spec.unit)
     const sep = unit === '' || unit === '\\%' || unit.startsWith('^') ? '' : '\\,'
-    return `${negative ? '-' : ''}\\text{${digits}}${unit ? sep + unit : ''}`
+    const number = `\\text{${digits.replace(/\u2009/g, '\\,')}}`.replace(/\\,/g, '}\\,\\text{')
+    const power = exponent === null ? '' : ` \\times 10^{${exponent}}`
+    return `${negative ? '-' : ''}${number}${power}${unit ? sep + unit : ''}`
   }
   if (typeof value === 'number' && Number.isFinite(value)) return `\\text{${formatPlain(value).replace('−', '-')}}`
   return `\\text{${escapeTexText(valueText(value, spec))}}`

@@ -48,11 +48,31 @@ export function fromEngine(value: number, unit: DisplayUnit): number {
   return value / DISPLAY_UNITS[unit].factor
 }
 
+/**
+ * How a shown number is written: large magnitudes as a mantissa and a power of ten (1.465 × 10⁹),
+ * five-digit and longer integers parts grouped by thousands with a thin space (260 000).
+ */
+export function numberParts(shown: number, precision: number): { digits: string, exponent: number | null, negative: boolean } {
+  const abs = Math.abs(shown)
+  if (abs >= 1e7) {
+    const exponent = Math.floor(Math.log10(abs))
+    const mantissa = (abs / 10 ** exponent).toFixed(3)
+    return { digits: mantissa, exponent, negative: shown < 0 }
+  }
+  const fixed = abs.toFixed(Math.max(0, precision))
+  const [whole, fraction] = fixed.split('.') as [string, string | undefined]
+  const grouped = whole.length > 4 ? whole.replace(/\B(?=(\d{3})+(?!\d))/g, '\u2009') : whole
+  const negative = shown < 0 && !/^0(\.0+)?$/.test(fixed)
+  return { digits: fraction === undefined ? grouped : `${grouped}.${fraction}`, exponent: null, negative }
+}
+
+const SUPERSCRIPT: Record<string, string> = { '0': '⁰', '1': '¹', '2': '²', '3': '³', '4': '⁴', '5': '⁵', '6': '⁶', '7': '⁷', '8': '⁸', '9': '⁹', '-': '⁻' }
+
 /** Engine value → text in the display unit, to `precision` decimals, with the unit (thin space). */
 export function formatQuantity(value: number, unit: DisplayUnit, precision: number): string {
   if (!Number.isFinite(value)) return '—'
-  const shown = fromEngine(value, unit)
-  const text = shown.toFixed(Math.max(0, precision)).replace('-', '−')
-  const clean = /^−0(\.0+)?$/.test(text) ? text.slice(1) : text
-  return unit ? `${clean}\u202f${DISPLAY_UNITS[unit].label}` : clean
+  const { digits, exponent, negative } = numberParts(fromEngine(value, unit), precision)
+  const power = exponent === null ? '' : ` × 10${String(exponent).replace(/./g, c => SUPERSCRIPT[c] ?? c)}`
+  const text = `${negative ? '−' : ''}${digits}${power}`
+  return unit ? `${text}\u202f${DISPLAY_UNITS[unit].label}` : text
 }

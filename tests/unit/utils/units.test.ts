@@ -24,3 +24,13 @@ describe('display units', () => {
     expect(formatQuantity(0.35, '', 2)).toBe('0.35')
   })
 })
+
+describe('large numbers', () => {
+  // ISO 80000-1 7.3.1: digits grouped in threes with a thin space; powers of ten for large magnitudes
+  it('groups five-digit whole parts and writes large magnitudes with a power of ten', () => {
+    expect(formatQuantity(260000, 'mm²', 0)).toBe('260\u2009000\u202fmm²')
+    expect(formatQuantity(2600, 'mm²', 0)).toBe('2600\u202fmm²')
+    expect(formatQuantity(1464666667, 'mm⁴', 0)).toBe('1.465 × 10⁹\u202fmm⁴')
+    expect(formatQuantity(-11266667, 'mm³', 0)).toBe('−1.127 × 10⁷\u202fmm³')
+  })
+})
