@@ -27,7 +27,8 @@ export async function addressesWithRole(tx: Tx, ...roles: Role[]) {
 
 /**
  * Sends what is due. Each message is claimed first (its next attempt pushed a minute ahead), so two
- * runners never send it twice; a failure is retried with a growing wait, then marked failed.
+ * runners (or two servers on one database) never send it twice; a failure is retried with a growing
+ * wait, then marked failed.
  */
 export async function deliverOutbox(limit = 20) {
   const db = useDb()
@@ -36,8 +37,9 @@ export async function deliverOutbox(limit = 20) {
   let sent = 0
   let failed = 0
   for (const message of due) {
+    // the claim moves the next attempt past now, so a second runner's identical claim matches nothing
     const claim = await db.update(o).set({ nextAttemptAt: new Date(Date.now() + 60_000) })
-      .where(and(eq(o.id, message.id), eq(o.state, 'pending'), eq(o.attempts, message.attempts)))
+      .where(and(eq(o.id, message.id), eq(o.state, 'pending'), lte(o.nextAttemptAt, new Date())))
     if ((claim as unknown as [{ affectedRows: number }])[0].affectedRows !== 1) continue
     try {
       await sendMail({ to: message.toAddresses.split(','), subject: message.subject, text: message.bodyText })

@@ -1,9 +1,12 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { readdirSync, readFileSync } from 'node:fs'
+import { join } from 'node:path'
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import type { Browser, Page } from 'playwright-core'
 import { DEMO_PS2 } from '../../shared/engine/demo'
 import { sha256Hex } from '../../server/utils/hashing'
 import { launch, newPage, screenshot, signInAs } from '../helpers/browser'
-import { makeSheet, session, setSheetInputs } from '../integration/records-fixtures'
+import { makeSheet, session, setSheetInputs, waitForMail } from '../integration/records-fixtures'
+import { DEMO } from '../helpers/client'
 
 let browser: Browser
 beforeAll(async () => { browser = await launch() })
@@ -110,11 +113,19 @@ describe('issue → check → return → issue → approve → seal → verify, 
     }, { timeout: 30_000, intervals: [1000] }).toContain('Every chain is intact')
     await screenshot(admin, 'records-archive')
 
-    // the dev mailbox page shows the notices
+    // the notices reach an SMTP peer, and the dev mailbox page shows what this server's peer received
+    await waitForMail(m => m.to.includes(DEMO.engineer.email) && m.raw.includes('approved as C01') && m.raw.includes(`/revisions/${id}`))
+    const own = inject('mailboxDir')
+    const newest = readdirSync(own).filter(f => f.endsWith('.json')).sort().at(-1)
     await admin.goto('/mailbox')
-    await expect.poll(async () => {
-      await admin.reload()
-      return admin.locator('[data-test=mailbox]').textContent()
-    }, { timeout: 30_000, intervals: [1000] }).toContain('approved as C01')
+    await admin.waitForLoadState('networkidle')
+    if (newest) {
+      const raw = (JSON.parse(readFileSync(join(own, newest), 'utf8')) as { raw: string }).raw
+      const subject = /^Subject: (.*)$/m.exec(raw)![1]!.trim()
+      await expect.poll(() => admin.locator('[data-test=mailbox]').textContent()).toContain(subject)
+    }
+    else {
+      await expect.poll(() => admin.locator('[data-test=mailbox]').textContent()).toContain('No messages yet')
+    }
   })
 })

@@ -2,7 +2,7 @@
 // (so these tests depend only on the records side), sessions that can also send multipart bodies,
 // root access for the tests that try to rewrite history, and the SMTP peer's mailbox.
 import { readdirSync, readFileSync } from 'node:fs'
-import { join, resolve } from 'node:path'
+import { dirname, join, resolve } from 'node:path'
 import mysql from 'mysql2/promise'
 import { inject } from 'vitest'
 import { DEMO_PS2 } from '../../shared/engine/demo'
@@ -130,14 +130,21 @@ export function triggerSql(name: string) {
 
 export interface ReceivedMail { to: string[], raw: string, file: string }
 
-/** Waits until a message matching `match` reaches the SMTP peer. */
+/**
+ * Waits until a message matching `match` reaches an SMTP peer. The integration and e2e servers share
+ * the test database and so its outbox: whichever server claims a message sends it to its own peer,
+ * so every peer's folder (mailbox-*) beside ours is searched.
+ */
 export async function waitForMail(match: (m: ReceivedMail) => boolean, timeoutMs = 30_000): Promise<ReceivedMail> {
-  const dir = inject('mailboxDir')
+  const parent = dirname(inject('mailboxDir'))
   const until = Date.now() + timeoutMs
   for (;;) {
-    for (const file of readdirSync(dir).filter(f => f.endsWith('.json'))) {
-      const m = { ...(JSON.parse(readFileSync(join(dir, file), 'utf8')) as { to: string[], raw: string }), file }
-      if (match(m)) return m
+    const dirs = readdirSync(parent).filter(d => d.startsWith('mailbox')).map(d => join(parent, d))
+    for (const dir of dirs) {
+      for (const file of readdirSync(dir).filter(f => f.endsWith('.json'))) {
+        const m = { ...(JSON.parse(readFileSync(join(dir, file), 'utf8')) as { to: string[], raw: string }), file: join(dir, file) }
+        if (match(m)) return m
+      }
     }
     if (Date.now() > until) throw new Error('the expected e-mail did not arrive')
     await new Promise(r => setTimeout(r, 300))
