@@ -18,7 +18,9 @@ async function issueFromHistory(page: Page, sheetId: number, note: string) {
   await page.fill('#issue-note', note)
   await page.click('[data-test=issue-revision]')
   await expect.poll(() => page.locator('[data-test=issue-ok]').textContent(), { timeout: 20_000 }).toContain('issued for check')
+  const issued = (await page.locator('[data-test=issue-ok]').textContent())!.split(' ')[0]!
   const link = page.locator('[data-test=revisions-table] tbody tr').first().locator('a')
+  await expect.poll(() => link.textContent()).toContain(issued)
   return { code: (await link.textContent())!.trim(), href: (await link.getAttribute('href'))! }
 }
 
