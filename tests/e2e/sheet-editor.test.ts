@@ -54,23 +54,28 @@ describe('the calc-sheet editor', () => {
     await expect.poll(() => page.locator('[data-test=save-state]').innerText(), { timeout: 10_000 }).toMatch(/^Saved/)
   })
 
-  it('applies the proposal as one undoable step', async () => {
-    const id = await demoSheetId('BB-1')
+  it('applies the proposal as one undoable step that makes failing stress checks pass', async () => {
+    const id = await demoSheetId('PS-2')
     const page = await newPage(browser)
     await signInAs(page, 'engineer')
     await openSheet(page, id)
-    const before = await page.locator('[data-test=report]').innerText()
+    // too few tendons: the stress checks fail
+    const spacing = page.locator('[data-path="tendon.spacing"] input')
+    await spacing.fill('1500')
+    await spacing.blur()
+    await expect.poll(() => page.locator('[data-test=check-state]').innerText()).toMatch(/checks fail/)
+    const failing = await page.locator('[data-test=check-state]').innerText()
     const propose = page.locator('[data-test=propose]')
-    if (await propose.isEnabled()) {
-      await propose.click()
-      await expect.poll(() => page.locator('[data-test=report]').innerText()).not.toBe(before)
-      await expect.poll(() => page.locator('[data-test=check-state]').innerText()).toMatch(/All \d+ checks pass|checks fail/)
-      await page.locator('[data-test=undo]').click()
-      await expect.poll(() => page.locator('[data-test=report]').innerText()).toBe(before)
-    }
-    else {
-      await expect.poll(() => page.locator('[data-test=proposal-reason]').innerText()).toMatch(/No proposal/)
-    }
+    await expect.poll(() => propose.isEnabled(), { timeout: 10_000 }).toBe(true)
+    await propose.click()
+    await expect.poll(() => page.locator('[data-test=check-state]').innerText(), { timeout: 10_000 }).not.toBe(failing)
+    expect(Number(await spacing.inputValue())).toBeLessThan(1500)
+    await screenshot(page, 'sheet-ps2-proposal')
+    await page.locator('[data-test=undo]').click()
+    await expect.poll(() => spacing.inputValue()).toBe('1500')
+    await expect.poll(() => page.locator('[data-test=check-state]').innerText()).toBe(failing)
+    await page.locator('[data-test=undo]').click()
+    await expect.poll(() => page.locator('[data-test=save-state]').innerText(), { timeout: 10_000 }).toMatch(/^Saved/)
   })
 
   it('refuses an inputs file with bad lines, naming each, and changes nothing', async () => {
