@@ -9,6 +9,7 @@ import { start, stop, serverEnv } from './db.mjs'
 import { seed } from './seed.mjs'
 import { buildIfNeeded } from './build.mjs'
 import { startMailPeer } from './mail-peer.mjs'
+import { issueDemoRevision } from './demo-revision.mjs'
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '..')
 const dev = process.argv.includes('--dev')
@@ -41,6 +42,7 @@ async function main() {
     server = spawn(process.execPath, [join(root, '.output', 'server', 'index.mjs')], { cwd: root, stdio: 'inherit', env })
   }
   await waitForServer(`http://127.0.0.1:${port}/api/health`, 120)
+  await issueDemoRevision(`http://127.0.0.1:${port}`).catch(error => process.stderr.write(`[demo] could not issue the demo revision: ${error.message}\n`))
   process.stdout.write([
     '',
     `Tendonbook is running: http://localhost:${port}`,
