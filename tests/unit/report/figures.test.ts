@@ -14,21 +14,10 @@ import { ptMemberModel } from '../../../shared/report/models'
 import { compileTemplate } from '../../../shared/report/compile'
 import { renderReport } from '../../../shared/report/render'
 import { startTags } from './helpers'
+import { prng } from '../../helpers/prng'
 
 const SVG_TAGS = new Set(['svg', 'title', 'g', 'path', 'line', 'rect', 'text', 'circle'])
 const DESIGNS: Record<string, Design> = { 'PS-2': designMember(DEMO_PS2), 'BB-1': designMember(DEMO_BB1) }
-
-/** mulberry32, a small seeded PRNG so that failures reproduce */
-function prng(seed: number): () => number {
-  let a = seed >>> 0
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0
-    let t = a
-    t = Math.imul(t ^ (t >>> 15), t | 1)
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61)
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296
-  }
-}
 
 function numbersIn(svg: string): string[] {
   const out: string[] = []
