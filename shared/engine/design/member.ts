@@ -955,8 +955,12 @@ function candidates(c: Core): Array<{ spacing: number | null; count: number | nu
   return out
 }
 
-function round1(v: number): number {
-  return Math.round(v * 10) / 10
+/** To 0.1 mm, but never past the eccentricity limits: a profile on a limit must not round out of the concrete. */
+function round1(v: number, lo: number, hi: number): number {
+  const r = Math.round(v * 10) / 10
+  if (r > hi) return Math.floor(hi * 10) / 10
+  if (r < lo) return Math.ceil(lo * 10) / 10
+  return r
 }
 
 function siteIndex(a: Assembled): number[] {
@@ -965,84 +969,158 @@ function siteIndex(a: Assembled): number[] {
 
 type Candidate = { spacing: number | null; count: number | null; strands: number }
 
+/** A verified arrangement: its index among the candidates, the proposal and the run that passed. */
+interface Found { index: number; proposal: Proposal; run: Assembled }
+
+/**
+ * The least force and a profile that pass every stress check. The fibre stresses are linear in the
+ * eccentricities at a given force, but the force per strand (friction, elastic shortening, creep)
+ * moves with the strands and the profile, so a linearisation holds only near the member it was made
+ * about: bracket with it, verify by full runs, then linearise again about the verified member and look
+ * below it, until no smaller force verifies.
+ */
 function propose(first: Assembled): Proposal {
   const c0 = first.core
   const cands = candidates(c0)
   const n = c0.n
-  const modelCache = new Map<Assembled, LinearModel>()
-  const modelOf = (a: Assembled): LinearModel => {
-    const mdl = modelCache.get(a) ?? linearModel(a.core, a, profileBasis(a.core, siteIndex(a)), 0.03)
-    modelCache.set(a, mdl)
+  // the eccentricity limits follow the section and covers only, never the strands or the profile
+  const eLo = -c0.eTop
+  const eHi = c0.eBot
+  // the unit profiles keep the input's low points and inflection, so one basis serves every run
+  const basis = profileBasis(c0, siteIndex(first))
+  // a margin (MPa) below the limits absorbs what the linearisation leaves out: wide far from the
+  // input's force, narrow about a verified member, where little is left out
+  const WIDE = 0.03
+  const NARROW = 0.002
+  // a linearisation about another force misjudges the force per strand (elastic shortening, creep) by
+  // about this much (MPa): a rejection by less is tried by a run at the candidate's own force
+  const MISJUDGED = 0.1
+  const modelCache = new Map<Assembled, Map<number, LinearModel>>()
+  const modelOf = (a: Assembled, margin: number): LinearModel => {
+    const byMargin = modelCache.get(a) ?? new Map<number, LinearModel>()
+    const mdl = byMargin.get(margin) ?? linearModel(a.core, a, basis, margin)
+    byMargin.set(margin, mdl)
+    modelCache.set(a, byMargin)
     return mdl
   }
+  const profileOf = (a: Assembled): number[] => [...a.core.profile.supportEcc, ...a.core.profile.spanEcc]
+  const patchOf = (cand: Candidate, supportEcc: number[], spanEcc: number[]): InputPatch => ({
+    tendon: cand.spacing !== null ? { spacing: cand.spacing } : { count: cand.count as number },
+    profile: { mode: 'custom', supportEcc, spanEcc, lowPointAt: c0.lowAt },
+  })
   const accepted = (cand: Candidate, supportEcc: number[], spanEcc: number[], run: Assembled): Proposal => ({
     feasible: true, reason: null, strands: cand.strands, forceTransfer: run.core.transfer.Pmean,
     spacing: cand.spacing, count: cand.count, supportEcc, spanEcc, verified: true,
-    inputPatch: {
-      tendon: cand.spacing !== null ? { spacing: cand.spacing } : { count: cand.count as number },
-      profile: { mode: 'custom', supportEcc, spanEcc, lowPointAt: run.core.lowAt },
-    },
+    inputPatch: patchOf(cand, supportEcc, spanEcc),
   })
+  // the last full run of a failed verification: a member nearer the answer than the input
+  let nearest: Assembled | null = null
   // one arrangement: solve the linearised conditions, verify by a full run, linearise again if needed
-  const attempt = (cand: Candidate): Proposal | null => {
-    let a = first
-    let start = [...c0.profile.supportEcc, ...c0.profile.spanEcc]
+  const attempt = (index: number, about: Assembled, margin: number): Found | null => {
+    const cand = cands[index] as Candidate
+    let a = about
+    let start = profileOf(about)
     for (let t = 0; t < 3; t++) {
-      const res = project(modelOf(a), cand.strands / a.core.strands, start, -a.core.eTop, a.core.eBot, 150)
-      if (res.violation > 1e-6) return null
-      const supportEcc = res.p.slice(0, n + 1).map(round1)
-      const spanEcc = res.p.slice(n + 1).map(round1)
-      const patch: InputPatch = {
-        tendon: cand.spacing !== null ? { spacing: cand.spacing } : { count: cand.count as number },
-        profile: { mode: 'custom', supportEcc, spanEcc, lowPointAt: a.core.lowAt },
-      }
+      const res = project(modelOf(a, margin), cand.strands / a.core.strands, start, eLo, eHi, 150)
+      const sameForce = Math.abs(a.core.strands - cand.strands) < 1e-9
+      if (res.violation > (sameForce ? 1e-6 : MISJUDGED)) return null
+      const supportEcc = res.p.slice(0, n + 1).map((v) => round1(v, eLo, eHi))
+      const spanEcc = res.p.slice(n + 1).map((v) => round1(v, eLo, eHi))
       let rerun: Assembled
       try {
-        rerun = assemble(parseMemberInput(mergeInputPatch(c0.input, patch)), false)
+        rerun = assemble(parseMemberInput(mergeInputPatch(c0.input, patchOf(cand, supportEcc, spanEcc))), false)
       } catch {
         return null
       }
-      if (stressesPass(rerun)) return accepted(cand, supportEcc, spanEcc, rerun)
+      if (stressesPass(rerun)) return { index, proposal: accepted(cand, supportEcc, spanEcc, rerun), run: rerun }
+      nearest = rerun
       // friction, losses and the secondary moment follow the new profile: linearise again about it
       a = rerun
       start = res.p
     }
     return null
   }
-  const startP = [...c0.profile.supportEcc, ...c0.profile.spanEcc]
-  const firstModel = modelOf(first)
-  // feasibility of the linearised conditions alone: cheap, used to bracket the least force
-  const linearOK = (i: number): boolean =>
-    project(firstModel, (cands[i] as Candidate).strands / c0.strands, startP, -c0.eTop, c0.eBot, 150).violation <= 1e-6
+  // feasibility of the conditions linearised about a member: cheap, used to bracket the least force
+  const linearOK = (about: Assembled, i: number, margin: number): boolean =>
+    project(modelOf(about, margin), (cands[i] as Candidate).strands / about.core.strands, profileOf(about), eLo, eHi, 150).violation <= 1e-6
+  // least index from lo up that the linearisation about a member accepts, or −1; the feasible forces
+  // form an interval (the conditions are convex in e and 1/P), so gallop up to one and bisect below it
+  const leastLinear = (about: Assembled, from: number, margin: number): number => {
+    let lo = from
+    let hi = -1
+    for (let i = lo, step = 1; i < cands.length; i += step, step *= 2) {
+      if (linearOK(about, i, margin)) { hi = i; break }
+      lo = i + 1
+    }
+    if (hi < 0) for (let i = lo; i < cands.length && hi < 0; i++) if (linearOK(about, i, margin)) hi = i
+    if (hi < 0) return -1
+    let failed = Math.min(lo, hi) - 1
+    while (hi - failed > 1) {
+      const mid = Math.floor((hi + failed) / 2)
+      if (linearOK(about, mid, margin)) hi = mid
+      else failed = mid
+    }
+    return hi
+  }
+  // least index below a verified one that the linearisation about it accepts, or −1: gallop down, bisect
+  const leastBelow = (about: Assembled, top: number, margin: number): number => {
+    let ok = top
+    let failed = -1
+    for (let step = 1; top - step >= 0; step *= 2) {
+      if (linearOK(about, top - step, margin)) ok = top - step
+      else { failed = top - step; break }
+    }
+    if (ok === top) return -1
+    while (ok - failed > 1) {
+      const mid = Math.floor((ok + failed) / 2)
+      if (linearOK(about, mid, margin)) ok = mid
+      else failed = mid
+    }
+    return ok
+  }
+  // verify from the bracketed force upwards, stepping up where friction and losses moved with the profile
+  const verifyFrom = (about: Assembled, i0: number, limit: number, margin: number): Found | null => {
+    for (let i = i0; i >= 0 && i < Math.min(cands.length, limit); i++) {
+      const f = attempt(i, about, margin)
+      if (f) return f
+    }
+    return null
+  }
+
   // the per-section Magnel regions give the least force each section needs on its own: a start
   const need = Math.max(0, ...first.sections.map((s) => (s.magnel.minP ?? 0) / s.force.transfer))
-  let lo = Math.max(0, cands.findIndex((k) => k.strands >= 0.9 * need * c0.strands))
-  let hi = -1
-  for (let i = lo, step = 1; i < cands.length; i += step, step *= 2) {
-    if (linearOK(i)) { hi = i; break }
-    lo = i + 1
+  const start = Math.max(0, cands.findIndex((k) => k.strands >= 0.9 * need * c0.strands))
+  let about: Assembled = first
+  let best: Found | null = null
+  for (let round = 0; round < 3 && best === null; round++) {
+    const i0 = leastLinear(about, start, WIDE)
+    if (i0 < 0) break
+    nearest = null
+    best = verifyFrom(about, i0, i0 + 6, WIDE)
+    // far from the input its linearisation misjudges the force per strand: start again about the last run
+    const next: Assembled | null = nearest
+    if (best === null && next === null) break
+    if (next !== null) about = next
   }
-  if (hi < 0) for (let i = lo; i < cands.length && hi < 0; i++) if (linearOK(i)) hi = i
-  let best: Proposal | null = null
-  if (hi >= 0) {
-    // the feasible forces form an interval (the conditions are convex in e and 1/P): bisect below hi
-    let fail = Math.min(lo, hi) - 1
-    while (hi - fail > 1) {
-      const mid = Math.floor((hi + fail) / 2)
-      if (linearOK(mid)) hi = mid
-      else fail = mid
-    }
-    // verify by full runs, stepping up where friction and losses moved with the new profile
-    for (let i = hi; i < Math.min(cands.length, hi + 6) && best === null; i++) best = attempt(cands[i] as Candidate)
+  // linearise about the verified member, whose force is near the least, and look below it
+  for (let round = 0; best !== null && best.index > 0 && round < 4; round++) {
+    const lower = leastBelow(best.run, best.index, NARROW)
+    // none below by this linearisation: the next smaller force may still pass, judged about its own run
+    const found = lower >= 0
+      ? verifyFrom(best.run, lower, Math.min(best.index, lower + 3), NARROW)
+      : attempt(best.index - 1, best.run, NARROW)
+    if (found === null) break
+    best = found
   }
+
   const current = cands.findIndex((k) => Math.abs(k.strands - c0.strands) < 1e-9)
-  if (current >= 0 && stressesPass(first) && (best === null || (best.strands as number) > c0.strands)) {
-    best = accepted(cands[current] as Candidate, c0.profile.supportEcc, c0.profile.spanEcc, first)
+  if (current >= 0 && stressesPass(first) && (best === null || (best.proposal.strands as number) > c0.strands)) {
+    return accepted(cands[current] as Candidate, c0.profile.supportEcc, c0.profile.spanEcc, first)
   }
   if (best === null) {
     return noProposal(sectionTooSmallReason(first) ?? 'No single force and profile satisfies every section at once within the eccentricity limits: revise the section, the spans or the concrete class.')
   }
-  return best
+  return best.proposal
 }
 
 // ---------------------------------------------------------------------------------------------

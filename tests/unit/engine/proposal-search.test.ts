@@ -1,0 +1,104 @@
+/**
+ * The proposal's search for the least force: it must find a passing design from any starting input,
+ * however far from passing, and the least force must not depend on the strands the engineer entered.
+ * Outside references: the contract itself (the patch, merged and run again, passes every transfer and
+ * service check of EN 1992-1-1 5.10.2.2 and 7.2), the Magnel diagram (every section's own least force
+ * is a lower bound on the member's, Magnel's method as in the prestressed-concrete textbooks), and a
+ * passing input (no proposal needs more strands than an input that passes already).
+ */
+import { describe, expect, it } from 'vitest'
+import { DEMO_BB1, DEMO_PS2, designMember, mergeInputPatch } from '../../../shared/engine/index'
+import type { Design, MemberInputDraft } from '../../../shared/engine/index'
+import { between, prng } from './prng'
+
+const stressChecksPass = (d: Design): boolean => d.checks.filter((c) => c.group === 'transfer' || c.group === 'service').every((c) => c.pass)
+
+/** Design from a start, check the contract, and return the proposal's strands and transfer force. */
+function proposeFrom(input: MemberInputDraft): { strands: number; force: number; passedAlready: boolean; providedStrands: number } {
+  const d = designMember(input)
+  expect(d.proposal.feasible, d.proposal.reason ?? '').toBe(true)
+  expect(d.proposal.verified).toBe(true)
+  const again = designMember(mergeInputPatch(input, d.proposal.inputPatch ?? {}), { proposal: false })
+  expect(stressChecksPass(again)).toBe(true)
+  expect(again.jacking.strands).toBeCloseTo(d.proposal.strands as number, 9)
+  // Magnel: no member force is below the least force any one of its sections needs on its own
+  const need = Math.max(...again.sections.map((s) => s.magnel.minP ?? 0))
+  const transferAt = (s: Design['sections'][number]): number => s.force.transfer
+  const weakest = again.sections.reduce((m, s) => Math.max(m, (s.magnel.minP ?? 0) / transferAt(s)), 0)
+  expect(need).toBeGreaterThan(0)
+  expect(weakest).toBeLessThanOrEqual(1 + 1e-6)
+  return { strands: d.proposal.strands as number, force: d.proposal.forceTransfer as number, passedAlready: stressChecksPass(d), providedStrands: d.jacking.strands }
+}
+
+/** All starts give nearly the same least force; none needs more strands than a start that passes. */
+function expectSameLeast(results: Array<ReturnType<typeof proposeFrom>>, tolerance: number): void {
+  const forces = results.map((r) => r.force)
+  const lo = Math.min(...forces)
+  const hi = Math.max(...forces)
+  expect((hi - lo) / lo).toBeLessThanOrEqual(tolerance)
+  for (const r of results) if (r.passedAlready) expect(r.strands).toBeLessThanOrEqual(r.providedStrands + 1e-9)
+}
+
+describe('PS-2 from any tendon spacing', () => {
+  it('spacings 600 … 2000 mm all give a verified proposal with the same least force within 3 %', () => {
+    const results = [600, 900, 1200, 1500, 2000].map((spacing) => proposeFrom({ ...DEMO_PS2, tendon: { ...DEMO_PS2.tendon, spacing } }))
+    expectSameLeast(results, 0.03)
+  })
+  it('spacing 1500 mm (half the strands of a passing 750 mm) is far from passing yet has a proposal', () => {
+    const start = { ...DEMO_PS2, tendon: { ...DEMO_PS2.tendon, spacing: 1500 } }
+    expect(stressChecksPass(designMember(start, { proposal: false }))).toBe(false)
+    const r = proposeFrom(start)
+    // the 750 mm demo passes, so the least needs no more strands than it
+    expect(r.strands).toBeLessThanOrEqual(designMember(DEMO_PS2, { proposal: false }).jacking.strands + 1e-9)
+  })
+})
+
+describe('BB-1 from any tendon count', () => {
+  it('1, 2, 3, 4 and 6 tendons all give a verified proposal with the same least force within 3 %', () => {
+    const results = [1, 2, 3, 4, 6].map((count) => proposeFrom({ ...DEMO_BB1, tendon: { ...DEMO_BB1.tendon, count } }))
+    expectSameLeast(results, 0.03)
+  })
+})
+
+function randomSlab(r: () => number): MemberInputDraft {
+  const n = 1 + Math.floor(r() * 4)
+  const L = between(r, 6000, 9500)
+  const spans = Array.from({ length: n }, (_, i) => Math.round(L * (i === 0 || i === n - 1 ? between(r, 0.8, 1) : 1)))
+  return {
+    geometry: { spans },
+    section: { kind: 'slab-strip', h: Math.round(Math.max(...spans) / between(r, 30, 38) / 10) * 10 },
+    materials: { concreteClass: r() < 0.5 ? 'C32/40' : 'C35/45' },
+    tendon: { strandsPerTendon: 4, spacing: 2500, coverTop: 25, coverBottom: 25, ductWidth: 50, ductHeight: 19 },
+    loads: { superimposed: between(r, 1, 2) * 1e-3, imposed: between(r, 1.5, 4) * 1e-3 },
+  }
+}
+
+function randomBandBeam(r: () => number): MemberInputDraft {
+  const L = between(r, 7000, 10000)
+  return {
+    geometry: { spans: [Math.round(0.8 * L), Math.round(L), Math.round(0.8 * L)] },
+    section: { kind: 'tee-beam', h: Math.round(L / between(r, 22, 27) / 10) * 10, bw: 2400, bf: 4400, hf: 220, tributaryWidth: Math.round(between(r, 6000, 8000)) },
+    materials: { concreteClass: 'C40/50' },
+    tendon: { strandsPerTendon: 5, count: 1, coverTop: 40, coverBottom: 40, ductWidth: 75 },
+    loads: { superimposed: between(r, 1, 2) * 1e-3, imposed: between(r, 2.5, 5) * 1e-3 },
+  }
+}
+
+describe('random members starting from too few strands (seeded)', () => {
+  it('slabs at 2500 mm spacing get the least force that a start at 1500 or 900 mm gets, within 3 %', () => {
+    const r = prng(20417)
+    for (let trial = 0; trial < 4; trial++) {
+      const slab = randomSlab(r)
+      const results = [2500, 1500, 900].map((spacing) => proposeFrom({ ...slab, tendon: { ...slab.tendon, spacing } }))
+      expectSameLeast(results, 0.03)
+    }
+  })
+  it('band beams with one tendon get the least force that a start with two or four tendons gets, within 3 %', () => {
+    const r = prng(24171)
+    for (let trial = 0; trial < 4; trial++) {
+      const beam = randomBandBeam(r)
+      const results = [1, 2, 4].map((count) => proposeFrom({ ...beam, tendon: { ...beam.tendon, count } }))
+      expectSameLeast(results, 0.03)
+    }
+  })
+})
