@@ -1,2 +1,2 @@
 /** Version of the design engine; frozen revisions record it. Bump the minor on any change of results. */
-export const ENGINE_VERSION = '1.1.0'
+export const ENGINE_VERSION = '1.2.0'

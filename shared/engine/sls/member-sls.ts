@@ -15,6 +15,8 @@ import type { SectionOutline } from '../uls/bending'
 import { memberDeflection } from './deflection'
 import type { SpanCracking, SpanDeflection } from './deflection'
 import { crackedSection } from './cracked-section'
+import type { CrackedSectionInput, CrackedSectionResult } from './cracked-section'
+import { EngineInputError } from '../contract'
 import type { SteelLayer } from './cracked-section'
 import { crackRequirement, crackWidth, decompressionCheck } from './cracking'
 import type { Combination } from './cracking'
@@ -119,7 +121,8 @@ export function memberSls(d: Design, opt: Part2Input): SlsOutcome {
     if (bonded && dp > 0 && dp < h) steel.push({ A: Ap, d: dp, E: strand.Ep })
     if (steel.length === 0) return d.section.I // no bonded steel: no cracked state to fall back on
     const M = 1e6
-    const r = crackedSection({ section: o, face: faceName, Ec: c28.Ecm, steel, N: 0, M })
+    const r = crackedOrNull({ section: o, face: faceName, Ec: c28.Ecm, steel, N: 0, M })
+    if (!r) return d.section.I
     return M / (c28.Ecm * r.curvature) // cracked second moment from the curvature (transformed section, N = 0: common practice)
   }
   const cracking: SpanCracking[] = spans.map((_, i) => {
@@ -168,8 +171,9 @@ export function memberSls(d: Design, opt: Part2Input): SlsOutcome {
     if (bars.area > 0) steel.push({ A: bars.area, d: dBars, E: Es })
     if (bonded) steel.push({ A: Ap, d: dp, E: strand.Ep })
     if (steel.length === 0 || !(sag ? Mnet > 0 : Mnet < 0)) return { ...base, cracked: true, sigmaS: null, x: null, srMax: null, wk: null }
-    const r = crackedSection({ section: o, face: sag ? 'sagging' : 'hogging', Ec: c28.Ecm, steel, N: s.force.service, M: Math.abs(Mnet) })
-    if (!r.cracked) return { ...base, cracked: false, sigmaS: null, x: null, srMax: null, wk: 0 }
+    const r = crackedOrNull({ section: o, face: sag ? 'sagging' : 'hogging', Ec: c28.Ecm, steel, N: s.force.service, M: Math.abs(Mnet) })
+    // no neutral axis inside the section: the prestress keeps the whole section in compression
+    if (!r || !r.cracked) return { ...base, cracked: false, sigmaS: null, x: null, srMax: null, wk: 0 }
     const sigmaS = Math.max(0, r.steelStress[0] as number) // bars first; the tendon's Δσp where only tendons are bonded (7.3.4(1))
     const dSteel = bars.area > 0 ? dBars : dp
     const x = Math.min(r.x as number, dSteel - 1)
@@ -239,5 +243,15 @@ export function memberSls(d: Design, opt: Part2Input): SlsOutcome {
     deflection,
     cracking: { exposure: input.limits.exposure, wmax, combination: req.combination, decompression: req.decompression, note: req.note, fctEff, sections: crackSections, decompressionSections },
     checks, warnings,
+  }
+}
+
+/** The cracked state, or null where none exists (the section stays in compression under N and M). */
+function crackedOrNull(i: CrackedSectionInput): CrackedSectionResult | null {
+  try {
+    return crackedSection(i)
+  } catch (error) {
+    if (error instanceof EngineInputError && error.field === 'M') return null
+    throw error
   }
 }

@@ -153,3 +153,20 @@ describe('part 2 over varied members (seeded)', () => {
     }
   })
 })
+
+describe('members with more prestress than they need', () => {
+  // A fully compressed section has no cracked state: it is simply uncracked (EN 1992-1-1 7.1(2)).
+  it('design without error when the prestress keeps the section in compression', () => {
+    const cases = [
+      { ...DEMO_PS2, tendon: { ...DEMO_PS2.tendon, spacing: 300 } },
+      { ...DEMO_PS2, tendon: { ...DEMO_PS2.tendon, spacing: 500 } },
+      { ...DEMO_BB1, tendon: { ...DEMO_BB1.tendon, count: 8 } },
+      { ...DEMO_BB1, tendon: { ...DEMO_BB1.tendon, count: 12 } },
+    ]
+    for (const input of cases) {
+      const design = designMember(input, { proposal: false })
+      expect(design.cracking.sections.every((s) => s.wk === null || Number.isFinite(s.wk))).toBe(true)
+      expect(design.checks.every((c) => Number.isFinite(c.utilisation))).toBe(true)
+    }
+  })
+})
