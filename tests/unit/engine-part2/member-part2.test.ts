@@ -17,7 +17,7 @@ describe('part 2 in the member design', () => {
   const d = designMember(DEMO_PS2, { proposal: false })
 
   it('adds uls, deflection, cracking and site, with checks in the uls, sls, detailing and site groups', () => {
-    expect(d.engineVersion).toBe('1.1.0')
+    expect(d.engineVersion).toBe('1.2.0')
     expect(d.uls.sections).toHaveLength(d.sections.length)
     expect(d.deflection.spans).toHaveLength(4)
     expect(d.site.heights.spans).toHaveLength(4)
