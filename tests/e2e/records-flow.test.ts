@@ -83,7 +83,10 @@ describe('issue → check → return → issue → approve → seal → verify, 
     // the PDF as a site copy, verified through the page
     const api = await session('records')
     const id = Number(p02.href.split('/').pop())
-    const pdf = new Uint8Array(await (await api.fetch(`/api/revisions/${id}/pdf`)).arrayBuffer())
+    const download = await api.fetch(`/api/revisions/${id}/pdf`)
+    expect(download.status, await download.clone().text().then(t => t.slice(0, 200))).toBe(200)
+    expect(download.headers.get('content-type')).toBe('application/pdf')
+    const pdf = new Uint8Array(await download.arrayBuffer())
     expect(sha256Hex(pdf)).toBe(sha)
     await records.goto('/verify')
     await records.waitForLoadState('networkidle')
