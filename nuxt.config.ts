@@ -46,7 +46,8 @@ export default defineNuxtConfig({
       secure: false,
       from: 'Tendonbook <no-reply@tendonbook.local>',
     },
-    storage: { driver: 'fs', base: '.data/files' },
+    // driver 'fs' (base folder) locally; 's3' in production with the settings below (NUXT_STORAGE_*)
+    storage: { driver: 'fs', base: '.data/files', endpoint: '', bucket: '', region: '', accessKeyId: '', secretAccessKey: '' },
     chromiumPath: '/usr/bin/chromium',
     mailboxDir: '',
     public: {

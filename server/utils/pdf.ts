@@ -80,7 +80,12 @@ export async function renderPdf(job: PdfJob): Promise<Uint8Array> {
     const response = await page.goto(job.url, { waitUntil: 'networkidle0', timeout: timeoutMs })
     if (!response) throw new PdfRenderError('the print page gave no response')
     if (!response.ok()) throw new PdfRenderError(`the print page answered ${response.status()} ${response.statusText()}`)
-    await page.evaluate(() => document.fonts.ready.then(() => undefined))
+    // load every declared face, not only those layout has asked for so far: under load a face can
+    // still be on its way when printing starts, and the bytes would then differ between renders
+    await page.evaluate(async () => {
+      await Promise.all(Array.from(document.fonts).map(face => face.load().catch(() => null)))
+      await document.fonts.ready
+    })
     const pdf = await page.pdf({
       format: 'A4',
       printBackground: true,

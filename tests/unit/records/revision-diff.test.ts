@@ -1,17 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { differsBeyond, diffRevisions, flattenLeaves } from '../../../server/utils/revision-diff'
+import { prng } from '../../helpers/prng'
 
-// mulberry32: a small seeded PRNG, so a failing case reproduces
-function prng(seed: number) {
-  let a = seed >>> 0
-  return () => {
-    a = (a + 0x6D2B79F5) >>> 0
-    let t = a
-    t = Math.imul(t ^ (t >>> 15), t | 1)
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61)
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296
-  }
-}
 
 function check(id: string, utilisation: number) {
   return { id, group: 'service', title: `Check ${id}`, clause: '7.2(2)', actual: utilisation * 10, limit: 10, unit: 'MPa' as const, utilisation, pass: utilisation <= 1 }
