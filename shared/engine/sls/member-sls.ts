@@ -15,6 +15,7 @@ import type { SectionOutline } from '../uls/bending'
 import { memberDeflection } from './deflection'
 import type { SpanCracking, SpanDeflection } from './deflection'
 import { crackedSection } from './cracked-section'
+import { outline } from '../uls/member-uls'
 import type { CrackedSectionInput, CrackedSectionResult } from './cracked-section'
 import { EngineInputError } from '../contract'
 import type { SteelLayer } from './cracked-section'
@@ -73,12 +74,6 @@ export interface SlsOutcome {
   warnings: string[]
 }
 
-function outline(d: Design): SectionOutline {
-  const s = d.input.section
-  if (s.kind === 'slab-strip') return { kind: 'rectangle', b: 1000, h: s.h }
-  if (s.kind === 'rectangle') return { kind: 'rectangle', b: s.b as number, h: s.h }
-  return { kind: 'flanged', bw: s.bw as number, h: s.h, bf: s.bf as number, hf: s.hf as number }
-}
 
 function check(id: string, group: string, title: string, clause: string, actual: number, limit: number, unit: CheckResult['unit'], location?: string, note?: string): CheckResult {
   const u = Math.min(CAP, limit > 0 ? actual / limit : actual > 0 ? CAP : 0)

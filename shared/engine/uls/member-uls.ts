@@ -127,7 +127,8 @@ export interface UlsOutcome {
   warnings: string[]
 }
 
-function outline(d: Design): SectionOutline {
+/** The section's outline for the section-level checks (a slab strip is a 1 m wide rectangle). */
+export function outline(d: Design): SectionOutline {
   const s = d.input.section
   if (s.kind === 'slab-strip') return { kind: 'rectangle', b: 1000, h: s.h }
   if (s.kind === 'rectangle') return { kind: 'rectangle', b: s.b as number, h: s.h }
