@@ -84,7 +84,6 @@ export const useSheetStore = defineStore('sheet', () => {
   })
 
   const checks = computed(() => (run.value?.ok ? run.value.design.checks : []))
-  const failing = computed(() => checks.value.filter(c => !c.pass))
 
   function load(payload: SheetPayload) {
     sheet.value = payload
@@ -232,7 +231,7 @@ export const useSheetStore = defineStore('sheet', () => {
 
   return {
     sheet, inputs, draftVersion, saveState, saveMessage, savedAt, specs, compiled, validation, run, errors, report,
-    checks, failing, undoStack, redoStack,
+    checks, undoStack, redoStack,
     load, setInput, markInvalid, resizeSpans, applyPatch, replaceInputs, undo, redo, save, flush,
   }
 })

@@ -2,11 +2,11 @@ import { and, desc, eq, max } from 'drizzle-orm'
 import { alias } from 'drizzle-orm/mysql-core'
 import type { DraftSaveBody, SheetCreateBody } from '../../shared/schemas/sheet'
 import { fieldErrors, describeFieldErrors } from '../../shared/utils/validation'
+import { starterInputsFor } from '../../shared/sheet/runtime'
 
 /** @throws 400 naming each input field at fault (paths start with `inputs.`). */
 export function validateInputs(model: string, inputs: unknown) {
-  const bound = modelFor(model)
-  const result = bound.inputSchema.safeParse(inputs)
+  const result = inputSchemaFor(model).safeParse(inputs)
   if (!result.success) {
     const fields = Object.fromEntries(Object.entries(fieldErrors(result.error)).map(([k, v]) => [`inputs.${k}`, v]))
     throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: describeFieldErrors(fields), data: { fields } })
@@ -55,7 +55,7 @@ export async function createSheet(projectId: number, body: SheetCreateBody, user
   const [taken] = await db.select({ id: tables.sheets.id }).from(tables.sheets)
     .where(and(eq(tables.sheets.projectId, projectId), eq(tables.sheets.reference, body.reference))).limit(1)
   if (taken) throw createError({ statusCode: 409, message: `reference: ${body.reference} is already used in this project`, data: { fields: { reference: 'Already used in this project' } } })
-  const inputs = validateInputs(template.model, starterInputs(template))
+  const inputs = validateInputs(template.model, starterInputsFor(template.slug))
   const [{ id }] = await db.insert(tables.sheets).values({
     projectId, reference: body.reference, title: body.title, partOfStructure: body.partOfStructure,
     templateId: template.id, inputs, createdBy: userId, updatedBy: userId,

@@ -1,4 +1,4 @@
-import { and, desc, eq, max } from 'drizzle-orm'
+import { desc, eq } from 'drizzle-orm'
 import type { TemplatePublishBody } from '../../shared/schemas/sheet'
 
 /** The newest version of every template, built-in and office. */
@@ -36,7 +36,7 @@ export async function publishTemplate(body: TemplatePublishBody, adminId: number
   const loaded = checkTemplate(body.body)
   const db = useDb()
   return db.transaction(async (tx) => {
-    const [existing] = await tx.select({ v: max(tables.templates.version), builtin: tables.templates.builtin }).from(tables.templates).where(eq(tables.templates.slug, body.slug)).groupBy(tables.templates.builtin)
+    const [existing] = await tx.select({ v: tables.templates.version, builtin: tables.templates.builtin }).from(tables.templates).where(eq(tables.templates.slug, body.slug)).orderBy(desc(tables.templates.version)).limit(1)
     if (existing && existing.builtin && !builtin) {
       throw createError({ statusCode: 409, message: `slug: ${body.slug} is a built-in template; publish an office copy under another short name`, data: { fields: { slug: 'Built-in template: choose another short name' } } })
     }
@@ -46,11 +46,4 @@ export async function publishTemplate(body: TemplatePublishBody, adminId: number
     }).$returningId()
     return { id, slug: body.slug, version, title: loaded.title, model: loaded.model }
   })
-}
-
-/** Latest version of a slug whose body equals `body`, if any (used to sync the built-ins). */
-export async function findTemplateVersion(slug: string, body: string) {
-  const t = tables.templates
-  const [row] = await useDb().select({ id: t.id, body: t.body }).from(t).where(and(eq(t.slug, slug))).orderBy(desc(t.version)).limit(1)
-  return row && row.body === body ? row.id : null
 }

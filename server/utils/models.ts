@@ -1,28 +1,12 @@
 import type { z } from 'zod'
-import { memberInputSchema } from '../../shared/engine/schema'
-import { designMember } from '../../shared/engine/design/member'
-import { compileSheet, starterInputsFor } from '../../shared/sheet/runtime'
-import type { Template } from '../database/schema'
+import { MODELS } from '../../shared/report/models'
+import { compileSheet } from '../../shared/sheet/runtime'
 
-export interface BoundModel {
-  inputSchema: z.ZodType
-  run: (inputs: unknown) => ReturnType<typeof designMember>
-}
-
-const MODELS: Record<string, BoundModel> = {
-  'pt-member': { inputSchema: memberInputSchema, run: inputs => designMember(inputs) },
-}
-
-/** @throws 400 when a template names a model this server does not have. */
-export function modelFor(name: string): BoundModel {
-  const model = MODELS[name]
-  if (!model) throw createError({ statusCode: 400, message: `model: no engine model named "${name}"`, data: { fields: { model: `Unknown model ${name}` } } })
-  return model
-}
-
-/** The inputs a new sheet starts from: the template's own starter (built-ins name theirs by slug). */
-export function starterInputs(template: Pick<Template, 'slug' | 'model'>) {
-  return starterInputsFor(template.slug)
+/** The input schema of the engine model a template binds to. @throws 400 when there is none. */
+export function inputSchemaFor(name: string): z.ZodType {
+  const model = Object.hasOwn(MODELS, name) ? (MODELS[name] as { inputSchema?: z.ZodType }) : undefined
+  if (!model?.inputSchema) throw createError({ statusCode: 400, message: `model: no engine model named "${name}"`, data: { fields: { model: `Unknown model ${name}` } } })
+  return model.inputSchema
 }
 
 /**

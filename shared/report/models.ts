@@ -32,6 +32,26 @@ function sectionAt(d: Design, at: string | undefined): CriticalSection | undefin
   return d.sections.reduce<CriticalSection | undefined>((a, s) => (!a || s.utilisation > a.utilisation ? s : a), undefined)
 }
 
+/** The fibre-stress envelope of one stage (transfer or service) against its limits. */
+function stressFigure(stage: 'Transfer' | 'Service', words: string): ModelFigure {
+  return {
+    label: `Fibre stresses ${words} against their limits`,
+    render: (r) => {
+      const s = (r as Design).series
+      return stressEnvelopeSvg({
+        title: `Fibre stresses ${words}`,
+        X: s.X,
+        topMin: s[`stress${stage}TopMin`],
+        topMax: s[`stress${stage}TopMax`],
+        bottomMin: s[`stress${stage}BottomMin`],
+        bottomMax: s[`stress${stage}BottomMax`],
+        compressionLimit: s[`limit${stage}Compression`],
+        tensionLimit: s[`limit${stage}Tension`],
+      })
+    },
+  }
+}
+
 const figures: Record<string, ModelFigure> = {
   tendon: {
     label: 'Tendon profile with the eccentricity limits',
@@ -78,38 +98,8 @@ const figures: Record<string, ModelFigure> = {
       })
     },
   },
-  'stresses-transfer': {
-    label: 'Fibre stresses at transfer against their limits',
-    render: (r) => {
-      const s = (r as Design).series
-      return stressEnvelopeSvg({
-        title: 'Fibre stresses at transfer',
-        X: s.X,
-        topMin: s.stressTransferTopMin,
-        topMax: s.stressTransferTopMax,
-        bottomMin: s.stressTransferBottomMin,
-        bottomMax: s.stressTransferBottomMax,
-        compressionLimit: s.limitTransferCompression,
-        tensionLimit: s.limitTransferTension,
-      })
-    },
-  },
-  'stresses-service': {
-    label: 'Fibre stresses in service against their limits',
-    render: (r) => {
-      const s = (r as Design).series
-      return stressEnvelopeSvg({
-        title: 'Fibre stresses in service',
-        X: s.X,
-        topMin: s.stressServiceTopMin,
-        topMax: s.stressServiceTopMax,
-        bottomMin: s.stressServiceBottomMin,
-        bottomMax: s.stressServiceBottomMax,
-        compressionLimit: s.limitServiceCompression,
-        tensionLimit: s.limitServiceTension,
-      })
-    },
-  },
+  'stresses-transfer': stressFigure('Transfer', 'at transfer'),
+  'stresses-service': stressFigure('Service', 'in service'),
   force: {
     label: 'Force along the tendon after friction, draw-in, at transfer and in service',
     render: (r) => {

@@ -21,7 +21,8 @@ export class InputsFileError extends Error {
   }
 }
 
-function fieldFor(fields: FieldUnit[], path: string): FieldUnit | undefined {
+/** The field a concrete path belongs to: the field itself, or an element of a list field. */
+export function fieldFor<F extends Pick<FieldUnit, 'path' | 'kind'>>(fields: F[], path: string): F | undefined {
   return fields.find(f => f.path === path) ?? fields.find(f => f.kind === 'array' && path.startsWith(`${f.path}.`) && /^\d+$/.test(path.slice(f.path.length + 1)))
 }
 

@@ -23,11 +23,6 @@ export function starterInputsFor(slug: string): MemberInput {
   return memberInputSchema.parse(found.inputs)
 }
 
-/** The sample inputs a template preview runs against. */
-export function sampleInputs(slug = ''): MemberInput {
-  return starterInputsFor(slug)
-}
-
 /** Runs the engine; bad input comes back as the field it names, never as an exception. */
 export function runSheet(inputs: unknown, options: { proposal?: boolean } = {}): SheetRun {
   try {
