@@ -17,6 +17,8 @@ export default defineConfig({
           name: 'unit',
           include: ['tests/unit/**/*.test.ts'],
           environment: 'node',
+          // seeded property tests run whole designs; on a busy two-core machine 5 s is too tight
+          testTimeout: 60_000,
         },
       },
       {
@@ -26,6 +28,7 @@ export default defineConfig({
           include: ['tests/integration/**/*.test.ts'],
           environment: 'node',
           globalSetup: ['tests/setup/server.ts'],
+          setupFiles: ['tests/setup/http.ts'],
           testTimeout: 60_000,
           hookTimeout: 180_000,
           fileParallelism: false,
@@ -38,6 +41,7 @@ export default defineConfig({
           include: ['tests/e2e/**/*.test.ts'],
           environment: 'node',
           globalSetup: ['tests/setup/server.ts'],
+          setupFiles: ['tests/setup/http.ts'],
           testTimeout: 120_000,
           hookTimeout: 180_000,
           fileParallelism: false,

@@ -35,43 +35,53 @@ export function titleBlockOf(detail: Detail): TitleBlock {
 }
 
 /**
- * Chromium now and then lays a page out differently when the machine is under heavy load, so one
- * render is not proof of the document's bytes: render until two renders agree (three at most) and
- * take the agreed bytes. @throws 502 when no two renders agree.
+ * One render is not proof of the document's bytes, so render until two renders agree (three at
+ * most) and take the agreed bytes with the print page they came from.
+ * @throws 502 when no two renders agree.
  */
 async function agreedRevisionPdf(event: H3Event, detail: Detail, accept?: (sha256: string) => boolean) {
   const seen = new Map<string, number>()
+  let last: Rendered | null = null
   for (let attempt = 1; attempt <= 3; attempt++) {
-    const rendered = await renderRevisionPdf(event, detail)
-    const sha = sha256Hex(rendered.bytes)
-    if (accept?.(sha) || seen.has(sha)) return { ...rendered, sha256: sha, renders: attempt }
+    last = await renderRevisionPdf(event, detail)
+    const sha = sha256Hex(last.bytes)
+    if (accept?.(sha) || seen.has(sha)) return { ...last, sha256: sha, renders: attempt, agreed: true }
     seen.set(sha, attempt)
   }
+  if (accept && last) return { ...last, sha256: sha256Hex(last.bytes), renders: 3, agreed: false }
   throw createError({ statusCode: 502, message: 'The PDF could not be rendered reproducibly: three renders of the same revision gave different bytes; try again when the server is less busy' })
 }
 
+type Rendered = { bytes: Uint8Array, pages: number, html: string }
+
+/** Where the print page of a seal is kept beside its PDF, to explain a later render that differs. */
+const printPageKey = (pdfKey: string) => pdfKey.replace(/\.pdf$/, '.print.html')
+
 /** Renders the approved revision's print page to reproducible PDF bytes. @throws 502 saying why rendering failed. */
-async function renderRevisionPdf(event: H3Event, detail: Detail) {
+async function renderRevisionPdf(event: H3Event, detail: Detail): Promise<Rendered> {
   const block = titleBlockOf(detail)
   const origin = printOrigin()
   const session = useRuntimeConfig().session as { name?: string }
   const cookieName = session.name || 'nuxt-session'
   const value = getCookie(event, cookieName)
+  let html = ''
   try {
     const raw = await renderPdf({
+      onHtml: (page) => { html = page },
       url: `${origin}/revisions/${detail.id}/print`,
       origin,
       cookies: value ? [{ name: cookieName, value }] : [],
       headerTemplate: headerTemplate(block),
       footerTemplate: footerTemplate(block),
     })
-    return await makeReproducible(raw, {
+    const fixed = await makeReproducible(raw, {
       title: `${block.jobNumber} ${block.sheetReference} ${block.revision} ${block.title}`,
       subject: `${block.projectName}: ${block.title}`,
       keywords: [block.archiveRef, block.verificationRef, detail.contentHash],
       date: new Date(detail.approvedBy?.at ?? detail.issuedAt),
       documentId: detail.contentHash.slice(0, 32),
     })
+    return { ...fixed, html }
   }
   catch (error) {
     const reason = error instanceof PdfRenderError ? error.message : error instanceof Error ? error.message : String(error)
@@ -89,10 +99,11 @@ export async function sealRevision(event: H3Event, revisionId: number, user: Ses
   if (detail.status.status !== 'approved') {
     throw createError({ statusCode: 409, message: `${detail.sheet.reference} ${detail.code} is ${detail.status.label.toLowerCase()}: only an approved, unsealed revision can be sealed` })
   }
-  const { bytes, pages, sha256: pdfSha256 } = await agreedRevisionPdf(event, detail)
+  const { bytes, pages, html, sha256: pdfSha256 } = await agreedRevisionPdf(event, detail)
   const archiveRef = archiveRefOf(detail)
   const storageKey = generatedKey('seals', 'pdf')
   await writeStored(storageKey, bytes)
+  await writeStored(printPageKey(storageKey), new TextEncoder().encode(html))
   try {
     await useDb().transaction(async (tx) => {
       await tx.insert(tables.seals).values({
@@ -111,15 +122,31 @@ export async function sealRevision(event: H3Event, revisionId: number, user: Ses
   return getRevisionDetail(revisionId, user)
 }
 
-/** Renders a sealed revision again and says whether the bytes are identical to the sealed ones. */
+/**
+ * Renders a sealed revision again and says whether the bytes are identical to the sealed ones.
+ * When they are not, the render and its print page are kept beside the seal, and the answer says
+ * whether the print page itself changed (the revision's data) or only Chromium's output did.
+ */
 export async function resealCheck(event: H3Event, revisionId: number, user: SessionUser) {
   const detail = await getRevisionDetail(revisionId, user)
   if (!detail.seal) throw createError({ statusCode: 409, message: `${detail.sheet.reference} ${detail.code} is not sealed` })
   const sealed = detail.seal.pdfSha256
-  const { bytes, sha256: renderedSha256, renders } = await agreedRevisionPdf(event, detail, sha => sha === sealed)
+  const { bytes, html, sha256: renderedSha256, renders } = await agreedRevisionPdf(event, detail, sha => sha === sealed)
   const identical = renderedSha256 === sealed
-  await recordAudit(event, { action: 'revision.reseal-check', subject: detail.seal.archiveRef, actorId: user.id, detail: { revisionId, identical, renderedSha256, renders } })
-  return { identical, sealedSha256: sealed, renderedSha256, bytes: bytes.length, renders }
+  let kept: { pdf: string, printPage: string, printPageChanged: boolean | null } | null = null
+  if (!identical) {
+    const [seal] = await useDb().select({ storageKey: tables.seals.storageKey }).from(tables.seals).where(eq(tables.seals.revisionId, revisionId))
+    const sealedPage = seal ? await readStored(printPageKey(seal.storageKey)) : null
+    const pdf = generatedKey('reseal-checks', 'pdf')
+    await writeStored(pdf, bytes)
+    await writeStored(printPageKey(pdf), new TextEncoder().encode(html))
+    kept = { pdf, printPage: printPageKey(pdf), printPageChanged: sealedPage ? new TextDecoder().decode(sealedPage) !== html : null }
+  }
+  await recordAudit(event, { action: 'revision.reseal-check', subject: detail.seal.archiveRef, actorId: user.id, detail: { revisionId, identical, renderedSha256, renders, kept } })
+  return {
+    identical, sealedSha256: sealed, renderedSha256, bytes: bytes.length, renders,
+    ...(kept && { printPageChanged: kept.printPageChanged, message: kept.printPageChanged ? 'The print page differs from the one sealed: the revision\'s printed data has changed since sealing' : 'The print page is the one sealed but the PDF bytes differ: the renderer produced other bytes' }),
+  }
 }
 
 /** The sealed PDF's bytes, checked against the recorded hash before they are handed out. */

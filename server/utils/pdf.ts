@@ -1,7 +1,7 @@
 // PDF rendering with puppeteer-core and the system Chromium: one browser for the process (relaunched
 // when it goes away), a fresh page per job, only our own origin reachable, a deadline per job.
 import puppeteer, { type Browser } from 'puppeteer-core'
-import { PDFArray, PDFDict, PDFDocument, PDFHexString, PDFName, PDFString, type PDFObject } from 'pdf-lib'
+import { PDFArray, PDFDict, PDFDocument, PDFHexString, PDFName, PDFRef, PDFString, type PDFObject } from 'pdf-lib'
 
 const LAUNCH_ARGS = [
   '--no-sandbox', '--disable-gpu', '--disable-dev-shm-usage', '--disable-background-networking',
@@ -45,6 +45,8 @@ export interface PdfJob {
   headerTemplate: string
   footerTemplate: string
   timeoutMs?: number
+  /** receives the page's HTML as it stood when printing began (kept to explain a render that differs) */
+  onHtml?: (html: string) => void
 }
 
 /** The origin Chromium reaches this server on: the loopback address it listens on. */
@@ -83,9 +85,10 @@ export async function renderPdf(job: PdfJob): Promise<Uint8Array> {
     // load every declared face, not only those layout has asked for so far: under load a face can
     // still be on its way when printing starts, and the bytes would then differ between renders
     await page.evaluate(async () => {
-      await Promise.all(Array.from(document.fonts).map(face => face.load().catch(() => null)))
+      await Promise.all([...(document.fonts as unknown as Iterable<FontFace>)].map(face => face.load().catch(() => null)))
       await document.fonts.ready
     })
+    if (job.onHtml) job.onHtml(await page.content())
     const pdf = await page.pdf({
       format: 'A4',
       printBackground: true,
@@ -125,23 +128,50 @@ function textOf(obj: PDFObject | undefined): string | null {
 }
 
 /**
- * Chromium's tagged PDF names structure elements after DOM node ids ("node00000088"), which count
- * up across pages of one renderer process: rename them s00000001… in their own sorted order
- * everywhere they occur (the elements' /ID, table cells' /Headers, the /IDTree name tree, whose
- * keys stay sorted because the order is kept).
+ * Chromium's tagged PDF names structure elements after DOM node ids ("node00000088"). Those ids are
+ * handed out lazily, per renderer process, to whichever node is asked for one first — and some are
+ * asked for while the page paints on screen, which depends on timing — so neither their numbers nor
+ * their order can be trusted. Rename them s00000001… in the order the elements stand in the
+ * structure tree (the document's own order), everywhere they occur (the elements' /ID, table cells'
+ * /Headers), and rebuild the /IDTree name tree as one sorted leaf, dropping its old nodes.
  */
 function normaliseStructureIds(doc: PDFDocument) {
   const ctx = doc.context
   const ID = PDFName.of('ID')
-  const objects = ctx.enumerateIndirectObjects().map(([, obj]) => obj)
-  const names = new Set<string>()
-  for (const obj of objects) {
-    if (obj instanceof PDFDict && obj.get(PDFName.of('Type')) === PDFName.of('StructElem')) {
-      const id = textOf(obj.get(ID))
-      if (id !== null) names.add(id)
+  const K = PDFName.of('K')
+  const resolve = (obj: PDFObject | undefined) => (obj instanceof PDFRef ? ctx.lookup(obj) : obj)
+  const root = resolve(doc.catalog.get(PDFName.of('StructTreeRoot')))
+  if (!(root instanceof PDFDict)) return
+
+  // structure order: depth-first through /K from the root, each element once
+  const ordered: Array<{ name: string, ref: PDFRef | null }> = []
+  const seen = new Set<PDFObject>()
+  const walk = (obj: PDFObject | undefined, ref: PDFRef | null, depth: number) => {
+    if (obj === undefined || depth > 256) return
+    if (obj instanceof PDFRef) return walk(ctx.lookup(obj), obj, depth)
+    if (obj instanceof PDFArray) {
+      for (let i = 0; i < obj.size(); i++) walk(obj.get(i), null, depth + 1)
+      return
     }
+    if (!(obj instanceof PDFDict) || seen.has(obj)) return
+    seen.add(obj)
+    const name = textOf(obj.get(ID))
+    if (name !== null) ordered.push({ name, ref })
+    walk(obj.get(K), null, depth + 1)
   }
-  const renamed = new Map([...names].sort().map((n, i) => [n, PDFString.of(`s${String(i + 1).padStart(8, '0')}`)]))
+  walk(root.get(K), null, 0)
+  // an element outside the tree (none expected) still gets a name that does not depend on the render
+  const outside = new Set<string>()
+  for (const [, obj] of ctx.enumerateIndirectObjects()) {
+    const name = obj instanceof PDFDict && obj.get(PDFName.of('Type')) === PDFName.of('StructElem') ? textOf(obj.get(ID)) : null
+    if (name !== null && !seen.has(obj)) outside.add(name)
+  }
+  if (!ordered.length && !outside.size) return
+
+  const renamed = new Map<string, PDFString>()
+  for (const name of [...ordered.map(o => o.name), ...[...outside].sort()]) {
+    if (!renamed.has(name)) renamed.set(name, PDFString.of(`s${String(renamed.size + 1).padStart(8, '0')}`))
+  }
   const visit = (obj: PDFObject, depth: number) => {
     if (depth > 64) return
     if (obj instanceof PDFDict) {
@@ -160,7 +190,29 @@ function normaliseStructureIds(doc: PDFDocument) {
       }
     }
   }
-  if (renamed.size) for (const obj of objects) visit(obj, 0)
+  const idTreeRef = root.get(PDFName.of('IDTree'))
+  const treeNodes: PDFRef[] = []
+  const collectTree = (obj: PDFObject | undefined, depth: number) => {
+    if (!(obj instanceof PDFRef) || depth > 32) return
+    treeNodes.push(obj)
+    const node = ctx.lookup(obj)
+    const kids = node instanceof PDFDict ? node.get(PDFName.of('Kids')) : undefined
+    if (kids instanceof PDFArray) for (let i = 0; i < kids.size(); i++) collectTree(kids.get(i), depth + 1)
+  }
+  collectTree(idTreeRef, 0)
+  for (const ref of treeNodes) ctx.delete(ref)
+  for (const [, obj] of ctx.enumerateIndirectObjects()) visit(obj, 0)
+
+  // the name tree again, as one leaf whose keys (s00000001…) are sorted because they follow the walk
+  const names: PDFObject[] = []
+  const listed = new Set<string>()
+  for (const { name, ref } of ordered) {
+    if (!ref || listed.has(name)) continue
+    listed.add(name)
+    names.push(renamed.get(name)!, ref)
+  }
+  if (names.length) root.set(PDFName.of('IDTree'), ctx.register(ctx.obj({ Names: names })))
+  else root.delete(PDFName.of('IDTree'))
 }
 
 /**

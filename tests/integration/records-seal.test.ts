@@ -1,7 +1,10 @@
+import { readFileSync } from 'node:fs'
+import { join } from 'node:path'
 import { beforeAll, describe, expect, it } from 'vitest'
 import { PDFDocument } from 'pdf-lib'
 import { sha256Hex } from '../../server/utils/hashing'
 import { DEMO_PS2 } from '../../shared/engine/demo'
+import { withDb } from '../helpers/db'
 import { makeSheet, pdfText, session, setSheetInputs, type Session } from './records-fixtures'
 
 let engineer: Session
@@ -81,6 +84,27 @@ describe('sealing an approved revision', () => {
     expect(check.status).toBe(200)
     expect(check.body).toMatchObject({ identical: true, sealedSha256: sha256Hex(sealedBytes) })
     expect((await records.json('POST', `/api/revisions/${approved.id}/seal`)).status).toBe(409)
+  })
+
+  it('keeps the render and its print page when a re-render differs, and says that the printed data changed', async () => {
+    await withDb(conn => conn.query('UPDATE projects SET name = ? WHERE id = ?', ['Alder Yard podium (renamed after sealing)', sheet.projectId]))
+    try {
+      const check = await records.json('POST', `/api/revisions/${approved.id}/reseal-check`)
+      expect(check.status).toBe(200)
+      expect(check.body).toMatchObject({ identical: false, printPageChanged: true })
+      expect(check.body.message).toContain('print page differs')
+      const [rows] = await withDb(conn => conn.query('SELECT detail FROM audit_events WHERE action = ? ORDER BY id DESC LIMIT 1', ['revision.reseal-check']))
+      const detail = (rows as Array<{ detail: unknown }>)[0]!.detail
+      const kept = (typeof detail === 'string' ? JSON.parse(detail) : detail).kept as { pdf: string, printPage: string }
+      const folder = join(process.env.TENDONBOOK_TEST_BASE!, 'files')
+      const keptPage = readFileSync(join(folder, ...kept.printPage.split(':')), 'utf8')
+      expect(keptPage).toContain('renamed after sealing')
+      expect(sha256Hex(readFileSync(join(folder, ...kept.pdf.split(':'))))).toBe(check.body.renderedSha256)
+    }
+    finally {
+      await withDb(conn => conn.query('UPDATE projects SET name = ? WHERE id = ?', ['Alder Yard podium (records test)', sheet.projectId]))
+    }
+    expect((await records.json('POST', `/api/revisions/${approved.id}/reseal-check`)).body.identical).toBe(true)
   })
 })
 

@@ -1,6 +1,6 @@
 import { createServer, type Server } from 'node:http'
 import type { AddressInfo } from 'node:net'
-import { PDFDocument } from 'pdf-lib'
+import { PDFArray, PDFDict, PDFDocument, PDFHexString, PDFName, PDFString, type PDFObject } from 'pdf-lib'
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest'
 import { sha256Hex } from '../../../server/utils/hashing'
 import { footerTemplate, headerTemplate, type TitleBlock } from '../../../server/utils/print-templates'
@@ -27,7 +27,7 @@ beforeAll(async () => {
       return
     }
     res.setHeader('content-type', 'text/html')
-    res.end(`<html><body><h1>PS-2 stresses</h1><p>sigma ok</p><table><tr><th>Check</th><th>Utilisation</th></tr><tr><td>Top fibre</td><td>0.36</td></tr></table><img src="${foreignOrigin}/tracker.png"><script>document.body.append('script ran')</script></body></html>`)
+    res.end(`<html><body><h1>PS-2 stresses</h1><p>sigma ok</p><table><tr><th>Check</th><th>Stage</th><th>Utilisation</th></tr><tr><td>Top fibre</td><td>transfer</td><td>0.36</td></tr><tr><th>Bottom fibre</th><td>service</td><td>0.81</td></tr></table><img src="${foreignOrigin}/tracker.png"><script>document.body.append('script ran')</script></body></html>`)
   })
   origin = await listen(own)
 })
@@ -43,16 +43,61 @@ const block: TitleBlock = {
   checkedBy: 'T. O.', checkedOn: '2026-03-02', archiveRef: '2417-PS-2-C01', contentHash: 'ab'.repeat(32), verificationRef: 'TB-ABAB-ABAB-ABAB',
 }
 
+const nodeIds = (bytes: Uint8Array) => Buffer.from(bytes).toString('latin1').match(/\/ID \(node\d+\)/g) ?? []
+const creationDate = async (bytes: Uint8Array) => (await PDFDocument.load(bytes, { updateMetadata: false })).getCreationDate()?.toISOString()
+
+/** Structure-element ids as another render might number them: from another start, or in another order. */
+const shifted = (offset: number) => (ids: string[]) => new Map(ids.map(id => [id, `node${String(Number(id.slice(4)) + offset).padStart(id.length - 4, '0')}`]))
+const reversed = (ids: string[]) => new Map(ids.map((id, i) => [id, ids[ids.length - 1 - i]!]))
+
+/** A copy of a rendered PDF as another render might have written it: other structure ids, dates and /ID. */
+async function relabel(bytes: Uint8Array, change: { ids: (sorted: string[]) => Map<string, string>, date: Date, documentId: string }): Promise<Uint8Array> {
+  const doc = await PDFDocument.load(bytes, { updateMetadata: false })
+  const all = new Set<string>()
+  const collect = (obj: PDFObject, depth: number) => {
+    if (depth > 64) return
+    if ((obj instanceof PDFString || obj instanceof PDFHexString) && /^node\d+$/.test(obj.decodeText())) all.add(obj.decodeText())
+    else if (obj instanceof PDFDict) for (const [, value] of obj.entries()) collect(value, depth + 1)
+    else if (obj instanceof PDFArray) for (let i = 0; i < obj.size(); i++) collect(obj.get(i), depth + 1)
+  }
+  const objects = doc.context.enumerateIndirectObjects().map(([, obj]) => obj)
+  for (const obj of objects) collect(obj, 0)
+  const map = change.ids([...all].sort())
+  const visit = (obj: PDFObject, depth: number): PDFObject => {
+    if (depth > 64) return obj
+    if (obj instanceof PDFString || obj instanceof PDFHexString) {
+      const next = map.get(obj.decodeText())
+      return next === undefined ? obj : PDFString.of(next)
+    }
+    if (obj instanceof PDFDict) for (const [key, value] of obj.entries()) obj.set(key, visit(value, depth + 1))
+    else if (obj instanceof PDFArray) for (let i = 0; i < obj.size(); i++) obj.set(i, visit(obj.get(i), depth + 1))
+    return obj
+  }
+  for (const obj of objects) visit(obj, 0)
+  doc.setCreationDate(change.date)
+  doc.setModificationDate(change.date)
+  const id = PDFHexString.of(change.documentId)
+  doc.context.trailerInfo.ID = doc.context.obj([id, id])
+  return doc.save({ useObjectStreams: false, addDefaultPage: false, updateFieldAppearances: false })
+}
+
 describe('PDF rendering (system Chromium)', { timeout: 60_000 }, () => {
-  it('gives byte-identical files for the same page once dates and /ID are fixed', async () => {
-    const job = { url: `${origin}/`, origin, cookies: [], headerTemplate: headerTemplate(block), footerTemplate: footerTemplate(block) }
-    // two pages at once share a renderer process, whose DOM node counter tagged PDFs use for ids
-    const [a, b] = await Promise.all([renderPdf(job), new Promise(r => setTimeout(r, 1100)).then(() => renderPdf(job))])
+  const job = () => ({ url: `${origin}/`, origin, cookies: [], headerTemplate: headerTemplate(block), footerTemplate: footerTemplate(block) })
+  const meta = { title: 't', subject: 's', keywords: ['k'], date: new Date('2026-03-02T09:00:00Z'), documentId: 'ab'.repeat(16) }
+
+  it.each([
+    ['numbered from another start', shifted(4096)],
+    ['numbered in another order', reversed],
+  ])('turns two renders of one page into the same bytes whatever their dates, /ID and structure ids (%s)', async (_, ids) => {
+    const a = await renderPdf(job())
+    // Chromium does not promise how it numbers structure elements (ids are handed out lazily, some
+    // while the page paints) nor what it writes as dates and /ID, so the second copy is made to
+    // differ in all of them on purpose, instead of hoping that a second render does
+    const b = await relabel(a, { ids, date: new Date('2031-07-09T17:45:00Z'), documentId: 'cd'.repeat(16) })
     expect(sha256Hex(a)).not.toBe(sha256Hex(b))
-    const nodeIds = (bytes: Uint8Array) => Buffer.from(bytes).toString('latin1').match(/\/ID \(node\d+\)/g) ?? []
-    expect(nodeIds(a).length).toBeGreaterThan(0)
-    expect(nodeIds(a)).not.toEqual(nodeIds(b))
-    const meta = { title: 't', subject: 's', keywords: ['k'], date: new Date('2026-03-02T09:00:00Z'), documentId: 'ab'.repeat(16) }
+    expect(nodeIds(a).length).toBeGreaterThan(1)
+    expect(nodeIds(b)).not.toEqual(nodeIds(a))
+    expect(await creationDate(b)).not.toBe(await creationDate(a))
     const fixedA = await makeReproducible(a, meta)
     const fixedB = await makeReproducible(b, meta)
     expect(sha256Hex(fixedA.bytes)).toBe(sha256Hex(fixedB.bytes))
@@ -60,6 +105,31 @@ describe('PDF rendering (system Chromium)', { timeout: 60_000 }, () => {
     const doc = await PDFDocument.load(fixedA.bytes, { updateMetadata: false })
     expect(doc.getCreationDate()?.toISOString()).toBe('2026-03-02T09:00:00.000Z')
     expect(doc.getProducer()).toBe('Tendonbook')
+    expect(nodeIds(fixedA.bytes)).toEqual([])
+    // the id name tree still leads from each (renamed, sorted) id to the element that carries it
+    const root = doc.context.lookup(doc.catalog.get(PDFName.of('StructTreeRoot'))) as PDFDict
+    const names = (doc.context.lookup(root.get(PDFName.of('IDTree'))) as PDFDict).get(PDFName.of('Names')) as PDFArray
+    const keys: string[] = []
+    for (let i = 0; i < names.size(); i += 2) {
+      const key = (names.get(i) as PDFString).decodeText()
+      keys.push(key)
+      expect(((doc.context.lookup(names.get(i + 1)) as PDFDict).get(PDFName.of('ID')) as PDFString).decodeText()).toBe(key)
+    }
+    expect(keys.length).toBe(nodeIds(a).length)
+    expect(keys).toEqual([...keys].sort())
+  })
+
+  it('gives the same bytes for two fresh renders of one page, each made reproducible', async () => {
+    const [a, b] = [await renderPdf(job()), await renderPdf(job())]
+    const fixedA = await makeReproducible(a, meta)
+    const fixedB = await makeReproducible(b, meta)
+    expect(sha256Hex(fixedA.bytes)).toBe(sha256Hex(fixedB.bytes))
+  })
+
+  it('keeps a different page different once made reproducible', async () => {
+    const a = await makeReproducible(await renderPdf(job()), meta)
+    const other = await makeReproducible(await renderPdf({ ...job(), footerTemplate: footerTemplate({ ...block, contentHash: 'cd'.repeat(32) }) }), meta)
+    expect(sha256Hex(other.bytes)).not.toBe(sha256Hex(a.bytes))
   })
 
   it('runs no script and reaches no other origin', async () => {
