@@ -5,7 +5,8 @@
 //          starts mariadbd on 127.0.0.1, creates the database and the application user, migrates.
 //   stop   shuts the instance down cleanly.
 // The demo instance lives in .data/ on port 3406; the test instance in .data-test/ on port 3407,
-// so tests never touch the demo data.
+// so tests never touch the demo data. Both are settings (see `settings` below), so several
+// instances and test runs can live on one machine side by side.
 import { spawn, spawnSync, execFileSync } from 'node:child_process'
 import { randomBytes } from 'node:crypto'
 import { existsSync, mkdirSync, readFileSync, writeFileSync, openSync } from 'node:fs'
@@ -17,8 +18,27 @@ const root = resolve(dirname(fileURLToPath(import.meta.url)), '..')
 /** Tables whose rows may never change once written: the app user gets SELECT and INSERT only. */
 export const APPEND_ONLY_TABLES = ['revisions', 'reviews', 'seals', 'audit_events', 'attachments', 'templates']
 
+/**
+ * Every port and folder of a run, from the environment with today's values as defaults:
+ * TENDONBOOK_DATA_DIR (.data), TENDONBOOK_DB_PORT (3406), TENDONBOOK_MAIL_PORT (2526) for the demo;
+ * TENDONBOOK_TEST_DATA_DIR (.data-test), TENDONBOOK_TEST_DB_PORT (3407), TENDONBOOK_TEST_MAIL_PORT
+ * (2527, e2e +10) and TENDONBOOK_TEST_APP_PORT (3100, e2e +1) for `npm test`. PORT is the app's.
+ */
+export function settings(test = false, env = process.env) {
+  const number = (name, fallback) => {
+    const raw = env[name]
+    if (raw === undefined || raw === '') return fallback
+    const value = Number(raw)
+    if (!Number.isInteger(value) || value < 1 || value > 65535) throw new Error(`${name} must be a port number from 1 to 65535, not "${raw}"`)
+    return value
+  }
+  return test
+    ? { base: resolve(root, env.TENDONBOOK_TEST_DATA_DIR || '.data-test'), dbPort: number('TENDONBOOK_TEST_DB_PORT', 3407), mailPort: number('TENDONBOOK_TEST_MAIL_PORT', 2527), appPort: number('TENDONBOOK_TEST_APP_PORT', 3100) }
+    : { base: resolve(root, env.TENDONBOOK_DATA_DIR || '.data'), dbPort: number('TENDONBOOK_DB_PORT', 3406), mailPort: number('TENDONBOOK_MAIL_PORT', 2526), appPort: number('PORT', 3000) }
+}
+
 export function instance(test = false) {
-  const base = join(root, test ? '.data-test' : '.data')
+  const { base, dbPort, mailPort, appPort } = settings(test)
   return {
     name: test ? 'test' : 'demo',
     base,
@@ -27,7 +47,9 @@ export function instance(test = false) {
     socket: join(base, 'run', 'mysqld.sock'),
     pidFile: join(base, 'run', 'mysqld.pid'),
     logFile: join(base, 'mariadb.log'),
-    port: test ? 3407 : 3406,
+    port: dbPort,
+    mailPort,
+    appPort,
     database: test ? 'tendonbook_test' : 'tendonbook',
     user: 'tendonbook',
   }

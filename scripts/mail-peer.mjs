@@ -4,7 +4,7 @@ import { mkdirSync, writeFileSync } from 'node:fs'
 import { join } from 'node:path'
 import { SMTPServer } from 'smtp-server'
 
-export async function startMailPeer(inst, port = inst.name === 'test' ? 2527 : 2526, folder = 'mailbox') {
+export async function startMailPeer(inst, port = inst.mailPort, folder = 'mailbox') {
   const dir = join(inst.base, folder)
   mkdirSync(dir, { recursive: true })
   let seq = 0

@@ -13,7 +13,6 @@ import { issueDemoRevision } from './demo-revision.mjs'
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '..')
 const dev = process.argv.includes('--dev')
-const port = Number(process.env.PORT ?? 3000)
 
 const DEMO_SIGNINS = [
   ['engineer', 'engineer@tendonbook.local', 'engineer-demo-2417'],
@@ -24,6 +23,7 @@ const DEMO_SIGNINS = [
 
 async function main() {
   const inst = await start()
+  const port = inst.appPort
   seed(inst)
   const mail = await startMailPeer(inst)
   const env = {

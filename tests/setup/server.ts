@@ -25,8 +25,9 @@ export default async function setup(project: TestProject) {
   const { instance } = await import('../../scripts/db.mjs')
   // integration and e2e may run side by side: each gets its own server, SMTP port and mailbox
   const offset = project.name === 'e2e' ? 1 : 0
-  const port = 3100 + offset
-  const mail = await startMailPeer(instance(true), 2527 + offset * 10, `mailbox-${project.name}`)
+  const inst = instance(true)
+  const port = inst.appPort + offset
+  const mail = await startMailPeer(inst, inst.mailPort + offset * 10, `mailbox-${project.name}`)
 
   const server: ChildProcess = spawn(process.execPath, [entry], {
     cwd: root,
