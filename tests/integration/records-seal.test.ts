@@ -1,7 +1,7 @@
 import { beforeAll, describe, expect, it } from 'vitest'
 import { PDFDocument } from 'pdf-lib'
 import { sha256Hex } from '../../server/utils/hashing'
-import { DEMO_PS2 } from '../../shared/engine/demo'
+import { DEMO_PS2 } from '../../shared/engine/input/demo'
 import { makeSheet, pdfText, session, setSheetInputs, type Session } from './records-fixtures'
 
 let engineer: Session

@@ -1,5 +1,5 @@
 /** Merging a partial input (a proposal's patch) into a member input: objects merge, arrays and values replace. */
-import type { MemberInput } from '../schema'
+import type { MemberInput } from './schema'
 
 export type InputPatch = {
   [K in keyof MemberInput]?: Partial<MemberInput[K]>

@@ -1,18 +1,18 @@
 /**
  * The input of a member design: one zod 4 schema, from which the editor's form is generated and
- * against which designMember validates. Every number is in engine units (mm, N, MPa, N/mm, days;
+ * against which designMember validates; parseMemberInput turns its first issue into an
+ * EngineInputError naming the field. Every number is in engine units (mm, N, MPa, N/mm, days;
  * fractions for percentages); `.meta()` gives the label, the display unit the engineer types in,
  * the decimals shown and the input group. National-annex values carry the recommended EN values as
  * defaults, each overridable. Optional groups can be added to `memberInputShape` as new keys with
  * `.default({})` or `.optional()`, and the refinements below stay as they are.
  */
 import { z } from 'zod'
-import type { QuantitySpec } from './contract'
-import type { DisplayUnit } from '../utils/units'
-import { CONCRETE_CLASSES } from './materials/concrete'
-import type { ConcreteClass } from './materials/concrete'
-import { EXPOSURE_CLASSES } from './checks/stresses'
-import { part2InputShape } from './uls/input-groups'
+import { EngineInputError } from '../contract'
+import type { DisplayUnit } from '../../utils/units'
+import { CONCRETE_CLASSES } from '../materials/concrete'
+import type { ConcreteClass } from '../materials/concrete'
+import { EXPOSURE_CLASSES } from '../checks/stresses'
 
 export const INPUT_GROUPS = ['geometry', 'section', 'materials', 'loads', 'tendon', 'profile', 'losses', 'limits', 'annex', 'uls', 'sls', 'site'] as const
 export type InputGroup = (typeof INPUT_GROUPS)[number]
@@ -52,6 +52,24 @@ function length(m: Omit<FieldMeta, 'unit'> & { unit?: DisplayUnit }, min: number
     .min(min, min === 0 ? `${m.label} must not be negative` : `${m.label} must be at least ${shown(min)}`)
     .max(max, `${m.label} must not exceed ${shown(max)}`)
     .meta(meta({ ...m, unit }))
+}
+
+/** A number within [min, max], one message for both bounds where given. */
+function bounded(m: FieldMeta, min: number, max: number, msg?: string): z.ZodNumber {
+  return z.number({ error: `${m.label}: enter a number` })
+    .min(min, msg ?? `${m.label} must be at least ${min}`)
+    .max(max, msg ?? `${m.label} must not exceed ${max}`)
+    .meta(m)
+}
+
+// the return type is left to inference so that the parsed input keeps its shape
+function bars(where: 'bottom' | 'top') {
+  const side = where === 'bottom' ? 'Bottom' : 'Top'
+  return z.object({
+    area: bounded({ label: `${side} bars, area in the width designed`, unit: 'mm²', precision: 0, group: 'uls', symbol: where === 'bottom' ? 'A_{s,bot}' : 'A_{s,top}', help: 'per metre for a slab strip; 0 for none' }, 0, 1e6, `${side} bar area must lie between 0 and 1 000 000 mm²`).default(0),
+    diameter: bounded({ label: `${side} bar diameter`, unit: 'mm', precision: 0, group: 'uls', symbol: '\\phi' }, 6, 50, 'A bar diameter lies between 6 and 50 mm').default(12),
+    cover: bounded({ label: `${side} cover to the bars`, unit: 'mm', precision: 0, group: 'uls', symbol: 'c', clause: 'EN 1992-1-1 4.4.1' }, 10, 150, 'The cover must lie between 10 and 150 mm').default(30),
+  }).prefault({})
 }
 
 const CLASS_NAMES = Object.keys(CONCRETE_CLASSES) as [ConcreteClass, ...ConcreteClass[]]
@@ -183,8 +201,67 @@ export const memberInputShape = {
     rsupUnbonded: factor({ label: 'rsup, unbonded tendons', group: 'annex', symbol: 'r_{sup}', clause: 'EN 1992-1-1 5.10.9(1)' }, 1, 1.3).default(1.05),
     rinfUnbonded: factor({ label: 'rinf, unbonded tendons', group: 'annex', symbol: 'r_{inf}', clause: 'EN 1992-1-1 5.10.9(1)' }, 0.7, 1).default(0.95),
   }).prefault({}),
-  // part 2: ULS, shear, punching, deflection, cracking and the site schedules, all optional with defaults
-  ...part2InputShape,
+  // ultimate limit state, shear, punching, deflection, cracking and the site schedules: optional groups with defaults
+  uls: z.object({
+    combination: z.enum(['6.10', '6.10a/b']).default('6.10')
+      .meta({ label: 'Fundamental combination', unit: '', precision: 0, group: 'uls', clause: 'EN 1990 6.4.3.2', help: 'eq. (6.10), or the less favourable of eqs. (6.10a) and (6.10b)' }),
+    gammaG: bounded({ label: 'γG,sup (permanent, unfavourable)', unit: '', precision: 2, group: 'uls', symbol: '\\gamma_G', clause: 'EN 1990 Table A1.2(B)' }, 1, 2).default(1.35),
+    gammaQ: bounded({ label: 'γQ (imposed)', unit: '', precision: 2, group: 'uls', symbol: '\\gamma_Q', clause: 'EN 1990 Table A1.2(B)' }, 1, 2).default(1.5),
+    xi: bounded({ label: 'ξ of eq. (6.10b)', unit: '', precision: 2, group: 'uls', symbol: '\\xi', clause: 'EN 1990 Table A1.2(B)' }, 0.5, 1).default(0.85),
+    gammaP: bounded({ label: 'γP on the secondary effects of prestress', unit: '', precision: 2, group: 'uls', symbol: '\\gamma_P', clause: 'EN 1992-1-1 2.4.2.2(1)' }, 0.8, 1.2).default(1.0),
+    gammaC: bounded({ label: 'γc (concrete)', unit: '', precision: 2, group: 'uls', symbol: '\\gamma_c', clause: 'EN 1992-1-1 Table 2.1N' }, 1, 2).default(1.5),
+    gammaS: bounded({ label: 'γs (steel)', unit: '', precision: 2, group: 'uls', symbol: '\\gamma_s', clause: 'EN 1992-1-1 Table 2.1N' }, 1, 1.5).default(1.15),
+    alphaCC: bounded({ label: 'αcc (long-term effects on fcd)', unit: '', precision: 2, group: 'uls', symbol: '\\alpha_{cc}', clause: 'EN 1992-1-1 3.1.6(1)' }, 0.8, 1).default(1.0),
+    branch: z.enum(['inclined', 'horizontal']).default('inclined')
+      .meta({ label: 'Design stress–strain curve of the steel', unit: '', precision: 0, group: 'uls', clause: 'EN 1992-1-1 3.2.7(2), 3.3.6(7)', help: 'inclined top branch with a strain limit, or horizontal top branch' }),
+    epsUdTendon: bounded({ label: 'εud of the strand', unit: '%', precision: 1, group: 'uls', symbol: '\\varepsilon_{ud}', clause: 'EN 1992-1-1 3.3.6(7)', help: '2 % where the supplier gives no value' }, 0.005, 0.05).default(0.02),
+    deltaSigmaUnbonded: bounded({ label: 'Stress increase of unbonded tendons at ULS', unit: 'MPa', precision: 0, group: 'uls', symbol: '\\Delta\\sigma_{p,ULS}', clause: 'EN 1992-1-1 5.10.8(2)' }, 0, 500).default(100),
+    fyk: bounded({ label: 'fyk of the reinforcement', unit: 'MPa', precision: 0, group: 'uls', symbol: 'f_{yk}', clause: 'EN 1992-1-1 3.2.2' }, 400, 600).default(500),
+    barsBottom: bars('bottom'),
+    barsTop: bars('top'),
+  }).prefault({}),
+  shear: z.object({
+    fywk: bounded({ label: 'fywk of the links', unit: 'MPa', precision: 0, group: 'uls', symbol: 'f_{ywk}', clause: 'EN 1992-1-1 3.2.2' }, 400, 600).default(500),
+    cotThetaMax: bounded({ label: 'Largest cot θ of the struts', unit: '', precision: 2, group: 'uls', symbol: '\\cot\\theta', clause: 'EN 1992-1-1 6.2.3(2)' }, 1, 2.5).default(2.5),
+    ductMaterial: z.enum(['metal', 'plastic']).default('metal')
+      .meta({ label: 'Duct material (grouted)', unit: '', precision: 0, group: 'uls', clause: 'EN 1992-1-1 6.2.3(6)' }),
+    k1: bounded({ label: 'k1 on σcp (shear)', unit: '', precision: 2, group: 'uls', symbol: 'k_1', clause: 'EN 1992-1-1 6.2.2(1)' }, 0, 0.5).default(0.15),
+  }).prefault({}),
+  punching: z.object({
+    column: z.enum(['none', 'interior', 'edge', 'corner']).default('none')
+      .meta({ label: 'Punching check at a column head', unit: '', precision: 0, group: 'uls', clause: 'EN 1992-1-1 6.4', help: 'slab strips over columns; none skips the check' }),
+    support: z.number().int('Support: a whole number').min(1, 'Supports are numbered from 1').max(11, 'At most 11 supports').default(2)
+      .meta({ label: 'Support number of the column', unit: '', precision: 0, group: 'uls' }),
+    c1: bounded({ label: 'Column size along the strip', unit: 'mm', precision: 0, group: 'uls', symbol: 'c_1' }, 100, 3000).default(400),
+    c2: bounded({ label: 'Column size across the strip', unit: 'mm', precision: 0, group: 'uls', symbol: 'c_2' }, 100, 3000).default(400),
+    panelWidth: bounded({ label: 'Panel width carried by the column line', unit: 'm', precision: 2, group: 'uls', symbol: 'l_2' }, 1000, 40000).default(8000),
+    k1: bounded({ label: 'k1 on σcp (punching)', unit: '', precision: 2, group: 'uls', symbol: 'k_1', clause: 'EN 1992-1-1 6.4.4(1)' }, 0, 0.5).default(0.1),
+    vRdMaxFactor: bounded({ label: 'vRd,max / (ν fcd)', unit: '', precision: 2, group: 'uls', clause: 'EN 1992-1-1 6.4.5(3), A1:2014' }, 0.3, 0.6).default(0.4),
+  }).prefault({}),
+  deflection: z.object({
+    ratioTotal: bounded({ label: 'Span / deflection limit, total', unit: '', precision: 0, group: 'sls', clause: 'EN 1992-1-1 7.4.1(4)' }, 100, 1000).default(250),
+    ratioAfter: bounded({ label: 'Span / deflection limit, after construction', unit: '', precision: 0, group: 'sls', clause: 'EN 1992-1-1 7.4.1(5)' }, 100, 2000).default(500),
+    limit: bounded({ label: 'Engineer\'s limit on the long-term deflection', unit: 'mm', precision: 0, group: 'sls', help: 'leave out for none' }, 1, 500).optional(),
+    beta: bounded({ label: 'β for the cracked share', unit: '', precision: 2, group: 'sls', symbol: '\\beta', clause: 'EN 1992-1-1 eq. (7.19)' }, 0.5, 1).default(0.5),
+    phi: bounded({ label: 'Creep coefficient (override)', unit: '', precision: 2, group: 'sls', symbol: '\\varphi', clause: 'EN 1992-1-1 Annex B', help: 'leave out to use Annex B' }, 0, 6).optional(),
+  }).prefault({}),
+  cracking: z.object({
+    duration: z.enum(['long', 'short']).default('long')
+      .meta({ label: 'Duration of the load for kt', unit: '', precision: 0, group: 'sls', clause: 'EN 1992-1-1 7.3.4(2)' }),
+    wmax: bounded({ label: 'Crack width limit (override)', unit: 'mm', precision: 2, group: 'sls', symbol: 'w_{max}', clause: 'EN 1992-1-1 Table 7.1N', help: 'leave out for Table 7.1N' }, 0.05, 0.5).optional(),
+  }).prefault({}),
+  site: z.object({
+    spacing: bounded({ label: 'Station spacing of the height schedule', unit: 'mm', precision: 0, group: 'site', help: 'commonly 500 or 1000 mm' }, 100, 5000).default(1000),
+    roundTo: bounded({ label: 'Chair heights rounded to', unit: 'mm', precision: 0, group: 'site', help: '5 mm is common practice; 0 leaves them unrounded' }, 0, 25).default(5),
+    tendons: z.number().int('Tendons on the schedule: a whole number').min(1, 'At least one tendon').max(200, 'At most 200 tendons').optional()
+      .meta({ label: 'Tendons on the stressing schedule', unit: '', precision: 0, group: 'site', help: 'beams default to the tendon count, slab strips to one typical tendon' }),
+    alternateEnds: z.enum(['no', 'yes']).default('no')
+      .meta({ label: 'Alternate the stressing end tendon by tendon', unit: '', precision: 0, group: 'site', help: 'for tendons stressed from one end' }),
+    tolerance: bounded({ label: 'Acceptance band on measured extensions', unit: '%', precision: 0, group: 'site', help: '±7 % is common practice' }, 0, 0.5).default(0.07),
+    jackLength: bounded({ label: 'Strand length inside the jack', unit: 'mm', precision: 0, group: 'site', help: 'its extension is added to the calculated value at each stressed end' }, 0, 2000).default(0),
+    measured: z.array(bounded({ label: 'Measured extension', unit: 'mm', precision: 0, group: 'site' }, 0, 5000)).optional()
+      .meta({ label: 'Measured extensions (total, tendon by tendon; 0 = not yet measured)', unit: 'mm', precision: 0, group: 'site' }),
+  }).prefault({}),
 }
 
 type Ctx = z.RefinementCtx
@@ -225,78 +302,13 @@ export type MemberInput = z.output<typeof memberInputSchema>
 /** What a caller may pass: defaults may be left out. */
 export type MemberInputDraft = z.input<typeof memberInputSchema>
 
-export interface InputFieldSpec {
-  path: string
-  spec: QuantitySpec & { group: string; help?: string }
-  kind: 'number' | 'enum' | 'array'
-  options?: string[]
-}
-
-interface ZodDefLike {
-  type: string
-  innerType?: z.ZodType
-  element?: z.ZodType
-  shape?: Record<string, z.ZodType>
-  entries?: Record<string, string>
-  in?: z.ZodType
-}
-
-function defOf(schema: z.ZodType): ZodDefLike {
-  return (schema as unknown as { _zod: { def: ZodDefLike } })._zod.def
-}
-
-function metaOf(schema: z.ZodType): FieldMeta | undefined {
-  let s: z.ZodType | undefined = schema
-  while (s) {
-    const m = z.globalRegistry.get(s) as FieldMeta | undefined
-    if (m && m.label) return m
-    const d = defOf(s)
-    s = d.type === 'default' || d.type === 'optional' || d.type === 'nullable' || d.type === 'prefault' ? d.innerType : d.type === 'pipe' ? d.in : undefined
+/** Validate raw input with the schema; the first issue becomes an EngineInputError naming its path. */
+export function parseMemberInput(raw: unknown): MemberInput {
+  const r = memberInputSchema.safeParse(raw)
+  if (!r.success) {
+    const issue = r.error.issues[0]
+    const path = issue ? issue.path.map(String).join('.') : ''
+    throw new EngineInputError(path || 'input', issue?.message ?? 'invalid input')
   }
-  return undefined
-}
-
-function unwrap(schema: z.ZodType): z.ZodType {
-  let s = schema
-  for (;;) {
-    const d = defOf(s)
-    if ((d.type === 'default' || d.type === 'optional' || d.type === 'nullable' || d.type === 'prefault') && d.innerType) s = d.innerType
-    else if (d.type === 'pipe' && d.in) s = d.in
-    else return s
-  }
-}
-
-function toSpec(m: FieldMeta): InputFieldSpec['spec'] {
-  const spec: InputFieldSpec['spec'] = { label: m.label, unit: m.unit, precision: m.precision, group: m.group }
-  if (m.symbol !== undefined) spec.symbol = m.symbol
-  if (m.clause !== undefined) spec.clause = m.clause
-  if (m.help !== undefined) spec.help = m.help
-  return spec
-}
-
-function walk(schema: z.ZodType, path: string, out: InputFieldSpec[]): void {
-  const inner = unwrap(schema)
-  const d = defOf(inner)
-  if (d.type === 'object' && d.shape) {
-    for (const [k, v] of Object.entries(d.shape)) walk(v, path ? `${path}.${k}` : k, out)
-    return
-  }
-  const m = metaOf(schema)
-  if (!m) throw new Error(`input field ${path} has no metadata`)
-  if (d.type === 'number') out.push({ path, spec: toSpec(m), kind: 'number' })
-  else if (d.type === 'enum' && d.entries) out.push({ path, spec: toSpec(m), kind: 'enum', options: Object.values(d.entries) })
-  else if (d.type === 'array' && d.element) {
-    const el = unwrap(d.element)
-    const ed = defOf(el)
-    const em = metaOf(d.element) ?? m
-    const spec = toSpec({ ...em, label: m.label })
-    out.push(ed.type === 'enum' && ed.entries ? { path, spec, kind: 'array', options: Object.values(ed.entries) } : { path, spec, kind: 'array' })
-  } else throw new Error(`input field ${path} has an unsupported type ${d.type}`)
-}
-
-/** Every input field with its label, unit, precision and group, in form order. */
-export function inputFieldSpecs(): InputFieldSpec[] {
-  const out: InputFieldSpec[] = []
-  walk(memberInputSchema, '', out)
-  return out
+  return r.data
 }

@@ -1,5 +1,5 @@
 /**
- * Demo inputs for the invented scenario "Alder Yard podium", job 2417 (design.md §6).
+ * Demo inputs for the invented scenario "Alder Yard podium", job 2417 (fictional project and job).
  * Engine units: mm, N/mm², fractions.
  */
 import type { MemberInputDraft } from './schema'
