@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
-import { EngineInputError, INPUT_GROUPS, designMember, inputFieldSpecs, memberInputSchema, DEMO_PS2 } from '../../../shared/engine/index'
-import { isDisplayUnit } from '../../../shared/utils/units'
+import { EngineInputError, INPUT_GROUPS, designMember, inputFieldSpecs, memberInputSchema, DEMO_PS2 } from '../../../../shared/engine/index'
+import { isDisplayUnit } from '../../../../shared/utils/units'
 
 const minimal = {
   geometry: { spans: [8000, 8000] },

@@ -7,9 +7,9 @@
  * passing input (no proposal needs more strands than an input that passes already).
  */
 import { describe, expect, it } from 'vitest'
-import { DEMO_BB1, DEMO_PS2, designMember, mergeInputPatch } from '../../../shared/engine/index'
-import type { Design, MemberInputDraft } from '../../../shared/engine/index'
-import { between, prng } from './prng'
+import { DEMO_BB1, DEMO_PS2, designMember, mergeInputPatch } from '../../../../shared/engine/index'
+import type { Design, MemberInputDraft } from '../../../../shared/engine/index'
+import { between, prng } from '../../../helpers/prng'
 
 const stressChecksPass = (d: Design): boolean => d.checks.filter((c) => c.group === 'transfer' || c.group === 'service').every((c) => c.pass)
 
@@ -40,11 +40,11 @@ function expectSameLeast(results: Array<ReturnType<typeof proposeFrom>>, toleran
 }
 
 describe('PS-2 from any tendon spacing', () => {
-  it('spacings 600 … 2000 mm all give a verified proposal with the same least force within 3 %', () => {
+  it('spacings 600 … 2000 mm all give a verified proposal with the same least force within 3 %', { timeout: 60_000 }, () => {
     const results = [600, 900, 1200, 1500, 2000].map((spacing) => proposeFrom({ ...DEMO_PS2, tendon: { ...DEMO_PS2.tendon, spacing } }))
     expectSameLeast(results, 0.03)
   })
-  it('spacing 1500 mm (half the strands of a passing 750 mm) is far from passing yet has a proposal', () => {
+  it('spacing 1500 mm (half the strands of a passing 750 mm) is far from passing yet has a proposal', { timeout: 60_000 }, () => {
     const start = { ...DEMO_PS2, tendon: { ...DEMO_PS2.tendon, spacing: 1500 } }
     expect(stressChecksPass(designMember(start, { proposal: false }))).toBe(false)
     const r = proposeFrom(start)
@@ -54,7 +54,7 @@ describe('PS-2 from any tendon spacing', () => {
 })
 
 describe('BB-1 from any tendon count', () => {
-  it('1, 2, 3, 4 and 6 tendons all give a verified proposal with the same least force within 3 %', () => {
+  it('1, 2, 3, 4 and 6 tendons all give a verified proposal with the same least force within 3 %', { timeout: 60_000 }, () => {
     const results = [1, 2, 3, 4, 6].map((count) => proposeFrom({ ...DEMO_BB1, tendon: { ...DEMO_BB1.tendon, count } }))
     expectSameLeast(results, 0.03)
   })
@@ -85,7 +85,7 @@ function randomBandBeam(r: () => number): MemberInputDraft {
 }
 
 describe('random members starting from too few strands (seeded)', () => {
-  it('slabs at 2500 mm spacing get the least force that a start at 1500 or 900 mm gets, within 3 %', () => {
+  it('slabs at 2500 mm spacing get the least force that a start at 1500 or 900 mm gets, within 3 %', { timeout: 60_000 }, () => {
     const r = prng(20417)
     for (let trial = 0; trial < 4; trial++) {
       const slab = randomSlab(r)
@@ -93,7 +93,7 @@ describe('random members starting from too few strands (seeded)', () => {
       expectSameLeast(results, 0.03)
     }
   })
-  it('band beams with one tendon get the least force that a start with two or four tendons gets, within 3 %', () => {
+  it('band beams with one tendon get the least force that a start with two or four tendons gets, within 3 %', { timeout: 60_000 }, () => {
     const r = prng(24171)
     for (let trial = 0; trial < 4; trial++) {
       const beam = randomBandBeam(r)

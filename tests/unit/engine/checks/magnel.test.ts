@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest'
 import solver from 'javascript-lp-solver'
-import { fibreStresses, magnel, magnelRegion, requiredModuli } from '../../../shared/engine/index'
-import type { MagnelCondition } from '../../../shared/engine/index'
-import { between, prng } from './prng'
+import { fibreStresses, magnel, magnelRegion, requiredModuli } from '../../../../shared/engine/index'
+import type { MagnelCondition } from '../../../../shared/engine/index'
+import { between, prng } from '../../../helpers/prng'
 
 describe('fibre stresses (engineering bending theory, Navier)', () => {
   it('σ = P/A ∓ Pe/Z ± M/Z, compression positive', () => {

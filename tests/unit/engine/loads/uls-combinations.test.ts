@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
-import { ULS_FACTORS, ulsLoadCases } from '../../../shared/engine/loads/uls-combinations'
-import { fieldOf } from './helpers'
+import { ULS_FACTORS, ulsLoadCases } from '../../../../shared/engine/loads/uls-combinations'
+import { fieldOf } from '../../../helpers/engine'
 
 describe('ULS load cases (EN 1990 6.4.3.2, Table A1.2(B); EN 1992-1-1 5.1.3)', () => {
   it('recommended factors: γG = 1.35, γQ = 1.5, ξ = 0.85, ψ0 = 0.7, γP = 1.0', () => {

@@ -1,4 +1,5 @@
-import { EngineInputError } from '../../../shared/engine/contract'
+/** Helpers for the engine tests: the field an EngineInputError names, and the relative difference. */
+import { EngineInputError } from '../../shared/engine/contract'
 
 /** The field an EngineInputError names, or 'no error'. */
 export function fieldOf(f: () => unknown): string {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
-import { bondRatioStrand, crackRequirement, crackWidth, decompressionCheck } from '../../../shared/engine/sls/cracking'
-import { fieldOf } from './helpers'
+import { bondRatioStrand, crackRequirement, crackWidth, decompressionCheck } from '../../../../shared/engine/sls/cracking'
+import { fieldOf } from '../../../helpers/engine'
 
 describe('EN 1992-1-1 Table 7.1N (recommended values)', () => {
   it('reinforced members and unbonded tendons: 0.4 / 0.3 / 0.3 mm, quasi-permanent', () => {

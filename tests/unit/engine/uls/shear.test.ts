@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
-import { alphaCw, nominalWebWidth, shearResistance, type ShearInput } from '../../../shared/engine/uls/shear'
-import { fieldOf, rel } from './helpers'
+import { alphaCw, nominalWebWidth, shearResistance, type ShearInput } from '../../../../shared/engine/uls/shear'
+import { fieldOf, rel } from '../../../helpers/engine'
 
 const slab: ShearInput = { VEd: 100e3, bw: 1000, d: 220, fck: 32, Asl: 1000, NEd: 260e3, Ac: 260e3 }
 

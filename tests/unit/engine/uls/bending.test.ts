@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
-import { bendingResistance, stressBlock, tendonDesignStress, type BendingInput } from '../../../shared/engine/uls/bending'
-import { EngineInputError } from '../../../shared/engine/contract'
-import { mulberry32 } from './prng'
+import { bendingResistance, stressBlock, tendonDesignStress, type BendingInput } from '../../../../shared/engine/uls/bending'
+import { EngineInputError } from '../../../../shared/engine/contract'
+import { mulberry32 } from '../../../helpers/prng'
 
 const fcd32 = 32 / 1.5 // EN 1992-1-1 eq. (3.15), αcc = 1.0, γc = 1.5
 const fyd = 500 / 1.15 // 3.2.7(2)

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest'
 import { Matrix, solve } from 'ml-matrix'
-import { analyseContinuousBeam } from '../../../shared/engine/index'
-import type { BeamLoad } from '../../../shared/engine/index'
-import { between, prng } from './prng'
+import { analyseContinuousBeam } from '../../../../shared/engine/index'
+import type { BeamLoad } from '../../../../shared/engine/index'
+import { between, prng } from '../../../helpers/prng'
 
 describe('continuous beams under UDL: handbook coefficients (Reynolds & Steedman; Steel Designers\' Manual)', () => {
   const L = 8000

@@ -1,7 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import {
-  drawInForces, drawInLength, elasticShorteningLoss, frictionForce, timeDependentLoss, timeDependentParts,
-} from '../../../shared/engine/index'
+import { drawInForces, drawInLength, elasticShorteningLoss, frictionForce, timeDependentLoss, timeDependentParts } from '../../../../shared/engine/index'
 
 describe('friction, EN 1992-1-1 eq. (5.45)', () => {
   it('P(x) = Pmax·e^(−μ(θ + kx)): 1000 kN, μ = 0.19, θ = 0.2 rad, k = 0.005 rad/m, x = 20 m → 944.6 kN', () => {
