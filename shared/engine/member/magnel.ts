@@ -11,7 +11,7 @@ import type { PrestressAnalysis } from './analysis'
 import type { MemberLosses } from './losses'
 import type { MemberSection } from './section'
 import { STAGES, STAGE_LABEL, forceFactors } from './stress-limits'
-import type { MomentRange, ServiceStresses, Stage } from './stress-limits'
+import type { MomentRange, ServiceSection, ServiceStresses, Stage } from './stress-limits'
 
 interface MagnelInput {
   section: MemberSection
@@ -21,12 +21,11 @@ interface MagnelInput {
 }
 
 /** Magnel conditions at a station: every fibre, bound and characteristic force factor of every stage. */
-export function magnelConditions(i: MagnelInput, k: number, M: Record<Stage, MomentRange>): MagnelCondition[] {
+export function magnelConditions(i: MagnelInput, k: number, M: Record<Stage, MomentRange>, force: { transfer: number; service: number }): MagnelCondition[] {
   const out: MagnelCondition[] = []
   const { rsup, rinf, limits } = i.stresses
   const rs = forceFactors(rsup, rinf)
-  const P0 = at(i.losses.transfer.P, k)
-  const eta = at(i.losses.service.P, k) / P0
+  const eta = force.service / force.transfer
   for (const stage of STAGES) {
     const L = limits[stage]
     const line = stage === 'transfer' ? i.analysis.transfer : i.analysis.service
@@ -56,6 +55,6 @@ export function magnelStage(i: MagnelInput): StageOutcome<MagnelResult[]> {
   const sec = i.section.properties
   const { top, bottom } = i.section.eccentricity
   const result = i.stresses.sectionStations.map((k, r) =>
-    magnelRegion({ A: sec.A, Zt: sec.Zt, Zb: sec.Zb }, magnelConditions(i, k, i.stresses.momentsBySection[r] as Record<Stage, MomentRange>), -top, bottom))
+    magnelRegion({ A: sec.A, Zt: sec.Zt, Zb: sec.Zb }, magnelConditions(i, k, i.stresses.momentsBySection[r] as Record<Stage, MomentRange>, (i.stresses.sections[r] as ServiceSection).force), -top, bottom))
   return { result, checks: [], warnings: [] }
 }

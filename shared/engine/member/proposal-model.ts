@@ -49,17 +49,16 @@ export interface LinearModel { m: number; k: number; G: Float64Array; c0: Float6
 
 export function linearModel(d: ServiceDesign, basis: ProfileBasis, margin: number): LinearModel {
   const rows: Array<{ g: number[]; c0: number; c1: number }> = []
-  const { rsup, rinf, limits, sectionStations, momentsBySection } = d.stresses
+  const { rsup, rinf, limits, momentsBySection } = d.stresses
   const rs = forceFactors(rsup, rinf)
   const sec = d.section.properties
-  d.stresses.sections.forEach((_, r) => {
-    const site = sectionStations[r] as number
+  d.stresses.sections.forEach((s, r) => {
     const phi = basis.phi[r] as number[]
     const psi = basis.psi[r] as number[]
     const M = momentsBySection[r] as Record<Stage, MomentRange>
     for (const stage of STAGES) {
       const f = stage === 'transfer' ? d.losses.transfer : d.losses.service
-      const P = at(f.P, site)
+      const P = stage === 'transfer' ? s.force.transfer : s.force.service
       const Pm = f.Pmean
       const L = limits[stage]
       for (const rr of rs) {

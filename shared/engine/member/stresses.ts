@@ -83,6 +83,25 @@ function stressAt(ctx: StressContext, k: number, stage: Stage, M: MomentRange): 
   }
 }
 
+/**
+ * The force a section takes where the tendon kinks over a support (inflection 0): the station just
+ * left and the one just right of the support share the point, and friction at the kink (eq. (5.45),
+ * θ the kink angle) gives them different forces. The section takes the mean of both sides: the kink
+ * stands for a short curve over the support whose friction acts along it, the mean is the force at
+ * its middle to first order in μθ, and it is the same whichever way the member is drawn or stressed.
+ */
+export function forceAtSections(P: number[], stations: Station[]): number[] {
+  const out = [...P]
+  for (let k = 1; k < stations.length; k++) {
+    if (Math.abs((stations[k] as Station).X - (stations[k - 1] as Station).X) < 1e-6) {
+      const mean = (at(P, k - 1) + at(P, k)) / 2
+      out[k - 1] = mean
+      out[k] = mean
+    }
+  }
+  return out
+}
+
 interface SectionSite { id: string; label: string; kind: ServiceSection['kind']; k: number }
 
 /** Supports, then per span its low point and tenth points in order along the span. */
@@ -121,9 +140,15 @@ export function stressesStage(i: StressesInput): StageOutcome<ServiceStresses> {
     force: { transfer: losses.transfer, service: losses.service },
     secondary: { transfer: analysis.transfer.secondary, service: analysis.service.secondary },
   }
-  const stressAll = (k: number, M: Record<Stage, MomentRange>): Record<Stage, StageStress> => {
+  // at a kink over a support both sides' stations carry the mean force (forceAtSections)
+  const atSections = { transfer: forceAtSections(losses.transfer.P, stations), service: forceAtSections(losses.service.P, stations) }
+  const sectionCtx: StressContext = {
+    ...ctx,
+    force: { transfer: { ...losses.transfer, P: atSections.transfer }, service: { ...losses.service, P: atSections.service } },
+  }
+  const stressAll = (k: number, M: Record<Stage, MomentRange>, c: StressContext = ctx): Record<Stage, StageStress> => {
     const s = {} as Record<Stage, StageStress>
-    for (const stage of STAGES) s[stage] = stressAt(ctx, k, stage, M[stage])
+    for (const stage of STAGES) s[stage] = stressAt(c, k, stage, M[stage])
     return s
   }
   const sites = criticalSites(input.geometry.spans, profile.lowAt, stations)
@@ -133,13 +158,13 @@ export function stressesStage(i: StressesInput): StageOutcome<ServiceStresses> {
     const k = site.k
     const st = stations[k] as Station
     const M = stageMoments(input, loads, k)
-    const s = stressAll(k, M)
+    const s = stressAll(k, M, sectionCtx)
     stressBySection.push(s)
     momentsBySection.push(M)
     const u = Math.max(...STAGES.flatMap((stage) => Object.values(s[stage].utilisation)))
     const qs = loads.cases.imposedByPattern.map((m) => at(m, k))
-    const P0 = at(losses.transfer.P, k)
-    const Pi = at(losses.service.P, k)
+    const P0 = at(atSections.transfer, k)
+    const Pi = at(atSections.service, k)
     const stress = {} as Record<Stage, FibrePair>
     const envelope = {} as Record<Stage, StressEnvelope>
     for (const stage of STAGES) {
@@ -157,12 +182,12 @@ export function stressesStage(i: StressesInput): StageOutcome<ServiceStresses> {
         characteristic: M.characteristic,
         frequent: M.frequent,
         quasiPermanent: M.quasiPermanent,
-        primaryTransfer: at(analysis.transfer.primary, k),
+        primaryTransfer: -P0 * at(profile.e, k), // primary moment −P·e
         secondaryTransfer: at(analysis.transfer.secondary, k),
-        totalTransfer: at(analysis.transfer.total, k),
-        primaryService: at(analysis.service.primary, k),
+        totalTransfer: -P0 * at(profile.e, k) + at(analysis.transfer.secondary, k),
+        primaryService: -Pi * at(profile.e, k),
         secondaryService: at(analysis.service.secondary, k),
-        totalService: at(analysis.service.total, k),
+        totalService: -Pi * at(profile.e, k) + at(analysis.service.secondary, k),
       },
       stress, envelope, utilisation: u,
     }

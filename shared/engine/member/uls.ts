@@ -126,12 +126,21 @@ export function ulsStage({ input, section, loads, profile, losses, analysis, str
     }
   }
 
-  const sections: UlsSection[] = stresses.sections.map((s) => {
+  const envelopes = stresses.sections.map((s) => {
     const values = cases.map((c) => caseValue(c, (b) => b.momentAt(s.span, s.x)))
     const m2 = [s.moments.secondaryTransfer, s.moments.secondaryService].map((v) => u.gammaP * v) // γP M2 (2.4.2.2(1), 5.10.8(1))
     const secondary = { min: Math.min(...m2), max: Math.max(...m2) }
-    const MEdMax = Math.max(...values) + secondary.max
-    const MEdMin = Math.min(...values) + secondary.min
+    return { secondary, max: Math.max(...values) + secondary.max, min: Math.min(...values) + secondary.min }
+  })
+  // a pinned end carries no moment, yet the sums of unit-span cases leave ±1e-8 N·mm there whose sign
+  // would pick the face; below a millionth of the member's largest design moment a moment is zero
+  const momentScale = Math.max(0, ...envelopes.map((m) => Math.max(Math.abs(m.max), Math.abs(m.min))))
+  const zeroBelow = 1e-6 * momentScale
+  const rounded = (M: number): number => (Math.abs(M) <= zeroBelow ? 0 : M)
+  const sections: UlsSection[] = stresses.sections.map((s, r) => {
+    const { secondary, max, min } = envelopes[r] as (typeof envelopes)[number]
+    const MEdMax = rounded(max)
+    const MEdMin = rounded(min)
     const sagging = MEdMax > 0 ? face('sagging', s.e, s.force.service, MEdMax) : null
     const hogging = MEdMin < 0 ? face('hogging', s.e, s.force.service, -MEdMin) : null
     return {

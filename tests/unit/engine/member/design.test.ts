@@ -306,3 +306,42 @@ describe('members with more prestress than they need', () => {
     }
   })
 })
+
+/** The same member drawn the other way round: spans, supports, low points, anchors and stressed end mirrored. */
+function mirrored(m: MemberInputDraft): MemberInputDraft {
+  const s = m.tendon.stressing ?? 'both'
+  return {
+    ...m,
+    geometry: { ...m.geometry, spans: [...m.geometry.spans].reverse(), ...(m.geometry.supports ? { supports: [...m.geometry.supports].reverse() } : {}) },
+    profile: {
+      ...m.profile,
+      ...(m.profile?.lowPointAt ? { lowPointAt: [...m.profile.lowPointAt].reverse().map((b) => 1 - b) } : {}),
+      anchorLeft: m.profile?.anchorRight ?? 0, anchorRight: m.profile?.anchorLeft ?? 0,
+    },
+    tendon: { ...m.tendon, stressing: s === 'left' ? 'right' : s === 'right' ? 'left' : 'both' },
+  }
+}
+
+describe('a member and its mirror image give the same checks (statics: mirrored member, mirrored actions)', () => {
+  const variants: MemberInputDraft[] = []
+  for (const base of [DEMO_PS2, DEMO_BB1]) {
+    for (const inflection of [0, 0.1]) {
+      for (const stressing of ['left', 'both'] as const) {
+        for (const bond of ['bonded', 'unbonded'] as const) variants.push({ ...base, profile: { ...base.profile, inflection }, tendon: { ...base.tendon, stressing, bond } })
+      }
+    }
+  }
+  it('every check has the same actual value, limit and utilisation (kinks over supports included)', { timeout: 60_000 }, () => {
+    for (const m of variants) {
+      const a = designMember(m, { proposal: false })
+      const b = designMember(mirrored(m), { proposal: false })
+      expect(b.checks.map((c) => c.id).sort()).toEqual(a.checks.map((c) => c.id).sort())
+      for (const c of a.checks) {
+        const d = b.checks.find((x) => x.id === c.id)!
+        for (const k of ['actual', 'limit', 'utilisation'] as const) {
+          expect(Math.abs(c[k] - d[k]) / Math.max(1e-9, Math.abs(c[k])), `${c.id}.${k}, inflection ${m.profile?.inflection}, ${m.tendon.stressing}, ${m.tendon.bond}`).toBeLessThan(1e-6)
+        }
+      }
+    }
+  })
+})

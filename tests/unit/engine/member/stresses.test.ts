@@ -25,3 +25,18 @@ describe('stresses stage', () => {
     expect(c.limit).toBeCloseTo(0.6 * 32, 9)
   })
 })
+
+describe('the force at a kink over a support (inflection 0)', () => {
+  it('the support section takes the mean of the forces just left and just right of the kink (friction at the kink, eq. (5.45), split evenly)', () => {
+    const input = parsed(ONE_SPAN_SLAB, { geometry: { spans: [7000, 9000] }, profile: { mode: 'deepest', inflection: 0 }, tendon: { ...ONE_SPAN_SLAB.tendon, stressing: 'left' }, losses: { drawIn: 0 } })
+    const d = designForService(input)
+    const right = d.stations.findIndex((s) => s.span === 1 && s.x === 0)
+    const left = right - 1
+    expect(d.stations[left]!.X).toBe(d.stations[right]!.X)
+    const Pl = d.losses.transfer.P[left]!
+    const Pr = d.losses.transfer.P[right]!
+    expect(Pl).toBeGreaterThan(Pr) // stressed from the left without draw-in: the kink's friction lies between them
+    const s = d.stresses.sections.find((x) => x.id === 'support-2')!
+    expect(s.force.transfer).toBeCloseTo((Pl + Pr) / 2, 6)
+  })
+})

@@ -49,3 +49,19 @@ describe('ULS stage in the member design', () => {
     expect(p.checks.some((c) => c.id === 'uls.punching')).toBe(true)
   })
 })
+
+describe('ULS faces at pinned ends', () => {
+  it('a pinned end carries no moment (statics): MEd is exactly 0 there and neither face is checked', () => {
+    for (const m of [DEMO_PS2, { ...DEMO_PS2, tendon: { ...DEMO_PS2.tendon, bond: 'unbonded' as const } }]) {
+      const d = designMember(m, { proposal: false })
+      const n = d.input.geometry.spans.length
+      for (const id of ['support-1', `support-${n + 1}`]) {
+        const s = d.uls.sections.find((x) => x.id === id)!
+        expect(s.MEdMax, id).toBe(0)
+        expect(s.MEdMin, id).toBe(0)
+        expect(s.sagging, id).toBeNull()
+        expect(s.hogging, id).toBeNull()
+      }
+    }
+  })
+})
