@@ -27,17 +27,32 @@ export interface RatioCheckInput {
   atLeast?: boolean
 }
 
-/** actual ≤ limit (utilisation actual/limit), or with atLeast actual ≥ limit (utilisation limit/actual). */
+/**
+ * Why a check cannot be judged by its ratio, or null: a limit (a resistance, a stress limit, a
+ * requirement) or a value provided (with atLeast: a resistance, an area, a cover) that is not
+ * positive leaves no meaningful ratio, and such a check fails rather than pass with utilisation 0.
+ */
+function notPositive(i: RatioCheckInput): string | null {
+  if (!(i.limit > 0)) return i.atLeast
+    ? `the required value ${i.limit} is not positive, so the ratio means nothing here`
+    : `the limit ${i.limit} is not positive: nothing can stay within it`
+  if (i.atLeast && !(i.actual > 0)) return `the value provided ${i.actual} is not positive`
+  return null
+}
+
+/**
+ * actual ≤ limit (utilisation actual/limit), or with atLeast actual ≥ limit (utilisation limit/actual).
+ * A limit, or with atLeast a value provided, that is not positive fails the check and says why.
+ */
 export function ratioCheck(i: RatioCheckInput): CheckResult {
-  const raw = i.atLeast
-    ? (i.actual > 0 ? i.limit / i.actual : i.limit > 0 ? UTILISATION_CAP : 0)
-    : i.limit > 0 ? i.actual / i.limit : i.actual > 0 ? UTILISATION_CAP : 0
-  const utilisation = capUtilisation(raw)
+  const why = notPositive(i)
+  const utilisation = why !== null ? UTILISATION_CAP : capUtilisation(i.atLeast ? i.limit / i.actual : i.actual / i.limit)
+  const note = why !== null ? `fails: ${why}${i.note ? `; ${i.note}` : ''}` : i.note
   return {
     id: i.id, group: i.group, title: i.title, clause: i.clause, actual: i.actual, limit: i.limit, unit: i.unit,
-    utilisation, pass: utilisation <= 1 + 1e-9,
+    utilisation, pass: why === null && utilisation <= 1 + 1e-9,
     ...(i.location ? { location: i.location } : {}),
-    ...(i.note ? { note: i.note } : {}),
+    ...(note ? { note } : {}),
   }
 }
 

@@ -82,7 +82,10 @@ export function stressChecks({ input, section, losses, stresses }: StressChecksI
       actual: Math.min(t.coverTop, t.coverBottom), limit: section.eccentricity.coverForBond, unit: 'mm',
       note: 'the durability cover of Table 4.5N and Δcdev are the designer\'s to add', atLeast: true,
     }),
-    ratioCheck({ id: 'precompression.min', group: 'precompression', title: 'Average precompression in service, at least', clause: 'common practice (P/A)', actual: pa, limit: input.limits.precompressionMin, unit: 'MPa', atLeast: true }),
+    // a least precompression of 0 asks for none: no check
+    ...(input.limits.precompressionMin > 0
+      ? [ratioCheck({ id: 'precompression.min', group: 'precompression', title: 'Average precompression in service, at least', clause: 'common practice (P/A)', actual: pa, limit: input.limits.precompressionMin, unit: 'MPa', atLeast: true })]
+      : []),
     ratioCheck({ id: 'precompression.max', group: 'precompression', title: 'Average precompression at transfer, at most', clause: 'common practice (P/A)', actual: pa0, limit: input.limits.precompressionMax, unit: 'MPa' }),
   ]
 }

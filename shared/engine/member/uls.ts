@@ -218,7 +218,8 @@ export function ulsStage({ input, section, loads, profile, losses, analysis, str
         const r = s[f]
         if (!r) continue
         const Mcr = f === 'sagging' ? sec.Zb * (fctm + P / sec.A) + P * ss.e : sec.Zt * (fctm + P / sec.A) - P * ss.e // moment at first cracking with the primary prestress
-        const uu = r.MRd > 0 ? (1.15 * Mcr) / r.MRd : UTILISATION_CAP
+        // a resistance or a cracking moment that is not positive leaves no meaningful ratio: that section governs and fails
+        const uu = r.MRd > 0 && Mcr > 0 ? (1.15 * Mcr) / r.MRd : UTILISATION_CAP
         if (!worst || uu > worst.u) worst = { u: uu, MRd: r.MRd, Mcr, label: atStation(s.label, s.X) }
       }
     }

@@ -22,3 +22,21 @@ describe('the one ratio check', () => {
     expect(capUtilisation(5000)).toBe(UTILISATION_CAP)
   })
 })
+
+describe('a check whose limit or capacity is not positive fails and says why', () => {
+  it('an at-least check against a negative requirement (1.15·Mcr with Mcr < 0, EN 1992-1-1 9.2.1.1(4)) fails', () => {
+    const c = ratioCheck({ ...base, actual: 100e6, limit: 1.15 * -20e6, atLeast: true })
+    expect(c.pass).toBe(false)
+    expect(c.utilisation).toBe(UTILISATION_CAP)
+    expect(c.note).toMatch(/not positive/)
+  })
+  it('a resistance that is not positive (MRd ≤ 0) fails, even against no action', () => {
+    expect(ratioCheck({ ...base, actual: 0, limit: 0 }).pass).toBe(false)
+    expect(ratioCheck({ ...base, actual: 5, limit: -1 }).note).toMatch(/limit -1 is not positive/)
+  })
+  it('an at-least check with nothing provided fails (MRd ≤ 0 against 1.15·Mcr)', () => {
+    const c = ratioCheck({ ...base, actual: -3, limit: 10, atLeast: true, note: 'n' })
+    expect(c.pass).toBe(false)
+    expect(c.note).toBe('fails: the value provided -3 is not positive; n')
+  })
+})
