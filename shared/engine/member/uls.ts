@@ -11,7 +11,7 @@ import type { StageOutcome } from '../common/stage'
 import type { MemberInput } from '../input/schema'
 import { bendingResistance } from '../uls/bending'
 import type { BarLayer, BendingResult, TendonLayer } from '../uls/bending'
-import { reinforcementLimits, supportBondedSteel, SUPPORT_STEEL_RULE } from '../uls/reinforcement'
+import { reinforcementLimits, supportBondedSteel } from '../uls/reinforcement'
 import type { PrestressAnalysis } from './analysis'
 import type { MemberLoads } from './loads'
 import type { MemberLosses } from './losses'
@@ -73,6 +73,12 @@ export interface MemberUls {
   proposal: { AsBottom: number | null; AsTop: number | null }
   punching: UlsPunching | null
 }
+
+/**
+ * The rule for bonded top steel over the supports of a post-tensioned slab, as the sheet states it:
+ * EN 1992-1-1 sets no such amount, so it is cited as common practice only.
+ */
+export const SUPPORT_TOP_STEEL_RULE = 'As ≥ 0.00075·h·l2 over the column, within the column width plus 1.5h each side (common practice for post-tensioned flat slabs; EN 1992-1-1 sets no such amount)'
 
 export interface UlsInput {
   input: MemberInput
@@ -206,7 +212,7 @@ export function ulsStage({ input, section, loads, profile, losses, analysis, str
   if (sections.some((s) => s.sagging)) checks.push(ratioCheck({ id: 'detailing.minSteel.bottom', group: 'detailing', title: 'Least tension steel, bottom', clause: 'EN 1992-1-1 eq. (9.1N)', actual: providedBottom, limit: limBottom.AsMin, unit: 'mm²', ...minNote, atLeast: true }))
   if (sections.some((s) => s.hogging)) checks.push(ratioCheck({ id: 'detailing.minSteel.top', group: 'detailing', title: 'Least tension steel, top', clause: 'EN 1992-1-1 eq. (9.1N)', actual: providedTop, limit: limTop.AsMin, unit: 'mm²', ...minNote, atLeast: true }))
   checks.push(ratioCheck({ id: 'detailing.maxSteel', group: 'detailing', title: 'Greatest longitudinal steel', clause: 'EN 1992-1-1 9.2.1.1(3)', actual: bb.area + bt.area + Ap, limit: limBottom.AsMax, unit: 'mm²' }))
-  if (supportSteel && n > 1) checks.push(ratioCheck({ id: 'detailing.supportSteel', group: 'detailing', title: 'Bonded top steel over the supports', clause: 'common practice (0.075 % of h × panel width)', actual: bt.area, limit: supportSteel.As, unit: 'mm²', note: `${SUPPORT_STEEL_RULE}; per metre of strip`, atLeast: true }))
+  if (supportSteel && n > 1) checks.push(ratioCheck({ id: 'detailing.supportSteel', group: 'detailing', title: 'Bonded top steel over the supports', clause: 'common practice (0.075 % of h × panel width)', actual: bt.area, limit: supportSteel.As, unit: 'mm²', note: `${SUPPORT_TOP_STEEL_RULE}; per metre of strip`, atLeast: true }))
   if (!bonded) {
     // 9.2.1.1(4) (from memory): unbonded tendons, MRd ≥ 1.15 Mcr
     let worst: { u: number; MRd: number; Mcr: number; label: string } | null = null
@@ -232,7 +238,7 @@ export function ulsStage({ input, section, loads, profile, losses, analysis, str
       reinforcement: {
         AsMinBottom: limBottom.AsMin, AsMinTop: limTop.AsMin, AsMax: limBottom.AsMax, providedBottom: bb.area, providedTop: bt.area, bondedTendon,
         supportSteel: supportSteel ? { As: supportSteel.As, bandWidth: supportSteel.bandWidth, perWidth: supportSteel.perWidth } : null,
-        supportSteelRule: supportSteel ? SUPPORT_STEEL_RULE : null,
+        supportSteelRule: supportSteel ? SUPPORT_TOP_STEEL_RULE : null,
       },
       proposal, punching,
     },

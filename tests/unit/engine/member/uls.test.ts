@@ -1,5 +1,8 @@
+import { readFileSync, readdirSync } from 'node:fs'
+import { join } from 'node:path'
+import { fileURLToPath } from 'node:url'
 import { describe, expect, it } from 'vitest'
-import { DEMO_PS2, designMember } from '../../../../shared/engine/index'
+import { DEMO_BB1, DEMO_PS2, designMember } from '../../../../shared/engine/index'
 import type { MemberInputDraft } from '../../../../shared/engine/index'
 import { rel } from '../../../helpers/engine'
 
@@ -63,5 +66,20 @@ describe('ULS faces at pinned ends', () => {
         expect(s.hogging, id).toBeNull()
       }
     }
+  })
+})
+
+describe('citations inside an EN 1992 sheet', () => {
+  it('the results cite EN 1992-1-1, EN 1990, the national annex or common practice, never another national code', () => {
+    // foreign design codes a checker would not accept as the basis of an EN 1992 calculation (common practice of review)
+    const foreign = /\b(ACI ?3\d\d|BS ?8110|BS ?5400|AS ?3600|CSA ?A23|IS ?456|NZS ?3101|TR ?43|AASHTO|PTI)\b/
+    for (const m of [DEMO_PS2, DEMO_BB1]) {
+      const text = JSON.stringify(designMember(m, { proposal: false }))
+      expect(text.match(foreign)?.[0] ?? null).toBeNull()
+    }
+    // the built-in templates and their browser copy
+    const root = fileURLToPath(new URL('../../../../', import.meta.url))
+    const texts = [...readdirSync(join(root, 'content-templates')).map((f) => join(root, 'content-templates', f)), join(root, 'shared/report/builtins/texts.ts')]
+    for (const f of texts) expect(readFileSync(f, 'utf8').match(foreign)?.[0] ?? null, f).toBeNull()
   })
 })
