@@ -241,6 +241,7 @@ export const memberInputShape = {
   deflection: z.object({
     ratioTotal: bounded({ label: 'Span / deflection limit, total', unit: '', precision: 0, group: 'sls', clause: 'EN 1992-1-1 7.4.1(4)' }, 100, 1000).default(250),
     ratioAfter: bounded({ label: 'Span / deflection limit, after construction', unit: '', precision: 0, group: 'sls', clause: 'EN 1992-1-1 7.4.1(5)' }, 100, 2000).default(500),
+    ratioCamber: bounded({ label: 'Span / upward deflection (camber) limit', unit: '', precision: 0, group: 'sls', help: 'common practice for appearance: span/250 upward, as for the sag of 7.4.1(4)' }, 100, 1000).default(250),
     limit: bounded({ label: 'Engineer\'s limit on the long-term deflection', unit: 'mm', precision: 0, group: 'sls', help: 'leave out for none' }, 1, 500).optional(),
     beta: bounded({ label: 'β for the cracked share', unit: '', precision: 2, group: 'sls', symbol: '\\beta', clause: 'EN 1992-1-1 eq. (7.19)' }, 0.5, 1).default(0.5),
     phi: bounded({ label: 'Creep coefficient (override)', unit: '', precision: 2, group: 'sls', symbol: '\\varphi', clause: 'EN 1992-1-1 Annex B', help: 'leave out to use Annex B' }, 0, 6).optional(),

@@ -23,12 +23,29 @@ import type { MemberProfile } from './profile'
 import type { MemberSection } from './section'
 import type { ServiceStresses } from './stress-limits'
 
+/** One sign throughout: deflection positive downward, an upward deflection (camber) negative, mm. */
+export interface SignedExtreme {
+  down: number
+  up: number
+  at: number
+  /** the extreme of larger magnitude with its sign: downward +, upward (camber) − */
+  value: number
+  direction: 'downward' | 'upward (camber)'
+}
+
+export interface SignedSpanDeflection extends Omit<SpanDeflection, 'shortTerm' | 'longTerm'> {
+  shortTerm: SignedExtreme
+  longTerm: SignedExtreme
+  /** span / ratioCamber: the limit on an upward long-term deflection (common practice, appearance), mm */
+  limitCamber: number
+}
+
 export interface MemberDeflection {
   phi: number
   EcEff: number
   /** unbalanced quasi-permanent line load per span: gravity less the balanced load of the mean service force, N/mm */
   unbalanced: number[]
-  spans: Array<SpanDeflection & { McrSagging: number; McrHogging: number; IcrSagging: number; IcrHogging: number }>
+  spans: Array<SignedSpanDeflection & { McrSagging: number; McrHogging: number; IcrSagging: number; IcrHogging: number }>
   series: { x: number[]; span: number[]; shortTerm: number[]; longTerm: number[] }
 }
 
@@ -137,7 +154,19 @@ export function slsStage({ input, section, loads, profile, losses, stresses }: S
   const balanced = spans.map((L, i) => (8 * P * (profile.drapes[i] as number)) / (L * L)) // Lin: w = 8Pa/L²
   const deflection: MemberDeflection = {
     phi, EcEff: def.EcEff, unbalanced: balanced.map((w) => wQP - w),
-    spans: def.spans.map((s, i) => ({ ...s, ...(cracking[i] as SpanCracking) })),
+    spans: def.spans.map((s, i) => {
+      const limitCamber = s.L / opt.deflection.ratioCamber
+      const longMax = Math.max(s.longTerm.down, -s.longTerm.up)
+      return {
+        ...s,
+        shortTerm: signed(s.shortTerm),
+        longTerm: signed(s.longTerm),
+        limitCamber,
+        // sag against span/250 (7.4.1(4)), camber against its own limit, the change after construction, the engineer's limit
+        utilisation: Math.max(s.longTerm.down / s.limitTotal, -s.longTerm.up / limitCamber, s.afterConstruction / s.limitAfter, s.limitEngineer ? longMax / s.limitEngineer : 0),
+        ...(cracking[i] as SpanCracking),
+      }
+    }),
     series: def.series,
   }
 
@@ -200,8 +229,15 @@ export function slsStage({ input, section, loads, profile, losses, stresses }: S
   const checks: CheckResult[] = []
   const worstSpan = (f: (s: SpanDeflection) => number): SpanDeflection => def.spans.reduce((a, b) => (f(b) > f(a) ? b : a))
   const longMax = (s: SpanDeflection): number => Math.max(s.longTerm.down, -s.longTerm.up)
-  const wt = worstSpan((s) => longMax(s) / s.limitTotal)
-  checks.push(ratioCheck({ id: 'sls.deflection.total', group: 'sls', title: 'Long-term deflection, quasi-permanent', clause: 'EN 1992-1-1 7.4.1(4)', actual: longMax(wt), limit: wt.limitTotal, unit: 'mm', location: `Span ${wt.span + 1}`, note: `span/${opt.deflection.ratioTotal}; Ec,eff = Ecm/(1 + φ), eq. (7.20)` }))
+  // 7.4.1(4) limits the sag, the downward deflection relative to the supports
+  const wt = worstSpan((s) => s.longTerm.down / s.limitTotal)
+  checks.push(ratioCheck({ id: 'sls.deflection.total', group: 'sls', title: 'Long-term deflection (sag, downward), quasi-permanent', clause: 'EN 1992-1-1 7.4.1(4)', actual: wt.longTerm.down, limit: wt.limitTotal, unit: 'mm', location: `Span ${wt.span + 1}`, note: `span/${opt.deflection.ratioTotal}; downward positive; Ec,eff = Ecm/(1 + φ), eq. (7.20)` }))
+  // an upward long-term deflection is a camber: checked against its own limit (common practice, appearance)
+  const wc = worstSpan((s) => -s.longTerm.up / s.L)
+  if (wc.longTerm.up < 0) {
+    const limitCamber = wc.L / opt.deflection.ratioCamber
+    checks.push(ratioCheck({ id: 'sls.deflection.camber', group: 'sls', title: 'Long-term upward deflection (camber), quasi-permanent', clause: 'common practice (appearance): span/250 upward, as 7.4.1(4) for the sag', actual: -wc.longTerm.up, limit: limitCamber, unit: 'mm', location: `Span ${wc.span + 1}`, note: `span/${opt.deflection.ratioCamber}; the camber is shown negative in the table (downward positive)` }))
+  }
   const wa = worstSpan((s) => s.afterConstruction / s.limitAfter)
   checks.push(ratioCheck({ id: 'sls.deflection.after', group: 'sls', title: 'Deflection after construction', clause: 'EN 1992-1-1 7.4.1(5)', actual: wa.afterConstruction, limit: wa.limitAfter, unit: 'mm', location: `Span ${wa.span + 1}`, note: `span/${opt.deflection.ratioAfter}; taken as the long-term less the short-term deflection (common practice)` }))
   if (opt.deflection.limit !== undefined) {
@@ -240,6 +276,12 @@ export function slsStage({ input, section, loads, profile, losses, stresses }: S
     },
     checks, warnings,
   }
+}
+
+/** The extreme of larger magnitude with its sign (downward +, upward −) and its direction. */
+function signed(e: { down: number; up: number; at: number }): SignedExtreme {
+  const upward = -e.up > e.down
+  return { ...e, value: upward ? e.up : e.down, direction: upward ? 'upward (camber)' : 'downward' }
 }
 
 /** The cracked state, or null where none exists (the section stays in compression under N and M). */
