@@ -81,6 +81,8 @@ export function columnStiffness(input: { E: number; I: number; height: number; f
   return farEnd === 'fixed' ? (4 * E * I) / height : (3 * E * I) / height // slope–deflection: 4EI/H, 3EI/H
 }
 
+const NO_LOADS: readonly SimpleSpan[] = []
+
 /** Simply supported span under one load: moment, shear, end reactions and its breakpoints. */
 interface SimpleSpan {
   /** moment at x; at a couple the value on its left, except at x = 0 where it is 0⁺ */
@@ -88,6 +90,9 @@ interface SimpleSpan {
   /** one-sided moment: side −1 the limit from the left, +1 from the right */
   M0side(x: number, side: -1 | 1): number
   V0(x: number): number
+  /** ∫M0 dx and ∫M0·x dx over the span (closed forms, for prismatic spans) */
+  area: number
+  firstMoment: number
   /** end reactions of the simple span (upward +); a load right at a support goes to that support */
   RA: number
   RB: number
@@ -110,14 +115,25 @@ function simpleSpan(load: BeamLoad, L: number): SimpleSpan {
         const l = loadedLeft(x)
         return RA * x - w * l * (x - (a + l / 2))
       }
-      return { M0, M0side: M0, V0: (x) => RA - w * loadedLeft(x), RA, RB: W - RA, breaks: [a, b] }
+      // integrals of the point-load results a(L−a)/2 and a(L²−a²)/6 over the loaded length (statics)
+      const F1 = (t: number): number => (L * t * t) / 2 - (t * t * t) / 3
+      const F2 = (t: number): number => (L * L * t * t) / 2 - (t * t * t * t) / 4
+      return {
+        M0, M0side: M0, V0: (x) => RA - w * loadedLeft(x), RA, RB: W - RA, breaks: [a, b],
+        area: (w / 2) * (F1(b) - F1(a)),
+        firstMoment: (w / 6) * (F2(b) - F2(a)),
+      }
     }
     case 'point': {
       const a = load.at
       const P = load.P
       const RA = (P * (L - a)) / L // statics of the simple span
       const M0 = (x: number): number => (x <= a ? RA * x : RA * x - P * (x - a))
-      return { M0, M0side: M0, V0: (x) => (x < a ? RA : RA - P), RA, RB: P - RA, breaks: [a] }
+      return {
+        M0, M0side: M0, V0: (x) => (x < a ? RA : RA - P), RA, RB: P - RA, breaks: [a],
+        area: (P * a * (L - a)) / 2,
+        firstMoment: (P * a * (L - a) * (L + a)) / 6,
+      }
     }
     case 'couple': {
       const c = load.at
@@ -131,6 +147,8 @@ function simpleSpan(load: BeamLoad, L: number): SimpleSpan {
         RA: M / L,
         RB: -M / L,
         breaks: [c],
+        area: (M * (2 * c - L)) / 2,
+        firstMoment: (M * c * c * c) / (3 * L) - (M / L) * ((L * (L * L - c * c)) / 2 - (L * L * L - c * c * c) / 3),
       }
     }
   }
@@ -205,6 +223,11 @@ interface SpanFlexibility {
 }
 
 function flexibility(segs: EISegment[], L: number): SpanFlexibility {
+  const only = segs.length === 1 ? (segs[0] as EISegment) : undefined
+  if (only) {
+    const k = only.EI / L
+    return { fAA: L / (3 * only.EI), fAB: L / (6 * only.EI), fBB: L / (3 * only.EI), S11: 4 * k, S12: -2 * k, S22: 4 * k } // prismatic: 4EI/L, 2EI/L
+  }
   let fAA = 0
   let fAB = 0
   let fBB = 0
@@ -225,6 +248,8 @@ function flexibility(segs: EISegment[], L: number): SpanFlexibility {
  * segment ends and the load's breakpoints so that every piece is a polynomial.
  */
 function loadIntegrals(p: SimpleSpan, segs: EISegment[], L: number): { a0: number; b0: number } {
+  const only = segs.length === 1 ? (segs[0] as EISegment) : undefined
+  if (only) return { a0: (p.area - p.firstMoment / L) / only.EI, b0: p.firstMoment / (L * only.EI) } // prismatic: closed forms
   let a0 = 0
   let b0 = 0
   for (const s of segs) {
@@ -322,14 +347,15 @@ export function continuousBeamModel(input: BeamModelInput): ContinuousBeamModel 
   const analyse = (loads: BeamLoad[]): ContinuousBeamResult => {
     if (!Array.isArray(loads)) throw new EngineInputError('loads', 'give a list of loads')
     loads.forEach((l, i) => checkLoad(l, i, spans))
-    const bySpan: SimpleSpan[][] = spans.map(() => [])
-    loads.forEach((l) => (bySpan[l.span] as SimpleSpan[]).push(simpleSpan(l, spans[l.span] as number)))
+    // only loaded spans get a list, so that many single-span load cases stay small
+    const bySpan: Array<SimpleSpan[] | undefined> = new Array<SimpleSpan[] | undefined>(n)
+    loads.forEach((l) => (bySpan[l.span] ??= []).push(simpleSpan(l, spans[l.span] as number)))
     const a0 = new Float64Array(n)
     const b0 = new Float64Array(n)
     const RA = new Float64Array(n)
     const RB = new Float64Array(n)
     for (let i = 0; i < n; i++) {
-      for (const p of bySpan[i] as SimpleSpan[]) {
+      for (const p of bySpan[i] ?? NO_LOADS) {
         const g = loadIntegrals(p, segments[i] as EISegment[], spans[i] as number)
         a0[i] = (a0[i] as number) + g.a0
         b0[i] = (b0[i] as number) + g.b0
@@ -381,7 +407,7 @@ export function continuousBeamModel(input: BeamModelInput): ContinuousBeamModel 
 
 /** Results from the per-span end moments and loads only (nothing else is kept alive). */
 function beamResult(
-  spans: number[], bySpan: SimpleSpan[][], MA: Float64Array, MB: Float64Array, RA: Float64Array, RB: Float64Array,
+  spans: number[], bySpan: Array<SimpleSpan[] | undefined>, MA: Float64Array, MB: Float64Array, RA: Float64Array, RB: Float64Array,
   supports: SupportKind[], springs: number[], rotations: number[],
 ): ContinuousBeamResult {
   const n = spans.length
@@ -394,13 +420,13 @@ function beamResult(
   const momentAt = (span: number, x: number): number => {
     const L = spanAt(span, x)
     let M = (MA[span] as number) * (1 - x / L) + ((MB[span] as number) * x) / L
-    for (const p of bySpan[span] as SimpleSpan[]) M += p.M0(x)
+    for (const p of bySpan[span] ?? NO_LOADS) M += p.M0(x)
     return M
   }
   const shearAt = (span: number, x: number): number => {
     const L = spanAt(span, x)
     let V = ((MB[span] as number) - (MA[span] as number)) / L
-    for (const p of bySpan[span] as SimpleSpan[]) V += p.V0(x)
+    for (const p of bySpan[span] ?? NO_LOADS) V += p.V0(x)
     return V
   }
   const supportMoments = supports.map((_, j) => (j < n ? momentAt(j, 0) : momentAt(n - 1, spans[n - 1] as number)))
