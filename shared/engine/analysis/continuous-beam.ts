@@ -277,9 +277,9 @@ export interface ContinuousBeamModel {
 
 /** Validate the beam and factor its stiffness once; analyse any number of load sets with it. */
 export function continuousBeamModel(input: BeamModelInput): ContinuousBeamModel {
+  if (!Array.isArray(input.spans) || input.spans.length < 1) throw new EngineInputError('spans', 'at least one span is needed')
   const spans = [...input.spans]
   const n = spans.length
-  if (!Array.isArray(input.spans) || n < 1) throw new EngineInputError('spans', 'at least one span is needed')
   spans.forEach((L, i) => {
     if (!(L > 0) || !Number.isFinite(L)) throw new EngineInputError(`spans.${i}`, 'span length must be positive')
   })
