@@ -94,7 +94,7 @@ export function designMember(raw: unknown, options: DesignOptions = {}): Design 
   const service = designForService(input)
   const { section, loads, profile, losses, analysis, stresses } = service
   const magnel = magnelStage({ section, losses, analysis, stresses })
-  const proposal = proposalStage(service, magnel.result, options.proposal !== false)
+  const proposal = proposalStage(service, magnel.result, { compute: options.proposal !== false, verify: memberChecks })
   const uls = ulsStage({ input, section, loads, profile, losses, analysis, stresses })
   const sls = slsStage({ input, section, loads, profile, losses, stresses })
   const site = siteStage(input, section, profile)
@@ -109,6 +109,15 @@ export function designMember(raw: unknown, options: DesignOptions = {}): Design 
     checks: [...service.checks, ...later.flatMap((s) => s.checks)],
     warnings: [...service.warnings, ...later.flatMap((s) => s.warnings)],
   })
+}
+
+/** The checks of the whole sheet but the site records, for the proposal to verify an arrangement by. */
+function memberChecks(input: MemberInput): { checks: CheckResult[]; uls: MemberUls } {
+  const service = designForService(input)
+  const { section, loads, profile, losses, analysis, stresses } = service
+  const uls = ulsStage({ input, section, loads, profile, losses, analysis, stresses })
+  const sls = slsStage({ input, section, loads, profile, losses, stresses })
+  return { checks: [...service.checks, ...uls.checks, ...sls.checks], uls: uls.result }
 }
 
 interface LaterResults {

@@ -1,18 +1,24 @@
 /**
- * Proposal stage: the least strands and a profile that pass every stress check at every section,
- * as an input patch the engineer can apply (mergeInputPatch) and run again.
+ * Proposal stage: the least prestress, a profile and any passive bars that pass every check of the
+ * sheet — stresses at transfer and in service, the strands for the balanced load, ULS bending and
+ * shear, least and greatest steel, ductility, deflection and crack control — as an input patch the
+ * engineer can apply (mergeInputPatch) and run again. The stress search (proposal-search.ts) gives
+ * the least force for the stresses; from there the strands are stepped up while checks other than
+ * the stresses fail, adding bars where ULS bending or the least steel needs them, and of the
+ * arrangements that pass the cheapest by steel cost is proposed.
  */
+import type { CheckResult } from '../contract'
 import type { StageOutcome } from '../common/stage'
 import { parseMemberInput } from '../input/schema'
+import type { MemberInput } from '../input/schema'
 import { mergeInputPatch } from '../input/patch'
 import type { InputPatch } from '../input/patch'
-import { requiredModuli } from '../checks/magnel'
 import type { MagnelResult } from '../checks/magnel'
-import { linearModel, profileBasis, project } from './proposal-model'
-import type { LinearModel } from './proposal-model'
-import { designForService, stressesPass } from './service-design'
+import { stressSearch } from './proposal-search'
+import type { StressFound } from './proposal-search'
+import { stressesPass } from './service-design'
 import type { ServiceDesign } from './service-design'
-import type { MomentRange, ServiceSection, Stage } from './stress-limits'
+import type { MemberUls } from './uls'
 
 export interface Proposal {
   feasible: boolean
@@ -26,222 +32,146 @@ export interface Proposal {
   count: number | null
   supportEcc: number[] | null
   spanEcc: number[] | null
-  /** merge into the input (mergeInputPatch) and run again: every transfer and service check passes */
+  /** merge into the input (mergeInputPatch) and run again: every check in claims passes */
   inputPatch: InputPatch | null
   verified: boolean
+  /** passive bars the patch adds to the input's, mm² in the width designed; null where none are added */
+  barsBottom: number | null
+  barsTop: number | null
+  /** ids of the checks the patched design passes: every check of the sheet but the site records and those outside the proposal's reach */
+  claims: string[]
+  /** the claimed checks nearest their limits in the patched design (utilisation ≥ 0.95), most used first: what bounds the proposal */
+  boundBy: string[]
+  /** failing checks the proposal cannot change (the engineer's covers and jacking stress), or null */
+  note: string | null
 }
 
 export function noProposal(reason: string): Proposal {
-  return { feasible: false, reason, strands: null, forceTransfer: null, spacing: null, count: null, supportEcc: null, spanEcc: null, inputPatch: null, verified: false }
-}
-
-/** Where a section's Magnel region is empty, the moduli it would need (Magnel's inequalities solved for Z). */
-function sectionTooSmallReason(d: ServiceDesign, magnel: MagnelResult[]): string | null {
-  const { limits } = d.stresses
-  const sec = d.section.properties
-  const { top: eTop, bottom: eBot } = d.section.eccentricity
-  for (let r = 0; r < d.stresses.sections.length; r++) {
-    const s = d.stresses.sections[r] as ServiceSection
-    if ((magnel[r] as MagnelResult).feasible) continue
-    const M = d.stresses.momentsBySection[r] as Record<Stage, MomentRange>
-    const eta = s.force.service / s.force.transfer
-    const fcs = limits.characteristic.compression ?? limits.quasiPermanent.compression ?? Infinity
-    const fts = limits.frequent.tension ?? limits.quasiPermanent.tension ?? 0
-    const need = requiredModuli({
-      Mmin: M.transfer.min, Mmax: M.characteristic.max, eta,
-      fct: limits.transfer.compression ?? 0, ftt: limits.transfer.tension ?? 0, fcs, fts,
-    })
-    const kNm = (v: number): string => (v / 1e6).toFixed(1)
-    return `No prestress force satisfies the stress limits at ${s.label} within the eccentricity limits −${eTop.toFixed(0)} mm … +${eBot.toFixed(0)} mm`
-      + ` (moments ${kNm(M.transfer.min)} kNm at transfer to ${kNm(M.characteristic.max)} kNm in service): the section is too small`
-      + ` — it would need about Zt ≥ ${(Math.abs(need.Zt) / 1e6).toFixed(1)}·10⁶ mm³ and Zb ≥ ${(Math.abs(need.Zb) / 1e6).toFixed(1)}·10⁶ mm³`
-      + ` against ${(sec.Zt / 1e6).toFixed(1)}·10⁶ and ${(sec.Zb / 1e6).toFixed(1)}·10⁶ mm³. Deepen the section or raise the concrete class.`
+  return {
+    feasible: false, reason, strands: null, forceTransfer: null, spacing: null, count: null, supportEcc: null, spanEcc: null, inputPatch: null, verified: false,
+    barsBottom: null, barsTop: null, claims: [], boundBy: [], note: null,
   }
-  return null
 }
 
-type Candidate = { spacing: number | null; count: number | null; strands: number }
+/** The checks of the whole sheet for an input, and its ULS result (for the bars it asks for). */
+export type VerifyMember = (input: MemberInput) => { checks: CheckResult[]; uls: MemberUls }
 
-/** Candidate arrangements, fewest strands first. */
-function candidates(d: ServiceDesign): Candidate[] {
-  const perTendon = d.input.tendon.strandsPerTendon
-  const out: Candidate[] = []
-  if (d.input.section.kind === 'slab-strip') {
-    for (let s = 3000; s >= 150; s -= 25) out.push({ spacing: s, count: null, strands: (1000 / s) * perTendon })
-  } else {
-    for (let n = 1; n <= 60; n++) out.push({ spacing: null, count: n, strands: n * perTendon })
-  }
-  return out
-}
-
-/** To 0.1 mm, but never past the eccentricity limits: a profile on a limit must not round out of the concrete. */
-function round1(v: number, lo: number, hi: number): number {
-  const r = Math.round(v * 10) / 10
-  if (r > hi) return Math.floor(hi * 10) / 10
-  if (r < lo) return Math.ceil(lo * 10) / 10
-  return r
-}
-
-/** A verified arrangement: its index among the candidates, the proposal and the run that passed. */
-interface Found { index: number; proposal: Proposal; run: ServiceDesign }
+/** Checks the proposal does not change: the covers and the jacking stress are the engineer's, the site records are measured. */
+const OUTSIDE_REACH = new Set(['tendon.jacking', 'tendon.coverBond'])
+const claimed = (c: CheckResult): boolean => c.group !== 'site' && !OUTSIDE_REACH.has(c.id)
 
 /**
- * The least force and a profile that pass every stress check. The fibre stresses are linear in the
- * eccentricities at a given force, but the force per strand (friction, elastic shortening, creep)
- * moves with the strands and the profile, so a linearisation holds only near the member it was made
- * about: bracket with it, verify by full runs, then linearise again about the verified member and look
- * below it, until no smaller force verifies.
+ * Relative cost of steel in place per unit weight: prestressing strand with its ducts, anchorages and
+ * stressing taken at three times reinforcing bar (common practice, from memory; an order of magnitude
+ * only). Bars are costed over the whole length, which favours strands where bars are needed locally.
  */
-export function proposeStressDesign(first: ServiceDesign, magnel: MagnelResult[]): Proposal {
-  const cands = candidates(first)
-  const n = first.input.geometry.spans.length
-  const strandsOf = (d: ServiceDesign): number => d.section.strands
-  // the eccentricity limits follow the section and covers only, never the strands or the profile
-  const eLo = -first.section.eccentricity.top
-  const eHi = first.section.eccentricity.bottom
-  // the unit profiles keep the input's low points and inflection, so one basis serves every run
-  const basis = profileBasis(first, first.stresses.sectionStations)
-  // a margin (MPa) below the limits absorbs what the linearisation leaves out: wide far from the
-  // input's force, narrow about a verified member, where little is left out
-  const WIDE = 0.03
-  const NARROW = 0.002
-  // a linearisation about another force misjudges the force per strand (elastic shortening, creep) by
-  // about this much (MPa): a rejection by less is tried by a run at the candidate's own force
-  const MISJUDGED = 0.1
-  const modelCache = new Map<ServiceDesign, Map<number, LinearModel>>()
-  const modelOf = (d: ServiceDesign, margin: number): LinearModel => {
-    const byMargin = modelCache.get(d) ?? new Map<number, LinearModel>()
-    const mdl = byMargin.get(margin) ?? linearModel(d, basis, margin)
-    byMargin.set(margin, mdl)
-    modelCache.set(d, byMargin)
-    return mdl
+const STRAND_COST_FACTOR = 3
+/** Arrangements tried above the least for the stresses before the search stops. */
+const STEPS_UP = 8
+
+/** Areas are proposed in whole tens of mm². */
+const roundUp10 = (v: number): number => Math.ceil(v / 10 - 1e-9) * 10
+
+interface Arrangement { found: StressFound; patch: InputPatch; barsBottom: number; barsTop: number; checks: CheckResult[] }
+
+/**
+ * The bars an arrangement needs: the extra bars ULS bending asks for (6.1) and any shortfall on the
+ * least steel (eq. (9.1N)) or the top steel over the supports, added to the input's own bars, run
+ * again until nothing more is asked for (at most three rounds: the bars move the neutral axis).
+ */
+function withBars(input: MemberInput, found: StressFound, patchOf: (f: StressFound) => InputPatch, verify: VerifyMember): Arrangement | { failing: CheckResult[] } {
+  const base = patchOf(found)
+  let addBottom = 0
+  let addTop = 0
+  let last: CheckResult[] = []
+  for (let round = 0; round < 3; round++) {
+    const patch: InputPatch = {
+      ...base,
+      uls: {
+        barsBottom: { ...input.uls.barsBottom, area: input.uls.barsBottom.area + addBottom },
+        barsTop: { ...input.uls.barsTop, area: input.uls.barsTop.area + addTop },
+      },
+    }
+    let run: { checks: CheckResult[]; uls: MemberUls }
+    try {
+      run = verify(parseMemberInput(mergeInputPatch(input, patch)))
+    } catch {
+      return { failing: last }
+    }
+    last = run.checks.filter((c) => claimed(c) && !c.pass)
+    if (last.length === 0) return { found, patch, barsBottom: addBottom, barsTop: addTop, checks: run.checks }
+    const r = run.uls.reinforcement
+    const needBottom = run.uls.proposal.AsBottom
+    const needTop = run.uls.proposal.AsTop
+    if (needBottom === null || needTop === null) return { failing: last } // no bars up to 4 % of the section suffice
+    const minBottom = r.AsMinBottom - (r.providedBottom + r.bondedTendon)
+    const minTop = r.AsMinTop - (r.providedTop + r.bondedTendon)
+    const supportTop = r.supportSteel && input.geometry.spans.length > 1 ? r.supportSteel.As - r.providedTop : 0
+    const moreBottom = Math.max(0, needBottom, minBottom)
+    const moreTop = Math.max(0, needTop, minTop, supportTop)
+    if (moreBottom <= 0 && moreTop <= 0) return { failing: last } // bars would not help what fails
+    addBottom += roundUp10(moreBottom)
+    addTop += roundUp10(moreTop)
   }
-  const profileOf = (d: ServiceDesign): number[] => [...d.profile.profile.supportEcc, ...d.profile.profile.spanEcc]
-  const patchOf = (cand: Candidate, supportEcc: number[], spanEcc: number[]): InputPatch => ({
-    tendon: cand.spacing !== null ? { spacing: cand.spacing } : { count: cand.count as number },
-    profile: { mode: 'custom', supportEcc, spanEcc, lowPointAt: first.profile.lowAt },
-  })
-  const accepted = (cand: Candidate, supportEcc: number[], spanEcc: number[], run: ServiceDesign): Proposal => ({
-    feasible: true, reason: null, strands: cand.strands, forceTransfer: run.losses.transfer.Pmean,
-    spacing: cand.spacing, count: cand.count, supportEcc, spanEcc, verified: true,
-    inputPatch: patchOf(cand, supportEcc, spanEcc),
-  })
-  // the last full run of a failed verification: a member nearer the answer than the input
-  let nearest: ServiceDesign | null = null
-  // one arrangement: solve the linearised conditions, verify by a full run, linearise again if needed
-  const attempt = (index: number, about: ServiceDesign, margin: number): Found | null => {
-    const cand = cands[index] as Candidate
-    let d = about
-    let start = profileOf(about)
-    for (let t = 0; t < 3; t++) {
-      const res = project(modelOf(d, margin), cand.strands / strandsOf(d), start, eLo, eHi, 150)
-      const sameForce = Math.abs(strandsOf(d) - cand.strands) < 1e-9
-      if (res.violation > (sameForce ? 1e-6 : MISJUDGED)) return null
-      const supportEcc = res.p.slice(0, n + 1).map((v) => round1(v, eLo, eHi))
-      const spanEcc = res.p.slice(n + 1).map((v) => round1(v, eLo, eHi))
-      let rerun: ServiceDesign
-      try {
-        rerun = designForService(parseMemberInput(mergeInputPatch(first.input, patchOf(cand, supportEcc, spanEcc))))
-      } catch {
-        return null
+  return { failing: last }
+}
+
+/** The least-cost arrangement passing every claimed check, or why none does. */
+export function proposeDesign(first: ServiceDesign, magnel: MagnelResult[], verify: VerifyMember): Proposal {
+  const search = stressSearch(first, magnel)
+  if (search.least === null) return noProposal(search.reason ?? 'no arrangement passes the stress checks')
+  const patchOf = (f: StressFound): InputPatch => search.patchOf(f.candidate, f.supportEcc, f.spanEcc)
+  const strandArea = first.section.strand.Ap
+  const cost = (a: Arrangement): number => STRAND_COST_FACTOR * a.found.candidate.strands * strandArea + a.barsBottom + a.barsTop
+  let best: Arrangement | null = null
+  let failing: CheckResult[] = []
+  let about = search.least.run
+  const cands = search.candidates
+  for (let i = search.least.index, tried = 0; i < cands.length && tried <= STEPS_UP; tried++) {
+    const found = i === search.least.index ? search.least : search.at(i, about)
+    let next = i + 1
+    if (found !== null) {
+      about = found.run
+      const r = withBars(first.input, found, patchOf, verify)
+      if ('failing' in r) {
+        failing = r.failing
+        // the balanced load asks for a known number of strands (Lin: P = wL²/8a at the mean service force per strand): go there at once
+        const balance = r.failing.find((c) => c.id === 'balancing.strands')
+        if (balance) next = Math.max(next, cands.findIndex((k) => k.strands >= balance.limit * (1 + 1e-9)))
+      } else {
+        if (best === null || cost(r) < cost(best)) best = r
+        // more strands cost more once no bars are added
+        if (r.barsBottom === 0 && r.barsTop === 0) break
       }
-      if (stressesPass(rerun)) return { index, proposal: accepted(cand, supportEcc, spanEcc, rerun), run: rerun }
-      nearest = rerun
-      // friction, losses and the secondary moment follow the new profile: linearise again about it
-      d = rerun
-      start = res.p
     }
-    return null
-  }
-  // feasibility of the conditions linearised about a member: cheap, used to bracket the least force
-  const linearOK = (about: ServiceDesign, i: number, margin: number): boolean =>
-    project(modelOf(about, margin), (cands[i] as Candidate).strands / strandsOf(about), profileOf(about), eLo, eHi, 150).violation <= 1e-6
-  // least index from lo up that the linearisation about a member accepts, or −1; the feasible forces
-  // form an interval (the conditions are convex in e and 1/P), so gallop up to one and bisect below it
-  const leastLinear = (about: ServiceDesign, from: number, margin: number): number => {
-    let lo = from
-    let hi = -1
-    for (let i = lo, step = 1; i < cands.length; i += step, step *= 2) {
-      if (linearOK(about, i, margin)) { hi = i; break }
-      lo = i + 1
-    }
-    if (hi < 0) for (let i = lo; i < cands.length && hi < 0; i++) if (linearOK(about, i, margin)) hi = i
-    if (hi < 0) return -1
-    let failed = Math.min(lo, hi) - 1
-    while (hi - failed > 1) {
-      const mid = Math.floor((hi + failed) / 2)
-      if (linearOK(about, mid, margin)) hi = mid
-      else failed = mid
-    }
-    return hi
-  }
-  // least index below a verified one that the linearisation about it accepts, or −1: gallop down, bisect
-  const leastBelow = (about: ServiceDesign, top: number, margin: number): number => {
-    let ok = top
-    let failed = -1
-    for (let step = 1; top - step >= 0; step *= 2) {
-      if (linearOK(about, top - step, margin)) ok = top - step
-      else { failed = top - step; break }
-    }
-    if (ok === top) return -1
-    while (ok - failed > 1) {
-      const mid = Math.floor((ok + failed) / 2)
-      if (linearOK(about, mid, margin)) ok = mid
-      else failed = mid
-    }
-    return ok
-  }
-  // verify from the bracketed force upwards, stepping up where friction and losses moved with the profile
-  const verifyFrom = (about: ServiceDesign, i0: number, limit: number, margin: number): Found | null => {
-    for (let i = i0; i >= 0 && i < Math.min(cands.length, limit); i++) {
-      const f = attempt(i, about, margin)
-      if (f) return f
-    }
-    return null
-  }
-
-  // the per-section Magnel regions give the least force each section needs on its own: a start
-  const need = Math.max(0, ...first.stresses.sections.map((s, r) => ((magnel[r] as MagnelResult).minP ?? 0) / s.force.transfer))
-  const start = Math.max(0, cands.findIndex((k) => k.strands >= 0.9 * need * strandsOf(first)))
-  let about: ServiceDesign = first
-  let best: Found | null = null
-  for (let round = 0; round < 3 && best === null; round++) {
-    const i0 = leastLinear(about, start, WIDE)
-    if (i0 < 0) break
-    nearest = null
-    best = verifyFrom(about, i0, i0 + 6, WIDE)
-    // far from the input its linearisation misjudges the force per strand: start again about the last run
-    const next: ServiceDesign | null = nearest
-    if (best === null && next === null) break
-    if (next !== null) about = next
-  }
-  // linearise about the verified member, whose force is near the least, and look below it
-  for (let round = 0; best !== null && best.index > 0 && round < 4; round++) {
-    const lower = leastBelow(best.run, best.index, NARROW)
-    // none below by this linearisation: the next smaller force may still pass, judged about its own run
-    const found = lower >= 0
-      ? verifyFrom(best.run, lower, Math.min(best.index, lower + 3), NARROW)
-      : attempt(best.index - 1, best.run, NARROW)
-    if (found === null) break
-    best = found
-  }
-
-  const current = cands.findIndex((k) => Math.abs(k.strands - strandsOf(first)) < 1e-9)
-  if (current >= 0 && stressesPass(first) && (best === null || (best.proposal.strands as number) > strandsOf(first))) {
-    return accepted(cands[current] as Candidate, first.profile.profile.supportEcc, first.profile.profile.spanEcc, first)
+    if (next <= i) break
+    i = next
   }
   if (best === null) {
-    return noProposal(sectionTooSmallReason(first, magnel) ?? 'No single force and profile satisfies every section at once within the eccentricity limits: revise the section, the spans or the concrete class.')
+    const ids = [...new Set(failing.map((c) => c.id))]
+    return noProposal(`The least prestress for the stresses and up to ${STEPS_UP} arrangements more, with bars added where they help, still fail ${ids.join(', ') || 'a check'} at the last one tried: `
+      + 'these need a change the proposal does not make (depth, concrete class, links, spans or the engineer\'s limits).')
   }
-  return best.proposal
+  const { found, patch, checks } = best
+  const outside = checks.filter((c) => !claimed(c) && c.group !== 'site' && !c.pass).map((c) => c.id)
+  return {
+    feasible: true, reason: null, strands: found.candidate.strands, forceTransfer: found.run.losses.transfer.Pmean,
+    spacing: found.candidate.spacing, count: found.candidate.count, supportEcc: found.supportEcc, spanEcc: found.spanEcc,
+    inputPatch: patch, verified: true,
+    barsBottom: best.barsBottom > 0 ? best.barsBottom : null,
+    barsTop: best.barsTop > 0 ? best.barsTop : null,
+    claims: checks.filter(claimed).map((c) => c.id),
+    boundBy: checks.filter((c) => claimed(c) && c.utilisation >= 0.95).sort((x, y) => y.utilisation - x.utilisation).map((c) => c.id),
+    note: outside.length > 0 ? `Not changed by the proposal and failing: ${outside.join(', ')} (the covers and the jacking stress are the engineer's).` : null,
+  }
 }
 
 /** The proposal, or none when the caller asked for none; a warning where it needs fewer strands. */
-export function proposalStage(first: ServiceDesign, magnel: MagnelResult[], compute: boolean): StageOutcome<Proposal> {
-  const proposal = compute ? proposeStressDesign(first, magnel) : noProposal('not computed')
+export function proposalStage(first: ServiceDesign, magnel: MagnelResult[], options: { compute: boolean; verify: VerifyMember }): StageOutcome<Proposal> {
+  const proposal = options.compute ? proposeDesign(first, magnel, options.verify) : noProposal('not computed')
   const warnings: string[] = []
   if (proposal.feasible && proposal.strands !== null && proposal.strands < first.section.strands - 1e-9 && stressesPass(first)) {
-    warnings.push('The proposal passes every stress check with fewer strands than provided.')
+    warnings.push('The proposal passes every check it claims with fewer strands than provided.')
   }
   return { result: proposal, checks: [], warnings }
 }

@@ -216,6 +216,8 @@ export const RESULT_SPECS: Record<string, QuantitySpec> = {
   'proposal.count': spec('Tendons proposed', '', 0, 'n_t'),
   'proposal.supportEcc[]': spec('Eccentricity at the support, proposed', 'mm', 1, 'e_{sup}'),
   'proposal.spanEcc[]': spec('Eccentricity at the low point, proposed', 'mm', 1, 'e_{span}'),
+  'proposal.barsBottom': spec('Bottom bars added by the proposal', 'mm²', 0, '\\Delta A_{s,bot}', 'EN 1992-1-1 6.1, eq. (9.1N)'),
+  'proposal.barsTop': spec('Top bars added by the proposal', 'mm²', 0, '\\Delta A_{s,top}', 'EN 1992-1-1 6.1, eq. (9.1N)'),
   'series.X[]': spec('Distance along the member', 'm', 2, 'X'),
   'series.span[]': spec('Span (index from 0)', '', 0),
   'series.x[]': spec('Distance from the left support of the span', 'm', 2, 'x'),
