@@ -86,7 +86,7 @@ const eccSchema = z.number({ error: 'Eccentricity: enter a number' })
 
 export const memberInputShape = {
   geometry: z.object({
-    spans: z.array(spanSchema).min(1, 'Give at least one span').max(10, 'At most 10 spans')
+    spans: z.array(spanSchema).min(1, 'Give at least one span').max(1000, 'At most 1000 spans')
       .meta(meta({ label: 'Spans', unit: 'm', precision: 2, group: 'geometry', symbol: 'L' })),
     supports: z.array(z.enum(['pinned', 'fixed']).meta(meta({ label: 'Support', unit: '', precision: 0, group: 'geometry', help: 'pinned: free to rotate; fixed: rotation restrained' })))
       .optional()
@@ -230,7 +230,7 @@ export const memberInputShape = {
   punching: z.object({
     column: z.enum(['none', 'interior', 'edge', 'corner']).default('none')
       .meta({ label: 'Punching check at a column head', unit: '', precision: 0, group: 'uls', clause: 'EN 1992-1-1 6.4', help: 'slab strips over columns; none skips the check' }),
-    support: z.number().int('Support: a whole number').min(1, 'Supports are numbered from 1').max(11, 'At most 11 supports').default(2)
+    support: z.number().int('Support: a whole number').min(1, 'Supports are numbered from 1').max(1001, 'At most 1001 supports').default(2)
       .meta({ label: 'Support number of the column', unit: '', precision: 0, group: 'uls' }),
     c1: bounded({ label: 'Column size along the strip', unit: 'mm', precision: 0, group: 'uls', symbol: 'c_1' }, 100, 3000).default(400),
     c2: bounded({ label: 'Column size across the strip', unit: 'mm', precision: 0, group: 'uls', symbol: 'c_2' }, 100, 3000).default(400),

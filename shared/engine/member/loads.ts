@@ -1,12 +1,12 @@
 /**
  * Loads stage: line loads from the section and the loaded width, the imposed-load arrangements,
- * and the moments of each load case at the stations, from one analysis per span under a unit load.
+ * and the moments of each load case at the stations: the beam is factored once and each case is one
+ * O(n) solve with its loads on every span together (superposition of the unit-span responses).
  */
-import { at, sum } from '../common/numeric'
 import type { StageOutcome } from '../common/stage'
 import type { MemberInput } from '../input/schema'
-import { analyseContinuousBeam } from '../analysis/continuous-beam'
-import type { ContinuousBeamResult, SupportKind } from '../analysis/continuous-beam'
+import { spanUnitResponses } from '../analysis/continuous-beam'
+import type { SpanUnitResponses, SupportKind } from '../analysis/continuous-beam'
 import type { MemberSection } from './section'
 import type { Station } from './stations'
 
@@ -27,8 +27,8 @@ export interface MemberLoads {
   superimposed: number
   imposed: number
   patterns: LoadPattern[]
-  /** the member under 1 N/mm on one span, span by span (load cases are combinations of these) */
-  unitSpan: ContinuousBeamResult[]
+  /** the member factored once: its response to 1 N/mm on one span, or to any set of span loads in one O(n) solve */
+  responses: SpanUnitResponses
   cases: CaseMoments
 }
 
@@ -66,14 +66,21 @@ export function loadsStage(input: MemberInput, section: MemberSection, stations:
   const superimposed = input.loads.superimposed * trib
   const imposed = input.loads.imposed * trib
 
-  const unitSpan = spans.map((_, i) => analyseContinuousBeam({ spans, EI: section.EI, supports, loads: [{ kind: 'udl', span: i, w: 1 }] }))
-  const unitMoments = stations.map((st) => unitSpan.map((b) => b.momentAt(st.span, st.x)))
+  const responses = spanUnitResponses({ spans, EI: section.EI, supports })
   const patterns = loadPatterns(input)
-  // linear elastic analysis (EN 1992-1-1 5.4): every case is a sum of the unit-load cases
-  const cases: CaseMoments = {
-    selfWeight: unitMoments.map((u) => selfWeight * sum(u)),
-    superimposed: unitMoments.map((u) => superimposed * sum(u)),
-    imposedByPattern: patterns.map((pt) => unitMoments.map((u) => imposed * sum(pt.loadedSpans.map((i) => at(u, i))))),
+  // linear elastic analysis (EN 1992-1-1 5.4): each case is the sum of the unit-span cases, found in one solve
+  const along = (w: number[]): number[] => {
+    const r = responses.combine(w)
+    return stations.map((st) => r.momentAt(st.span, st.x))
   }
-  return { result: { supports, selfWeight, superimposed, imposed, patterns, unitSpan, cases }, checks: [], warnings: [] }
+  const cases: CaseMoments = {
+    selfWeight: along(spans.map(() => selfWeight)),
+    superimposed: along(spans.map(() => superimposed)),
+    imposedByPattern: patterns.map((pt) => {
+      const w = spans.map(() => 0)
+      for (const i of pt.loadedSpans) w[i] = imposed
+      return along(w)
+    }),
+  }
+  return { result: { supports, selfWeight, superimposed, imposed, patterns, responses, cases }, checks: [], warnings: [] }
 }

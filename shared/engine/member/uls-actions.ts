@@ -1,7 +1,6 @@
 /**
  * Design actions at the ultimate limit state shared by the bending, shear and punching checks: the
- * EN 1990 fundamental combinations with pattern loading, each evaluated as a sum of the unit-span
- * load cases, and the secondary effects of prestress at γP (EN 1992-1-1 2.4.2.2(1), 5.10.8(1)).
+ * EN 1990 fundamental combinations with pattern loading, each solved once on the factored beam, and the secondary effects of prestress at γP (EN 1992-1-1 2.4.2.2(1), 5.10.8(1)).
  */
 import type { MemberInput } from '../input/schema'
 import { ulsLoadCases } from '../loads/uls-combinations'
@@ -13,8 +12,8 @@ import type { MemberSection } from './section'
 
 export interface UlsActions {
   cases: UlsCase[]
-  /** a case's value of a unit-span response f(span result) summed over the spans */
-  caseValue: (c: UlsCase, f: (unit: ContinuousBeamResult) => number) => number
+  /** a value f of the member's response to a case (one O(n) solve per case, made once) */
+  caseValue: (c: UlsCase, f: (response: ContinuousBeamResult) => number) => number
   /** secondary moments at the supports, transfer and service (they vary linearly along each span, 5.10.7) */
   secondaryTransfer: number[]
   secondaryService: number[]
@@ -33,8 +32,9 @@ export function ulsActions(input: MemberInput, section: MemberSection, loads: Me
     .filter((c) => input.loads.pattern !== 'all-spans' || c.id.endsWith('.all'))
   const G = loads.selfWeight + loads.superimposed
   const Q = loads.imposed
-  const caseValue = (c: UlsCase, f: (unit: ContinuousBeamResult) => number): number =>
-    spans.reduce((s, _, i) => s + ((c.g[i] as number) * G + (c.q[i] as number) * Q) * f(loads.unitSpan[i] as ContinuousBeamResult), 0)
+  // each case: γG·G on every span and γQ·Q on the loaded ones, solved once by superposition of the unit-span cases
+  const responses = new Map(cases.map((c) => [c, loads.responses.combine(spans.map((_, i) => (c.g[i] as number) * G + (c.q[i] as number) * Q))]))
+  const caseValue = (c: UlsCase, f: (response: ContinuousBeamResult) => number): number => f(responses.get(c) as ContinuousBeamResult)
   const secondaryAt = (m: number[], span: number, x: number): number =>
     (m[span] as number) * (1 - x / (spans[span] as number)) + ((m[span + 1] as number) * x) / (spans[span] as number)
   const h = section.properties.h
