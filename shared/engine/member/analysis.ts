@@ -7,6 +7,7 @@ import { at } from '../common/numeric'
 import type { StageOutcome } from '../common/stage'
 import type { MemberLosses } from './losses'
 import type { MemberProfile } from './profile'
+import { stationFinder } from './stations'
 import type { Station } from './stations'
 
 export interface PrestressMomentLine { primary: number[]; secondary: number[]; total: number[] }
@@ -23,9 +24,8 @@ export interface PrestressAnalysis {
 
 export function analysisStage(stations: Station[], profile: MemberProfile, losses: MemberLosses): StageOutcome<PrestressAnalysis> {
   const n = stations.length === 0 ? 0 : (stations[stations.length - 1] as Station).span + 1
-  const supportStations = Array.from({ length: n + 1 }, (_, j) => (j < n
-    ? stations.findIndex((s) => s.span === j && s.x === 0)
-    : stations.length - 1))
+  const find = stationFinder(stations)
+  const supportStations = Array.from({ length: n + 1 }, (_, j) => (j < n ? find(j, 0) : stations.length - 1))
   const line = (P: number[], Pmean: number): PrestressMomentLine => {
     const primary = stations.map((_, k) => -at(P, k) * at(profile.e, k)) // primary moment −P·e
     const secondary = profile.secondaryPerUnitForce.map((m) => m * Pmean)

@@ -52,3 +52,20 @@ export function stationGrid(input: MemberInput): Station[] {
   })
   return out
 }
+
+/**
+ * A lookup of the station at (span, x) within 1e-6 mm, or −1: the stations of each span are
+ * searched alone, so a lookup costs the stations of one span, not of the member.
+ */
+export function stationFinder(stations: Station[]): (span: number, x: number) => number {
+  const first: number[] = []
+  stations.forEach((s, k) => {
+    if (first[s.span] === undefined) first[s.span] = k
+  })
+  return (span, x) => {
+    for (let k = first[span] ?? stations.length; k < stations.length && (stations[k] as Station).span === span; k++) {
+      if (Math.abs((stations[k] as Station).x - x) < 1e-6) return k
+    }
+    return -1
+  }
+}

@@ -14,6 +14,7 @@ import type { MemberLoads } from './loads'
 import type { MemberLosses, StageForce } from './losses'
 import type { MemberProfile } from './profile'
 import type { MemberSection } from './section'
+import { stationFinder } from './stations'
 import type { Station } from './stations'
 import { stressChecks } from './stress-checks'
 import { STAGES, forceFactors, stressLimits } from './stress-limits'
@@ -108,7 +109,7 @@ interface SectionSite { id: string; label: string; kind: ServiceSection['kind'];
 function criticalSites(spans: number[], lowAt: number[], stations: Station[]): SectionSite[] {
   const n = spans.length
   const out: SectionSite[] = []
-  const find = (span: number, x: number): number => stations.findIndex((s) => s.span === span && Math.abs(s.x - x) < 1e-6)
+  const find = stationFinder(stations)
   const seen = new Set<number>()
   const add = (site: SectionSite): void => {
     if (site.k < 0 || seen.has(site.k)) return

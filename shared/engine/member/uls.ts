@@ -214,10 +214,11 @@ export function ulsStage({ input, section, loads, profile, losses, analysis, str
   checks.push(ratioCheck({ id: 'detailing.maxSteel', group: 'detailing', title: 'Greatest longitudinal steel', clause: 'EN 1992-1-1 9.2.1.1(3)', actual: bb.area + bt.area + Ap, limit: limBottom.AsMax, unit: 'mm²' }))
   if (supportSteel && n > 1) checks.push(ratioCheck({ id: 'detailing.supportSteel', group: 'detailing', title: 'Bonded top steel over the supports', clause: 'common practice (0.075 % of h × panel width)', actual: bt.area, limit: supportSteel.As, unit: 'mm²', note: `${SUPPORT_TOP_STEEL_RULE}; per metre of strip`, atLeast: true }))
   if (!bonded) {
+    const serviceById = new Map(stresses.sections.map((x) => [x.id, x]))
     // 9.2.1.1(4) (from memory): unbonded tendons, MRd ≥ 1.15 Mcr
     let worst: { u: number; MRd: number; Mcr: number; label: string } | null = null
     for (const s of sections) {
-      const ss = stresses.sections.find((x) => x.id === s.id)
+      const ss = serviceById.get(s.id)
       if (!ss) continue
       const P = ss.force.service
       for (const f of ['sagging', 'hogging'] as const) {
