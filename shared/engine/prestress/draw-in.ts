@@ -131,8 +131,21 @@ function seatAtStart(s: readonly number[], P: readonly number[], g: Reverse, tar
   }
   if (target === 0) return { force: [...P], setLength: 0, wholeLength: false, area: 0 }
   const P0 = P[0] as number
-  if (target >= trapezoid(s, loss(0).loss)) throw new EngineInputError('slip', 'the draw-in is larger than the extension of the whole tendon')
-  const R0 = bisect((r) => trapezoid(s, loss(r).loss) - target, 0, P0)
+  // the same area as trapezoid(s, loss(R0).loss), without building the arrays (bisection runs it often)
+  const lossArea = (R0: number): number => {
+    let sum = 0
+    let prev = Math.max(0, P0 - g(R0, 0))
+    for (let i = 1; i < n; i++) {
+      const l = (P[i] as number) - g(R0, i)
+      const h = (s[i] as number) - (s[i - 1] as number)
+      if (l <= 0) return sum + (prev / 2) * h // trapezoidal rule, zero loss from the first crossing on
+      sum += ((prev + l) / 2) * h // trapezoidal rule
+      prev = l
+    }
+    return sum
+  }
+  if (target >= lossArea(0)) throw new EngineInputError('slip', 'the draw-in is larger than the extension of the whole tendon')
+  const R0 = bisect((r) => lossArea(r) - target, 0, P0)
   const r = loss(R0)
   return { force: P.map((p, i) => p - (r.loss[i] as number)), setLength: r.end, wholeLength: r.whole, area: trapezoid(s, r.loss) }
 }
@@ -165,6 +178,7 @@ function seatBoth(x: readonly number[], J: readonly number[], gl: Reverse, gr: R
   if (!overlap) return { force: J.map((_, i) => Math.min(left.force[i] as number, right.force[i] as number)), left, right }
   // the whole tendon slides, each part towards its own anchor: F = min(J, left reverse curve, right reverse curve)
   const n = x.length
+  if (2 * target >= trapezoid(x, J)) throw new EngineInputError('slip', 'the two draw-ins are larger than the extension of the whole tendon')
   const curve = (A: number, B: number): number[] => J.map((p, i) => Math.min(p, gl(A, i), gr(B, i)))
   const parts = (A: number, B: number): { left: number; right: number; xs: number } => {
     const loss = curve(A, B).map((f, i) => (J[i] as number) - f)

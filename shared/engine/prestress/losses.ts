@@ -33,7 +33,13 @@ export function drawInForces(x: number[], P: number[], slip: number, EpAp: numbe
   if (x.length !== P.length || x.length < 2) throw new EngineInputError('x', 'give at least two stations with their forces')
   if (!(slip >= 0) || !Number.isFinite(slip)) throw new EngineInputError('drawIn', 'the draw-in must not be negative')
   if (!(EpAp > 0)) throw new EngineInputError('Ap', 'Ep·Ap must be positive')
-  const r = forceAfterLockOff({ x, frictionFromLeft: P, ends: 'left', slip, EpAp, reverseFriction: 'mirror' })
+  let r: ReturnType<typeof forceAfterLockOff>
+  try {
+    r = forceAfterLockOff({ x, frictionFromLeft: P, ends: 'left', slip, EpAp, reverseFriction: 'mirror' })
+  } catch (e) {
+    if (e instanceof EngineInputError && e.field === 'slip') throw new EngineInputError('drawIn', e.message.replace(/^slip: /, '')) // this function's own name for it
+    throw e
+  }
   return { P: r.force, lset: r.setLength.left as number, lossAtAnchor: r.lossAtAnchor.left as number, wholeLength: r.wholeLength.left as boolean }
 }
 

@@ -127,9 +127,9 @@ function tendonPath(profile: TendonProfile, stations: number): Path {
   return { s, slopes, length: sAcc, theta }
 }
 
-function integral(s: number[], P: number[], from = 0, to = s.length - 1): number {
+function integral(s: number[], P: number[]): number {
   let sum = 0
-  for (let j = from + 1; j <= to; j++) sum += (((P[j - 1] as number) + (P[j] as number)) / 2) * ((s[j] as number) - (s[j - 1] as number)) // trapezoidal rule
+  for (let j = 1; j < s.length; j++) sum += (((P[j - 1] as number) + (P[j] as number)) / 2) * ((s[j] as number) - (s[j - 1] as number)) // trapezoidal rule
   return sum
 }
 
@@ -161,6 +161,16 @@ function validate(i: StressingInput): void {
   })
 }
 
+/** A draw-in too large for the tendon is reported against this schedule's own field. */
+function asDrawIn<T>(f: () => T): T {
+  try {
+    return f()
+  } catch (e) {
+    if (e instanceof EngineInputError && e.field === 'slip') throw new EngineInputError('drawIn', e.message.replace(/^slip: /, ''))
+    throw e
+  }
+}
+
 export function stressingSchedule(i: StressingInput): StressingSchedule {
   validate(i)
   const tol = i.tolerance ?? 0.07
@@ -171,10 +181,10 @@ export function stressingSchedule(i: StressingInput): StressingSchedule {
     const EpAp = i.Ep * t.Ap
     const curves = frictionCurves({ x: s, slopes, Pjack: t.Pjack, mu: i.mu, k: i.k }) // eq. (5.45) from either end
     const jackPart = (t.Pjack * (i.jackLength ?? 0)) / EpAp // strand inside the jack
-    const r = forceAfterLockOff({
+    const r = asDrawIn(() => forceAfterLockOff({
       x: s, frictionFromLeft: curves.fromLeft, frictionFromRight: curves.fromRight, ends: t.ends, slip: i.drawIn, EpAp,
       sequence: t.ends === 'both' ? i.sequence ?? 'simultaneous' : undefined,
-    })
+    }))
     const lockOff = r.force
     // ΔL = ∫ΔP dx/(Ep Ap) drawn by each jack, plus the strand inside the jack
     const left = r.extensionAtJack.left === undefined ? null : r.extensionAtJack.left + jackPart

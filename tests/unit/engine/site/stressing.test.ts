@@ -78,5 +78,13 @@ describe('stressing schedule: draw-in', () => {
       if (e instanceof EngineInputError) field = e.field
     }
     expect(field).toBe('sequence')
+    // a draw-in beyond the whole extension (≈ 1488 × 19 000/195 000 = 145 mm at most here) is named as the draw-in
+    try {
+      stressingSchedule({ ...base, drawIn: 200 })
+      field = 'no error'
+    } catch (e) {
+      if (e instanceof EngineInputError) field = e.field
+    }
+    expect(field).toBe('drawIn')
   })
 })
