@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { stressingSchedule, type StressingInput } from '../../../../shared/engine/site/stressing'
-import type { TendonProfile } from '../../../../shared/engine/prestress/profile'
+import { tendonSlope, type TendonProfile } from '../../../../shared/engine/prestress/profile'
 import { EngineInputError } from '../../../../shared/engine/contract'
 
 describe('stressing schedule: draw-in', () => {
@@ -39,6 +39,43 @@ describe('stressing schedule: draw-in', () => {
     const mid = Math.floor(n / 2)
     expect(s[mid] as number).toBeCloseTo((s[n - 1] as number) / 2, 6)
     expect(f[mid] as number).toBeLessThan(4 * 150 * 1488 * Math.exp(-0.06 * (0.5 * r.tendons[0]!.theta + 1e-5 * (s[mid] as number))) - 1000)
+  })
+
+  it('3 spans together: the anchor force after lock-off from the half-tendon balance (independent sampling)', () => {
+    // hand method: by symmetry the tendon stands still at mid-length and each half slides towards its anchor, where the
+    // reverse friction gives F = A·e^(μ(θ + ks)) (eq. (5.45) backwards). The half gives back one slip:
+    // ∫₀^(L/2) (F_L − A·e^(μ(θ + ks))) ds = Δ·Ep·Ap → A = (∫F_L ds − Δ·Ep·Ap)/∫e^(μ(θ + ks)) ds, sampled here on its own grid
+    const mu = 0.06
+    const k = 1e-5
+    const Pj = 4 * 150 * 1488
+    const n = 3000
+    let sAcc = 0
+    let theta = 0
+    let prev: { s: number; slope: number } | null = null
+    const pts: Array<{ s: number; F: number; grow: number }> = []
+    threeSpans.spans.forEach((L, span) => {
+      for (let j = 0; j <= n; j++) {
+        const x = (L * j) / n
+        const slope = tendonSlope(threeSpans, span, x)
+        if (prev) {
+          sAcc += j === 0 ? 0 : (L / n) * (Math.sqrt(1 + prev.slope ** 2) + Math.sqrt(1 + slope ** 2)) / 2 // ds = √(1 + e′²) dx
+          theta += Math.abs(Math.atan(slope) - Math.atan(prev.slope)) // θ: true change of direction
+        }
+        prev = { s: sAcc, slope }
+        pts.push({ s: sAcc, F: Pj * Math.exp(-mu * (theta + k * sAcc)), grow: Math.exp(mu * (theta + k * sAcc)) })
+      }
+    })
+    const half = pts.filter((p) => p.s <= sAcc / 2)
+    let intF = 0
+    let intG = 0
+    for (let j = 1; j < half.length; j++) {
+      const h = (half[j] as { s: number }).s - (half[j - 1] as { s: number }).s
+      intF += (((half[j - 1] as { F: number }).F + (half[j] as { F: number }).F) / 2) * h // trapezoidal rule
+      intG += (((half[j - 1] as { grow: number }).grow + (half[j] as { grow: number }).grow) / 2) * h
+    }
+    const A = (intF - 6 * 195000 * 600) / intG
+    const f = stressingSchedule({ ...base, stations: 400 }).series.force[0] as number[]
+    expect(Math.abs((f[0] as number) / A - 1)).toBeLessThan(2e-3)
   })
 
   it('3 spans, one end then the other: left-first and right-first give mirror images', () => {
