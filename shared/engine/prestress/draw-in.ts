@@ -24,6 +24,10 @@
  *   away from a stationary point where the two reverse-friction curves meet.
  * Because every curve here is a multiple of e^(±μ(θ + kx)), the ratio of two of them is monotonic
  * along the tendon: the max/min above each change the force over one length from an end only.
+ * The order of the ends matters only where the affected lengths meet: then, on a tendon that is
+ * not symmetric, it changes the mean force after lock-off (by several per cent on short, strongly
+ * curved tendons), so it is an input and not an assumption. Where the lengths do not meet, all
+ * three sequences give max(one-end result from the left, from the right).
  *
  * Forces N, x in mm (along the tendon), Ep·Ap in N.
  */
