@@ -1,5 +1,6 @@
 import { defineStore } from 'pinia'
-import { inputFieldSpecs, memberInputSchema } from '~/shared/engine/schema'
+import { memberInputSchema } from '~/shared/engine/input/schema'
+import { inputFieldSpecs } from '~/shared/engine/input/field-specs'
 import { fieldErrors, type FieldErrors } from '~/shared/utils/validation'
 import { clonePlain, getPath, mergePatch, setPath } from '~/shared/utils/paths'
 import { runSheet, renderSheet, compileSheet, type SheetRun } from '~/shared/sheet/runtime'

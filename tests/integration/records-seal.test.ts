@@ -3,7 +3,7 @@ import { join } from 'node:path'
 import { beforeAll, describe, expect, it } from 'vitest'
 import { PDFDocument } from 'pdf-lib'
 import { sha256Hex } from '../../server/utils/hashing'
-import { DEMO_PS2 } from '../../shared/engine/demo'
+import { DEMO_PS2 } from '../../shared/engine/input/demo'
 import { withDb } from '../helpers/db'
 import { makeSheet, pdfText, session, setSheetInputs, type Session } from './records-fixtures'
 
