@@ -105,6 +105,31 @@ export const useSheetStore = defineStore('sheet', () => {
 
   const checks = computed(() => shownRun.value?.design.checks ?? [])
 
+  // Replies to the checker's comments on a returned revision, keyed "reviewId:comment"; they go with
+  // the next issue. Kept in the browser per revision, so a reload does not lose what is written.
+  const replies = ref<Record<string, string>>({})
+  const repliesTo = ref<number | null>(null)
+  const replyStoreKey = (revisionId: number) => `tendonbook-replies-${revisionId}`
+  function answerRevision(revisionId: number | null) {
+    if (repliesTo.value === revisionId) return
+    repliesTo.value = revisionId
+    replies.value = revisionId === null || !import.meta.client ? {} : JSON.parse(localStorage.getItem(replyStoreKey(revisionId)) ?? '{}')
+  }
+  function setReply(reviewId: number, comment: number, text: string) {
+    replies.value = { ...replies.value, [`${reviewId}:${comment}`]: text }
+    if (repliesTo.value !== null) localStorage.setItem(replyStoreKey(repliesTo.value), JSON.stringify(replies.value))
+  }
+  const replyList = computed(() => Object.entries(replies.value).filter(([, text]) => text.trim()).map(([key, text]) => {
+    const [reviewId, comment] = key.split(':').map(Number) as [number, number]
+    return { reviewId, comment, text: text.trim() }
+  }))
+  /** The replies went with an issue: forget them. */
+  function clearReplies() {
+    if (repliesTo.value !== null) localStorage.removeItem(replyStoreKey(repliesTo.value))
+    replies.value = {}
+    repliesTo.value = null
+  }
+
   function load(payload: SheetPayload) {
     sheet.value = payload
     inputs.value = clonePlain(payload.inputs)
@@ -260,6 +285,7 @@ export const useSheetStore = defineStore('sheet', () => {
   return {
     sheet, inputs, draftVersion, saveState, saveMessage, savedAt, specs, compiled, validation, run, errors, blocker, stale, report,
     checks, undoStack, redoStack,
+    replies, replyList, answerRevision, setReply, clearReplies,
     load, setInput, setTextError, resizeSpans, applyPatch, replaceInputs, undo, redo, save, flush,
   }
 })
