@@ -84,7 +84,10 @@ export const useSheetStore = defineStore('sheet', () => {
 
   const blocker = computed<Blocker | null>(() => {
     const [path, message] = Object.entries(errors.value)[0] ?? []
-    return path ? { path, label: inputLabel(path), message: describeInputError(path, message!) } : null
+    if (!path) return null
+    // an engine failure that names no input (a bug, not a typing slip) is said as it is
+    if (path === '(engine)') return { path, label: 'The design engine', message: `The design engine stopped: ${message}` }
+    return { path, label: inputLabel(path), message: describeInputError(path, message!) }
   })
 
   // The last inputs that ran: while a field is invalid the report stays on screen, marked stale.

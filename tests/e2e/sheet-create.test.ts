@@ -2,16 +2,11 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser } from 'playwright-core'
 import { launch, newPage, screenshot, signInAs } from '../helpers/browser'
 import { signedIn } from '../helpers/client'
+import { demoProjectId } from '../helpers/sheets'
 
 let browser: Browser
 beforeAll(async () => { browser = await launch() })
 afterAll(async () => { await browser?.close() })
-
-async function demoProjectId() {
-  const client = await signedIn('engineer')
-  const projects = (await client.get('/api/projects')).body as Array<{ id: number, jobNumber: string }>
-  return projects.find(p => p.jobNumber === '2417')!.id
-}
 
 describe('a new calc sheet', () => {
   it('starts from the template with the number and lengths of spans chosen', async () => {

@@ -1,7 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser, Page } from 'playwright-core'
+import type { Browser } from 'playwright-core'
 import { launch, newPage, screenshot, signInAs } from '../helpers/browser'
 import { signedIn } from '../helpers/client'
+import { demoProjectId, openSheet, ownSheet } from '../helpers/sheets'
 import { DEMO_PS2 } from '../../shared/engine/demo'
 
 let browser: Browser
@@ -10,26 +11,8 @@ afterAll(async () => { await browser?.close() })
 
 async function demoSheetId(reference: string) {
   const client = await signedIn('engineer')
-  const projects = (await client.get('/api/projects')).body as Array<{ id: number, jobNumber: string }>
-  const project = (await client.get(`/api/projects/${projects.find(p => p.jobNumber === '2417')!.id}`)).body as { sheets: Array<{ id: number, reference: string }> }
+  const project = (await client.get(`/api/projects/${await demoProjectId()}`)).body as { sheets: Array<{ id: number, reference: string }> }
   return project.sheets.find(s => s.reference === reference)!.id
-}
-
-/** A sheet of its own for a test, with PS-2's inputs, so tests never share a draft. */
-async function ownSheet(reference: string) {
-  const client = await signedIn('engineer')
-  const projects = (await client.get('/api/projects')).body as Array<{ id: number, jobNumber: string }>
-  const projectId = projects.find(p => p.jobNumber === '2417')!.id
-  const templates = (await client.get('/api/templates')).body as Array<{ id: number, slug: string }>
-  const created = await client.post(`/api/projects/${projectId}/sheets`, { reference: `${reference}-${Date.now().toString(36)}`, title: 'Editor test slab', templateId: templates.find(t => t.slug === 'pt-slab-strip')!.id })
-  expect(created.status).toBe(201)
-  return (created.body as { id: number }).id
-}
-
-async function openSheet(page: Page, id: number) {
-  await page.goto(`/sheets/${id}`)
-  await page.waitForSelector('[data-test=report] h1, [data-test=report] h2')
-  await page.waitForSelector('[data-test=check-summary]')
 }
 
 describe('the calc-sheet editor', () => {

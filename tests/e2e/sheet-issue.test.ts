@@ -1,27 +1,12 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser, Page } from 'playwright-core'
+import type { Browser } from 'playwright-core'
 import { launch, newPage, screenshot, signInAs } from '../helpers/browser'
 import { signedIn } from '../helpers/client'
+import { openSheet, ownSheet } from '../helpers/sheets'
 
 let browser: Browser
 beforeAll(async () => { browser = await launch() })
 afterAll(async () => { await browser?.close() })
-
-async function ownSheet(reference: string) {
-  const client = await signedIn('engineer')
-  const projects = (await client.get('/api/projects')).body as Array<{ id: number, jobNumber: string }>
-  const projectId = projects.find(p => p.jobNumber === '2417')!.id
-  const templates = (await client.get('/api/templates')).body as Array<{ id: number, slug: string }>
-  const created = await client.post(`/api/projects/${projectId}/sheets`, { reference: `${reference}-${Date.now().toString(36)}`, title: 'Issue test slab', templateId: templates.find(t => t.slug === 'pt-slab-strip')!.id })
-  expect(created.status).toBe(201)
-  return (created.body as { id: number }).id
-}
-
-async function openSheet(page: Page, id: number) {
-  await page.goto(`/sheets/${id}`)
-  await page.waitForSelector('[data-test=report] h1, [data-test=report] h2')
-  await page.waitForSelector('[data-test=check-summary]')
-}
 
 describe('issuing from the editor', () => {
   it('asks for a reason before issuing with failing checks, freezes it and shows it to the checker', async () => {
