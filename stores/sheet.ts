@@ -116,7 +116,7 @@ export const useSheetStore = defineStore('sheet', () => {
   function answerRevision(revisionId: number | null) {
     if (repliesTo.value === revisionId) return
     repliesTo.value = revisionId
-    replies.value = revisionId === null || !import.meta.client ? {} : JSON.parse(localStorage.getItem(replyStoreKey(revisionId)) ?? '{}')
+    replies.value = revisionId === null ? {} : JSON.parse(localStorage.getItem(replyStoreKey(revisionId)) ?? '{}')
   }
   function setReply(reviewId: number, comment: number, text: string) {
     replies.value = { ...replies.value, [`${reviewId}:${comment}`]: text }
