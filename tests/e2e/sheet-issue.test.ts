@@ -28,6 +28,7 @@ describe('issuing from the editor', () => {
     expect(((await client.get(`/api/sheets/${id}/revisions`)).body as unknown[]).length).toBe(0)
 
     await page.fill('[data-test=issue-reason]', 'Issued for the checker to see the stress state before the tendon layout meeting.')
+    await expect.poll(() => page.locator('[data-test=issue-reason-error]').count()).toBe(0)
     await screenshot(page, 'sheet-issue-failing-checks')
     await page.locator('[data-test=issue-confirm]').click()
     await expect.poll(() => page.locator('[data-test=issue-ok]').textContent(), { timeout: 20_000 }).toContain('P01 issued for check')
