@@ -1,8 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser } from 'playwright-core'
-import { launch, newPage, screenshot, signInAs } from '../helpers/browser'
+import { launch, screenshot } from '../helpers/browser'
 import { signedIn } from '../helpers/client'
-import { demoProjectId, openSheet, ownSheet } from '../helpers/sheets'
+import { demoProjectId, editorAsEngineer, ownSheet, spaceTendonsWide } from '../helpers/sheets'
 import { DEMO_PS2 } from '../../shared/engine/demo'
 
 let browser: Browser
@@ -18,9 +18,7 @@ async function demoSheetId(reference: string) {
 describe('the calc-sheet editor', () => {
   it('recalculates the report and the check summary at once when a span changes, and saves the draft', async () => {
     const id = await demoSheetId('PS-2')
-    const page = await newPage(browser)
-    await signInAs(page, 'engineer')
-    await openSheet(page, id)
+    const page = await editorAsEngineer(browser, id)
     await screenshot(page, 'sheet-ps2')
     const reportBefore = await page.locator('[data-test=report]').innerText()
     const worstBefore = await page.locator('[data-test=worst-utilisation]').innerText()
@@ -51,14 +49,8 @@ describe('the calc-sheet editor', () => {
 
   it('applies the proposal as one undoable step that makes failing stress checks pass', async () => {
     const id = await demoSheetId('PS-2')
-    const page = await newPage(browser)
-    await signInAs(page, 'engineer')
-    await openSheet(page, id)
-    // too few tendons: the stress checks fail
-    const spacing = page.locator('[data-path="tendon.spacing"] input')
-    await spacing.fill('1500')
-    await spacing.blur()
-    await expect.poll(() => page.locator('[data-test=check-state]').innerText()).toMatch(/checks fail/)
+    const page = await editorAsEngineer(browser, id)
+    const spacing = await spaceTendonsWide(page)
     const failing = await page.locator('[data-test=check-state]').innerText()
     const propose = page.locator('[data-test=propose]')
     await expect.poll(() => propose.isEnabled(), { timeout: 10_000 }).toBe(true)
@@ -78,9 +70,7 @@ describe('the calc-sheet editor', () => {
 
   it('refuses an inputs file with bad lines, naming each, and changes nothing', async () => {
     const id = await demoSheetId('PS-2')
-    const page = await newPage(browser)
-    await signInAs(page, 'engineer')
-    await openSheet(page, id)
+    const page = await editorAsEngineer(browser, id)
     const before = await page.locator('[data-test=report]').innerText()
     await page.locator('[data-test=import]').setInputFiles({ name: 'bad.csv', mimeType: 'text/csv', buffer: Buffer.from('field,value,unit\ngeometry.spans.0,eight,m\nnot.a.field,1,\n') })
     await expect.poll(() => page.locator('[data-test=import-problems]').innerText()).toContain('line 2: Span 1 must be a number')
@@ -90,9 +80,7 @@ describe('the calc-sheet editor', () => {
 
   it('judges a field by its current text: typing is not an error, a fixed value clears at once and the draft saves', async () => {
     const id = await ownSheet('VAL')
-    const page = await newPage(browser)
-    await signInAs(page, 'engineer')
-    await openSheet(page, id)
+    const page = await editorAsEngineer(browser, id)
     const span2 = page.locator('[data-path="geometry.spans"] input').nth(1)
     const spansField = page.locator('[data-path="geometry.spans"]')
     const saveState = page.locator('[data-test=save-state]')
@@ -140,9 +128,7 @@ describe('the calc-sheet editor', () => {
 
   it('speaks in labels and words: drop-downs show words, headline governs by a check the design controls', async () => {
     const id = await ownSheet('WORDS')
-    const page = await newPage(browser)
-    await signInAs(page, 'engineer')
-    await openSheet(page, id)
+    const page = await editorAsEngineer(browser, id)
     const kinds = await page.locator('#in-section-kind option').allInnerTexts()
     expect(kinds.map(t => t.trim())).toEqual(expect.arrayContaining(['Slab strip', 'T band beam']))
     const patterns = await page.locator('[data-test=report] select[data-key="loads.pattern"] option, #in-loads-pattern option').allInnerTexts()
@@ -163,9 +149,7 @@ describe('the calc-sheet editor', () => {
 
   it('exports the inputs in the units the engineer types and imports them back, old engine-unit files too', async () => {
     const id = await ownSheet('IO')
-    const page = await newPage(browser)
-    await signInAs(page, 'engineer')
-    await openSheet(page, id)
+    const page = await editorAsEngineer(browser, id)
     const [json] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Export JSON' }).click()])
     const doc = JSON.parse(await (await json.createReadStream()).toArray().then(chunks => Buffer.concat(chunks).toString('utf8')))
     expect(doc.format).toBe('tendonbook-inputs/2')
@@ -190,9 +174,7 @@ describe('the calc-sheet editor', () => {
 
   it('removes a span from a symmetric member in the middle, so it stays symmetric', async () => {
     const id = await ownSheet('SPANS')
-    const page = await newPage(browser)
-    await signInAs(page, 'engineer')
-    await openSheet(page, id)
+    const page = await editorAsEngineer(browser, id)
     await page.getByRole('button', { name: 'Remove a span' }).click()
     const spans = page.locator('[data-path="geometry.spans"] input')
     await expect.poll(() => spans.count()).toBe(3)

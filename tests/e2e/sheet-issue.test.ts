@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser } from 'playwright-core'
 import { launch, newPage, screenshot, signInAs } from '../helpers/browser'
 import { signedIn } from '../helpers/client'
-import { openSheet, ownSheet } from '../helpers/sheets'
+import { editorAsEngineer, openSheet, ownSheet, spaceTendonsWide } from '../helpers/sheets'
 
 let browser: Browser
 beforeAll(async () => { browser = await launch() })
@@ -11,13 +11,8 @@ afterAll(async () => { await browser?.close() })
 describe('issuing from the editor', () => {
   it('asks for a reason before issuing with failing checks, freezes it and shows it to the checker', async () => {
     const id = await ownSheet('FAIL')
-    const page = await newPage(browser)
-    await signInAs(page, 'engineer')
-    await openSheet(page, id)
-    const spacing = page.locator('[data-path="tendon.spacing"] input')
-    await spacing.fill('1500')
-    await spacing.blur()
-    await expect.poll(() => page.locator('[data-test=check-state]').innerText()).toMatch(/checks fail/)
+    const page = await editorAsEngineer(browser, id)
+    await spaceTendonsWide(page)
     await expect.poll(() => page.locator('[data-test=save-state]').innerText(), { timeout: 10_000 }).toMatch(/^Saved/)
 
     await page.locator('[data-test=issue-revision]').click()
@@ -54,9 +49,7 @@ describe('issuing from the editor', () => {
     const returned = await checker.post(`/api/revisions/${rev.id}/reviews`, { decision: 'return', comments: [{ anchor: section.id, text: 'State the partition allowance in the superimposed dead load.' }, { anchor: '', text: 'Add the fire resistance period to the scope.' }] })
     expect(returned.status).toBe(201)
 
-    const page = await newPage(browser)
-    await signInAs(page, 'engineer')
-    await openSheet(page, id)
+    const page = await editorAsEngineer(browser, id)
     const banner = page.locator('[data-test=returned-comments]')
     await expect.poll(() => banner.innerText()).toContain('P01 was returned with 2 comments')
     expect(await banner.innerText()).toContain('State the partition allowance')

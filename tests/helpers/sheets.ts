@@ -1,6 +1,7 @@
 // Calc sheets for end-to-end tests: a sheet of a test's own in the demo project, and opening it.
 import { expect } from 'vitest'
-import type { Page } from 'playwright-core'
+import type { Browser, Page } from 'playwright-core'
+import { newPage, signInAs } from './browser'
 import { signedIn } from './client'
 
 export async function demoProjectId() {
@@ -23,4 +24,21 @@ export async function openSheet(page: Page, id: number) {
   await page.goto(`/sheets/${id}`)
   await page.waitForSelector('[data-test=report] h1, [data-test=report] h2')
   await page.waitForSelector('[data-test=check-summary]')
+}
+
+/** A new browser page, signed in as the demo engineer, on the editor of sheet `id`. */
+export async function editorAsEngineer(browser: Browser, id: number) {
+  const page = await newPage(browser)
+  await signInAs(page, 'engineer')
+  await openSheet(page, id)
+  return page
+}
+
+/** Too few tendons (a slab strip's spacing of 1.5 m): the stress checks fail. */
+export async function spaceTendonsWide(page: Page) {
+  const spacing = page.locator('[data-path="tendon.spacing"] input')
+  await spacing.fill('1500')
+  await spacing.blur()
+  await expect.poll(() => page.locator('[data-test=check-state]').innerText()).toMatch(/checks fail/)
+  return spacing
 }
