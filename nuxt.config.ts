@@ -52,6 +52,8 @@ export default defineNuxtConfig({
     mailboxDir: '',
     public: {
       devMailbox: false,
+      // how dates read on screen (NUXT_PUBLIC_OFFICE_LOCALE); records keep ISO 8601
+      officeLocale: 'en-GB',
     },
   },
   nitro: {

@@ -21,6 +21,10 @@ export const revisions = mysqlTable('revisions', {
   seq: int('seq').notNull(),
   code: varchar('code', { length: 8 }).notNull(),
   note: varchar('note', { length: 500 }).notNull().default(''),
+  // why the author issued although checks fail (required then); frozen with the run
+  failingChecksReason: varchar('failing_checks_reason', { length: 2000 }).notNull().default(''),
+  // the author's replies to the checker's comments on the revision before: [{ reviewId, comment, anchor, commentText, text }]
+  replies: json('replies'),
   inputs: json('inputs').notNull(),
   results: json('results').notNull(),
   templateId: int('template_id').notNull().references(() => templates.id, { onDelete: 'restrict' }),

@@ -1,12 +1,14 @@
 import type { H3Event } from 'h3'
 import { and, asc, desc, eq, inArray } from 'drizzle-orm'
 import { alias } from 'drizzle-orm/mysql-core'
-import { EngineInputError } from '../../shared/engine/contract'
+import { EngineInputError, type CheckResult } from '../../shared/engine/index'
 import type { Db } from '../utils/db'
 import type { Tx } from '../utils/audit'
 import { plainJson, revisionHash } from '../utils/hashing'
 import { deriveStatus, revisionCode, type DerivedStatus } from '../utils/revision-status'
 import { diffRevisions } from '../utils/revision-diff'
+import type { CommentReply, IssueRevisionBody } from '../../shared/schemas/issue'
+import { describeInputError } from '../../shared/sheet/labels'
 
 type DbLike = Db | Tx
 type SessionUser = { id: number, name: string, email: string, role: import('../../shared/types/roles').Role }
@@ -14,7 +16,7 @@ type SessionUser = { id: number, name: string, email: string, role: import('../.
 /** Columns of a revision without its large frozen payload. */
 const r = tables.revisions
 const revisionSummary = {
-  id: r.id, sheetId: r.sheetId, seq: r.seq, code: r.code, note: r.note, templateTitle: r.templateTitle,
+  id: r.id, sheetId: r.sheetId, seq: r.seq, code: r.code, note: r.note, failingChecksReason: r.failingChecksReason, templateTitle: r.templateTitle,
   templateVersion: r.templateVersion, engineVersion: r.engineVersion, authorId: r.authorId,
   issuedAt: r.issuedAt, contentHash: r.contentHash, prevHash: r.prevHash,
 }
@@ -42,14 +44,50 @@ function mailLink(event: H3Event, path: string) {
   return `${getRequestURL(event).origin}${path}`
 }
 
+/** A reply as frozen with the revision: the comment it answers is quoted, so the record reads on its own. */
+export interface FrozenReply extends CommentReply { anchor: string, commentText: string }
+
+/**
+ * The replies, checked against the comments of the sheet's latest revision (the one they answer).
+ * @throws 400 naming `replies` when a reply answers a comment that revision does not have.
+ */
+async function frozenReplies(tx: Tx, sheetId: number, latestRevisionId: number | undefined, replies: CommentReply[]): Promise<FrozenReply[]> {
+  if (!replies.length) return []
+  const reviews = latestRevisionId === undefined
+    ? []
+    : await tx.select({ id: tables.reviews.id, comments: tables.reviews.comments }).from(tables.reviews)
+      .where(and(eq(tables.reviews.revisionId, latestRevisionId), eq(tables.reviews.sheetId, sheetId)))
+  return replies.map((reply) => {
+    const comments = reviews.find(v => v.id === reply.reviewId)?.comments as Array<{ anchor?: string, text: string }> | undefined
+    const comment = comments?.[reply.comment]
+    if (!comment) {
+      const message = 'A reply answers a comment that the latest revision does not have; reload the sheet'
+      throw createError({ statusCode: 400, message: `Replies to the comments: ${message}`, data: { fields: { replies: message } } })
+    }
+    return { ...reply, anchor: comment.anchor ?? '', commentText: comment.text }
+  })
+}
+
+/** @throws 400 naming `failingChecksReason` when checks fail and no reason is given. */
+function requireReasonForFailingChecks(checks: readonly CheckResult[], reason: string) {
+  const failing = checks.filter(c => !c.pass)
+  if (!failing.length || reason) return
+  const list = failing.slice(0, 5).map(c => `${c.title}${c.location ? ` (${c.location})` : ''}`).join('; ')
+  const message = `${failing.length} check${failing.length === 1 ? ' fails' : 's fail'} (${list}${failing.length > 5 ? '; …' : ''}): give the reason for issuing all the same`
+  throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: `Reason for issuing with failing checks: ${message}`, data: { fields: { failingChecksReason: message } } })
+}
+
 /**
  * Freezes the sheet's current inputs as its next revision: the server runs the engine itself,
  * renders the report from the sheet's own template version, and writes the row, its audit event and
  * the notice to the checkers in one transaction. The sheet row is locked first, so concurrent issues
  * of one sheet queue up and get consecutive codes (the unique index and the chain trigger back that up).
- * @throws 404 unknown sheet, 422 naming the input at fault.
+ * Issuing with failing checks needs a reason, frozen with the revision; replies to the checker's
+ * comments on the revision before go with it.
+ * @throws 404 unknown sheet, 422 naming the input at fault, 400 failing checks without a reason.
  */
-export async function issueRevision(event: H3Event, sheetId: number, note: string, user: SessionUser) {
+export async function issueRevision(event: H3Event, sheetId: number, body: IssueRevisionBody, user: SessionUser) {
+  const { note, failingChecksReason } = body
   const created = await useDb().transaction(async (tx) => {
     const [sheet] = await tx.select().from(tables.sheets).where(eq(tables.sheets.id, sheetId)).for('update')
     if (!sheet) throw createError({ statusCode: 404, message: `No calc sheet with id ${sheetId}` })
@@ -63,14 +101,17 @@ export async function issueRevision(event: H3Event, sheetId: number, note: strin
     }
     catch (error) {
       if (error instanceof EngineInputError) {
-        throw createError({ statusCode: 422, message: `inputs.${error.field}: ${error.message}`, data: { fields: { [`inputs.${error.field}`]: error.message } } })
+        const message = error.message.replace(`${error.field}: `, '')
+        throw createError({ statusCode: 422, message: describeInputError(error.field, message), data: { fields: { [`inputs.${error.field}`]: message } } })
       }
       throw error
     }
-    const [last] = await tx.select({ seq: r.seq, contentHash: r.contentHash }).from(r).where(eq(r.sheetId, sheetId)).orderBy(desc(r.seq)).limit(1).for('update')
+    requireReasonForFailingChecks(frozen.results.checks, failingChecksReason)
+    const [last] = await tx.select({ id: r.id, seq: r.seq, contentHash: r.contentHash }).from(r).where(eq(r.sheetId, sheetId)).orderBy(desc(r.seq)).limit(1).for('update')
+    const replies = await frozenReplies(tx, sheetId, last?.id, body.replies)
     const seq = (last?.seq ?? 0) + 1
     const fields = {
-      sheetId, seq, code: revisionCode('P', seq), note,
+      sheetId, seq, code: revisionCode('P', seq), note, failingChecksReason, replies: replies.length ? plainJson(replies) : null,
       inputs: plainJson(frozen.inputs), results: plainJson(frozen.results),
       templateId: template.id, templateSlug: template.slug, templateVersion: template.version, templateTitle: template.title,
       model: template.model, templateBody: template.body, engineVersion: frozen.engineVersion,
@@ -84,7 +125,7 @@ export async function issueRevision(event: H3Event, sheetId: number, note: strin
       kind: 'revision.issued',
       to: await addressesWithRole(tx, 'checker'),
       subject: `[Tendonbook] ${sheet.reference} ${fields.code} issued for check - job ${project.jobNumber} ${project.name}`,
-      text: `${user.name} issued ${sheet.reference} ${fields.code} "${sheet.title}" for check.\n${note ? `Note: ${note}\n` : ''}\nOpen it: ${mailLink(event, `/revisions/${id}`)}\n\nContent hash: ${contentHash}\n`,
+      text: `${user.name} issued ${sheet.reference} ${fields.code} "${sheet.title}" for check.\n${note ? `Note: ${note}\n` : ''}${failingChecksReason ? `Issued with failing checks: ${failingChecksReason}\n` : ''}\nOpen it: ${mailLink(event, `/revisions/${id}`)}\n\nContent hash: ${contentHash}\n`,
     })
     return id
   }, { isolationLevel: 'read committed' })
@@ -128,7 +169,8 @@ export async function getRevisionDetail(id: number, user: SessionUser) {
   const approval = reviews.find(v => v.decision === 'approve')
   const canDecide = status.status === 'issued' && (user.role === 'checker' || user.role === 'admin')
   return {
-    id: rev.id, seq: rev.seq, code: rev.code, note: rev.note, issuedAt: rev.issuedAt, contentHash: rev.contentHash, prevHash: rev.prevHash,
+    id: rev.id, seq: rev.seq, code: rev.code, note: rev.note, failingChecksReason: rev.failingChecksReason,
+    replies: (Array.isArray(rev.replies) ? rev.replies : []) as FrozenReply[], issuedAt: rev.issuedAt, contentHash: rev.contentHash, prevHash: rev.prevHash,
     engineVersion: rev.engineVersion, template: { id: rev.templateId, slug: rev.templateSlug, version: rev.templateVersion, title: rev.templateTitle, model: rev.model },
     reportHtml: rev.reportHtml, sections: rev.reportSections as Array<{ id: string, title: string, level: number }>,
     checks: Array.isArray(results.checks) ? results.checks : [],

@@ -43,6 +43,9 @@ export interface RevisionHashFields {
   seq: number
   code: string
   note: string
+  /** added later: covered only when given, so revisions issued before it keep their hash */
+  failingChecksReason?: string | null
+  replies?: unknown
   inputs: unknown
   results: unknown
   templateId: number
@@ -66,6 +69,8 @@ export function revisionHash(r: RevisionHashFields): string {
     seq: r.seq,
     code: r.code,
     note: r.note,
+    ...(r.failingChecksReason ? { failingChecksReason: r.failingChecksReason } : {}),
+    ...(Array.isArray(r.replies) && r.replies.length ? { replies: r.replies } : {}),
     inputs: r.inputs,
     results: r.results,
     template: { id: r.templateId, slug: r.templateSlug, version: r.templateVersion, title: r.templateTitle, model: r.model, body: r.templateBody },

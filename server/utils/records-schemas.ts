@@ -4,9 +4,8 @@ export const revisionIdParams = z.object({
   id: z.coerce.number({ message: 'id must be a number' }).int().positive('id must be a positive whole number'),
 })
 
-export const issueBody = z.object({
-  note: z.string().trim().max(500, 'The note is at most 500 characters').default(''),
-})
+// the Issue dialog and this route share one schema
+export { issueRevisionSchema as issueBody } from '../../shared/schemas/issue'
 
 export const reviewBody = z.object({
   decision: z.enum(['comment', 'return', 'approve'], { message: 'decision is one of comment, return, approve' }),

@@ -59,7 +59,7 @@ describe('issuing a revision', () => {
     await setSheetInputs(sheetId, { ...DEMO_PS2, section: { ...DEMO_PS2.section, h: -5 } })
     const res = await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, {})
     expect(res.status).toBe(422)
-    expect(res.body.message).toContain('section.h')
+    expect(res.body.message).toContain('Overall depth')
     expect(res.body.data.fields).toHaveProperty(['inputs.section.h'])
     expect(await countRows('revisions', 'sheet_id = ?', [sheetId])).toBe(0)
     expect(await countRows('outbox', 'subject LIKE ?', [`%job ${jobNumber} %`])).toBe(0)
@@ -78,7 +78,7 @@ describe('history only grows', () => {
     await expect(withRoot(c => c.query('DELETE FROM revisions WHERE id = ?', [body.id]))).rejects.toThrow('append-only')
     await expect(withRoot(c => c.query('DELETE FROM audit_events ORDER BY id DESC LIMIT 1'))).rejects.toThrow('append-only')
     // a revision with a gap in the numbering, or a wrong link, is refused by the chain trigger
-    await expect(withRoot(c => c.query('INSERT INTO revisions SELECT NULL, sheet_id, seq + 5, \'P99\', note, inputs, results, template_id, template_slug, template_version, template_title, model, template_body, engine_version, report_html, report_sections, author_id, issued_at, REPEAT(\'e\', 64), content_hash FROM revisions WHERE id = ?', [body.id]))).rejects.toThrow('without a gap')
+    await expect(withRoot(c => c.query('INSERT INTO revisions SELECT NULL, sheet_id, seq + 5, \'P99\', note, inputs, results, template_id, template_slug, template_version, template_title, model, template_body, engine_version, report_html, report_sections, author_id, issued_at, REPEAT(\'e\', 64), content_hash, failing_checks_reason, replies FROM revisions WHERE id = ?', [body.id]))).rejects.toThrow('without a gap')
     // foreign keys to history are ON DELETE RESTRICT
     await expect(withRoot(c => c.query('DELETE FROM sheets WHERE id = ?', [sheetId]))).rejects.toThrow(/foreign key/i)
   })

@@ -1,10 +1,11 @@
 import { issueBody, revisionIdParams } from '../../../utils/records-schemas'
+import { ISSUE_FIELD_LABELS } from '../../../../shared/schemas/issue'
 
 /** Issue revision: the server recomputes and freezes the sheet's current inputs. */
 export default defineEventHandler(async (event) => {
   const { id } = validParams(event, revisionIdParams)
-  const { note } = await validBody(event, issueBody)
+  const body = await validBody(event, issueBody, ISSUE_FIELD_LABELS)
   const user = await requireRole(event, 'engineer', 'admin')
   setResponseStatus(event, 201)
-  return issueRevision(event, id, note, user)
+  return issueRevision(event, id, body, user)
 })
