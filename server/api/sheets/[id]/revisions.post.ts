@@ -6,5 +6,6 @@ export default defineEventHandler(async (event) => {
   const { note } = await validBody(event, issueBody)
   const user = await requireRole(event, 'engineer', 'admin')
   setResponseStatus(event, 201)
-  return issueRevision(event, id, note, user)
+  // two issues of one sheet at once (on two database nodes) conflict at commit: the loser runs again
+  return withRetry(() => issueRevision(event, id, note, user), 'Someone else issued this sheet a moment ago: reload the sheet and try again')
 })
