@@ -22,6 +22,25 @@ async function certFailures() {
   return sum
 }
 
+describe('the schema under Galera', () => {
+  it('has a primary key on every table and only InnoDB tables, the same on every node', async () => {
+    const query = `SELECT t.table_name AS name, t.engine, (SELECT COUNT(*) FROM information_schema.table_constraints c
+      WHERE c.table_schema = t.table_schema AND c.table_name = t.table_name AND c.constraint_type = 'PRIMARY KEY') AS pk
+      FROM information_schema.tables t WHERE t.table_schema = DATABASE() ORDER BY t.table_name`
+    const perNode = await Promise.all(theCluster.nodes.map(n => onNode(n, async conn => (await conn.query(query))[0] as Array<{ name: string, engine: string, pk: number }>)))
+    const tables = perNode[0]!
+    expect(tables.length).toBeGreaterThan(10)
+    expect(tables.filter(t => Number(t.pk) !== 1 || t.engine !== 'InnoDB')).toEqual([])
+    expect(perNode[1]).toEqual(tables)
+    expect(perNode[2]).toEqual(tables)
+    const triggers = await Promise.all(theCluster.nodes.map(n => onNode(n, async conn => ((await conn.query('SELECT trigger_name AS name FROM information_schema.triggers WHERE trigger_schema = DATABASE() ORDER BY trigger_name'))[0] as Array<{ name: string }>).map(t => t.name))))
+    expect(triggers[0]!.length).toBeGreaterThan(10)
+    expect(triggers[1]).toEqual(triggers[0])
+    expect(triggers[2]).toEqual(triggers[0])
+    record({ 'schema on each node': `${tables.length} tables (all InnoDB with a primary key), ${triggers[0]!.length} triggers` })
+  })
+})
+
 describe('sessions', () => {
   it('a user signed in on A is served on B with the same cookie, and signed out there too when the account is disabled', async () => {
     const engineer = await signIn('engineer', A)
