@@ -4,8 +4,8 @@
 // when needed, two app instances — A on node 1, B on node 2, each with the other nodes as
 // fallbacks — then tests/cluster/*.test.ts with vitest.cluster.config.ts. Prints a closing table and
 // tears everything down, also on failure or Ctrl+C.
-import { spawn, spawnSync } from 'node:child_process'
-import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs'
+import { spawn } from 'node:child_process'
+import { createWriteStream, existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs'
 import { dirname, join, resolve } from 'node:path'
 import { fileURLToPath } from 'node:url'
 import { buildIfNeeded } from './build.mjs'
@@ -18,7 +18,7 @@ import { seed } from './seed.mjs'
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '..')
 const extra = process.argv.slice(2)
 
-const running = { apps: [], s3: null, mail: null, cluster: null }
+const running = { apps: [], s3: null, mail: null, cluster: null, tests: null }
 
 function log(message) {
   process.stdout.write(`[test:cluster] ${message}\n`)
@@ -38,7 +38,7 @@ async function waitForHealth(url, app, seconds) {
 }
 
 /** One app instance on its port, its database hosts listed node first, then the other nodes. */
-function startInstance(name, port, nodes, env) {
+function startInstance(name, port, nodes, env, logDir) {
   const hosts = nodes.map(n => `127.0.0.1:${n.port}`).join(',')
   const app = { name, port, hosts, output: '' }
   app.child = spawn(process.execPath, [join(root, '.output', 'server', 'index.mjs')], {
@@ -46,7 +46,9 @@ function startInstance(name, port, nodes, env) {
     env: { ...env, PORT: String(port), HOST: '127.0.0.1', NUXT_DATABASE_HOSTS: hosts, NUXT_DATABASE_HOST: '127.0.0.1', NUXT_DATABASE_PORT: String(nodes[0].port) },
     stdio: ['ignore', 'pipe', 'pipe'],
   })
+  const file = createWriteStream(join(logDir, `instance-${name}.log`))
   const keep = (chunk) => {
+    file.write(chunk)
     app.output = (app.output + chunk.toString()).slice(-20_000)
   }
   app.child.stdout.on('data', keep)
@@ -56,6 +58,7 @@ function startInstance(name, port, nodes, env) {
 }
 
 async function teardown() {
+  if (running.tests && running.tests.exitCode === null) running.tests.kill('SIGTERM')
   for (const app of running.apps) {
     if (app.child.exitCode === null) app.child.kill('SIGTERM')
   }
@@ -98,13 +101,14 @@ async function main() {
   buildIfNeeded()
   const env = { ...process.env, ...serverEnv(c.db), ...running.s3.env, ...running.mail.env, NUXT_PUBLIC_DEV_MAILBOX: 'true', NODE_ENV: 'production' }
   const [n1, n2, n3] = c.nodes
-  const a = startInstance('A', s.appPorts[0], [n1, n2, n3], env)
-  const b = startInstance('B', s.appPorts[1], [n2, n3, n1], env)
+  const a = startInstance('A', s.appPorts[0], [n1, n2, n3], env, s.base)
+  const b = startInstance('B', s.appPorts[1], [n2, n3, n1], env, s.base)
   await Promise.all([waitForHealth(`http://127.0.0.1:${a.port}`, a, 90), waitForHealth(`http://127.0.0.1:${b.port}`, b, 90)])
   log(`instance A on 127.0.0.1:${a.port} (database ${a.hosts}), instance B on 127.0.0.1:${b.port} (database ${b.hosts}), S3 on ${running.s3.endpoint}, SMTP peer on 127.0.0.1:${s.mailPort}`)
 
   const reportFile = join(s.base, 'figures.json')
-  const result = spawnSync(process.execPath, [join(root, 'node_modules', 'vitest', 'vitest.mjs'), 'run', '--config', 'vitest.cluster.config.ts', ...extra], {
+  // spawn, not spawnSync: the S3 server and the SMTP peer live in this process and must keep answering
+  const tests = spawn(process.execPath, [join(root, 'node_modules', 'vitest', 'vitest.mjs'), 'run', '--config', 'vitest.cluster.config.ts', ...extra], {
     cwd: root,
     stdio: 'inherit',
     env: {
@@ -117,10 +121,13 @@ async function main() {
       NODE_ENV: 'test',
     },
   })
+  running.tests = tests
+  const status = await new Promise(resolve => tests.on('exit', (code, signal) => resolve(code ?? (signal ? 1 : 0))))
+  running.tests = null
   const failedApps = running.apps.filter(app => app.child.exitCode !== null)
   for (const app of failedApps) log(`instance ${app.name} exited early:\n${app.output.slice(-3000)}`)
   printTable(reportFile)
-  return result.status ?? 1
+  return status
 }
 
 let finishing = false

@@ -64,8 +64,6 @@ export async function deliverOutbox(limit = 20) {
   for (const message of due) {
     try {
       await sendMail({ to: message.toAddresses.split(','), subject: message.subject, text: message.bodyText })
-      await db.update(o).set({ state: 'sent', sentAt: new Date(), attempts: sql`${o.attempts} + 1`, lastError: '' }).where(eq(o.id, message.id))
-      sent += 1
     }
     catch (error) {
       const attempts = message.attempts + 1
@@ -77,9 +75,32 @@ export async function deliverOutbox(limit = 20) {
         lastError: reason.slice(0, 500),
       }).where(eq(o.id, message.id))
       failed += 1
+      continue
     }
+    await markSent(message)
+    sent += 1
   }
   return { due: due.length, sent, failed }
+}
+
+/**
+ * Records that a message went out. A message left unmarked would be sent again once its claim runs
+ * out, so when the database connection breaks (a node going away) the mark is made again, a few
+ * times, through the next database host; it sets absolute values, so making it twice is harmless.
+ */
+async function markSent(message: { id: number, attempts: number }) {
+  const o = tables.outbox
+  for (let attempt = 1; ; attempt++) {
+    try {
+      await useDb().update(o).set({ state: 'sent', sentAt: new Date(), attempts: message.attempts + 1, lastError: '' })
+        .where(and(eq(o.id, message.id), eq(o.state, 'pending')))
+      return
+    }
+    catch (error) {
+      if (attempt >= 5 || !isConnectionLost(error)) throw error
+      await new Promise(r => setTimeout(r, 400 * attempt))
+    }
+  }
 }
 
 export async function outboxSummary() {

@@ -9,7 +9,7 @@ import mysql from 'mysql2/promise'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { inject } from 'vitest'
 import * as schema from '../../server/database/schema'
-import { isWriteConflict } from '../../server/utils/db'
+import { isConnectionLost, isWriteConflict } from '../../server/utils/db'
 import { unique } from '../helpers/client'
 import { withDb } from '../helpers/db'
 
@@ -20,6 +20,7 @@ const current = new AsyncLocalStorage<Runner>()
 Object.assign(globalThis, {
   tables: schema,
   isWriteConflict,
+  isConnectionLost,
   useDb: () => current.getStore()!.db,
   sendMail: async (message: { subject: string }) => {
     const runner = current.getStore()!
