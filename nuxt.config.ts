@@ -37,6 +37,8 @@ export default defineNuxtConfig({
       user: 'tendonbook',
       password: '',
       name: 'tendonbook',
+      // "host:port,host:port…" (NUXT_DATABASE_HOSTS): several servers, e.g. Galera nodes, preferred first
+      hosts: '',
     },
     mail: {
       host: '127.0.0.1',

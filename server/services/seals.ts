@@ -1,7 +1,7 @@
 import type { H3Event } from 'h3'
 import { eq } from 'drizzle-orm'
 import { sha256Hex, verificationRef } from '../utils/hashing'
-import { makeReproducible, PdfRenderError, printOrigin, renderPdf } from '../utils/pdf'
+import { makeReproducible, PdfBusyError, PdfRenderError, printOrigin, renderPdf } from '../utils/pdf'
 import { footerTemplate, headerTemplate, isoDay, type TitleBlock } from '../utils/print-templates'
 
 type SessionUser = { id: number, name: string, email: string, role: import('../../shared/types/roles').Role }
@@ -84,18 +84,35 @@ async function renderRevisionPdf(event: H3Event, detail: Detail): Promise<Render
     return { ...fixed, html }
   }
   catch (error) {
+    if (error instanceof PdfBusyError) {
+      setResponseHeader(event, 'Retry-After', String(error.retryAfterSeconds))
+      throw createError({ statusCode: 503, message: `The PDF could not be rendered now: ${error.message}` })
+    }
     const reason = error instanceof PdfRenderError ? error.message : error instanceof Error ? error.message : String(error)
     throw createError({ statusCode: 502, message: `The PDF could not be rendered: ${reason}` })
   }
 }
 
 /**
+ * The answer to sealing a revision that already has its seal (sealed earlier, or a moment ago by
+ * another server): that seal, with 200 instead of 201 and a message that says so.
+ */
+function existingSeal(event: H3Event, detail: Detail & { seal: NonNullable<Detail['seal']> }) {
+  setResponseStatus(event, 200)
+  const when = new Date(detail.seal.sealedAt).toISOString().slice(0, 16).replace('T', ' ')
+  return { ...detail, alreadySealed: true, message: `${detail.seal.archiveRef} was already sealed by ${detail.seal.sealedByName} at ${when} UTC: this is that seal` }
+}
+
+/**
  * Seals an approved revision: renders it, stores the PDF under a generated key, and records its
- * SHA-256 and archive reference in a seal row with its audit event.
- * @throws 409 when the revision is not approved or already sealed.
+ * SHA-256 and archive reference in a seal row with its audit event. Idempotent per revision: a
+ * revision that already has its seal gets that seal back (see `existingSeal`), also when another
+ * server sealed it while this one was rendering.
+ * @throws 409 when the revision is not approved.
  */
 export async function sealRevision(event: H3Event, revisionId: number, user: SessionUser) {
   const detail = await getRevisionDetail(revisionId, user)
+  if (detail.seal) return existingSeal(event, { ...detail, seal: detail.seal })
   if (detail.status.status !== 'approved') {
     throw createError({ statusCode: 409, message: `${detail.sheet.reference} ${detail.code} is ${detail.status.label.toLowerCase()}: only an approved, unsealed revision can be sealed` })
   }
@@ -105,21 +122,27 @@ export async function sealRevision(event: H3Event, revisionId: number, user: Ses
   await writeStored(storageKey, bytes)
   await writeStored(printPageKey(storageKey), new TextEncoder().encode(html))
   try {
-    await useDb().transaction(async (tx) => {
+    await withRetry(() => useDb().transaction(async (tx) => {
       await tx.insert(tables.seals).values({
         revisionId, archiveRef, verificationRef: verificationRef(detail.contentHash), storageKey, pdfSha256,
         pdfBytes: bytes.length, pages, sealedBy: user.id, sealedAt: new Date(),
       })
       await recordAudit(event, { action: 'revision.sealed', subject: archiveRef, actorId: user.id, detail: { revisionId, pdfSha256, pages } }, tx)
-    })
+    }), `${archiveRef} could not be sealed because the records changed a moment ago: try again`)
   }
   catch (error) {
-    if ((error as { code?: string }).code === 'ER_DUP_ENTRY' || (error as { cause?: { code?: string } }).cause?.code === 'ER_DUP_ENTRY') {
-      throw createError({ statusCode: 409, message: `${archiveRef} was sealed by someone else a moment ago` })
+    // the unique key on seals.revision_id (one server), or a certification conflict (Galera nodes)
+    const duplicate = (error as { code?: string }).code === 'ER_DUP_ENTRY' || (error as { cause?: { code?: string } }).cause?.code === 'ER_DUP_ENTRY'
+    if (duplicate || isWriteConflict(error)) {
+      const now = await getRevisionDetail(revisionId, user)
+      if (now.seal) {
+        for (const key of [storageKey, printPageKey(storageKey)]) await useStorage('records').removeItem(key).catch(() => {})
+        return existingSeal(event, { ...now, seal: now.seal })
+      }
     }
     throw error
   }
-  return getRevisionDetail(revisionId, user)
+  return { ...(await getRevisionDetail(revisionId, user)), alreadySealed: false }
 }
 
 /**

@@ -1,5 +1,6 @@
 // PDF rendering with puppeteer-core and the system Chromium: one browser for the process (relaunched
 // when it goes away), a fresh page per job, only our own origin reachable, a deadline per job.
+import { availableParallelism } from 'node:os'
 import puppeteer, { type Browser } from 'puppeteer-core'
 import { PDFArray, PDFDict, PDFDocument, PDFHexString, PDFName, PDFRef, PDFString, type PDFObject } from 'pdf-lib'
 
@@ -54,8 +55,58 @@ export function printOrigin() {
   return process.env.TENDONBOOK_PRINT_ORIGIN || `http://127.0.0.1:${process.env.PORT || process.env.NITRO_PORT || 3000}`
 }
 
-/** @throws PdfRenderError saying why (page status, deadline, browser failure). */
-export async function renderPdf(job: PdfJob): Promise<Uint8Array> {
+/** This server cannot take another render now; `retryAfterSeconds` is a fair wait before trying again. */
+export class PdfBusyError extends PdfRenderError {
+  constructor(readonly retryAfterSeconds: number) {
+    super(`the PDF renderer of this server is busy with other documents: try again in ${retryAfterSeconds} s`)
+    this.name = 'PdfBusyError'
+  }
+}
+
+/**
+ * At most `slots` jobs at once and `queue` more waiting in arrival order; beyond that a job is
+ * refused at once (PdfBusyError) rather than left waiting behind work it cannot see the end of.
+ */
+export class RenderGate {
+  private running = 0
+  private waiting: Array<() => void> = []
+  constructor(readonly slots: number, readonly queue: number, readonly retryAfterSeconds = 10) {}
+
+  async run<T>(job: () => Promise<T>): Promise<T> {
+    if (this.running >= this.slots) {
+      if (this.waiting.length >= this.queue) throw new PdfBusyError(this.retryAfterSeconds)
+      await new Promise<void>(resolve => this.waiting.push(resolve))
+    }
+    else {
+      this.running += 1
+    }
+    try {
+      return await job()
+    }
+    finally {
+      // hand the slot straight to the next in line, or give it back
+      const next = this.waiting.shift()
+      if (next) next()
+      else this.running -= 1
+    }
+  }
+
+  get load() {
+    return { running: this.running, waiting: this.waiting.length }
+  }
+}
+
+const positive = (raw: string | undefined, fallback: number) => (Number.isInteger(Number(raw)) && Number(raw) > 0 ? Number(raw) : fallback)
+
+/** Per server: as many renders as cores (TENDONBOOK_PDF_RENDERS), a few more queued (TENDONBOOK_PDF_QUEUE). */
+const gate = new RenderGate(positive(process.env.TENDONBOOK_PDF_RENDERS, availableParallelism()), positive(process.env.TENDONBOOK_PDF_QUEUE, 4))
+
+/** @throws PdfBusyError when this server's renders and queue are full; PdfRenderError saying why (page status, deadline, browser failure). */
+export function renderPdf(job: PdfJob): Promise<Uint8Array> {
+  return gate.run(() => renderNow(job))
+}
+
+async function renderNow(job: PdfJob): Promise<Uint8Array> {
   const timeoutMs = job.timeoutMs ?? 30_000
   const b = await useBrowser().catch((error: unknown) => {
     throw new PdfRenderError(`Chromium could not start: ${error instanceof Error ? error.message : String(error)}`)

@@ -79,11 +79,19 @@ describe('sealing an approved revision', () => {
     expect(Math.abs(size.height - 841.89)).toBeLessThan(1)
   })
 
-  it('re-renders the sealed revision to the very same bytes, and refuses a second seal', async () => {
+  it('re-renders the sealed revision to the very same bytes, and answers a second seal with the first', async () => {
     const check = await records.json('POST', `/api/revisions/${approved.id}/reseal-check`)
     expect(check.status).toBe(200)
     expect(check.body).toMatchObject({ identical: true, sealedSha256: sha256Hex(sealedBytes) })
-    expect((await records.json('POST', `/api/revisions/${approved.id}/seal`)).status).toBe(409)
+    const [before] = await withDb(conn => conn.query('SELECT COUNT(*) AS n FROM seals WHERE revision_id = ?', [approved.id]))
+    const again = await records.json('POST', `/api/revisions/${approved.id}/seal`)
+    expect(again.status).toBe(200)
+    expect(again.body.alreadySealed).toBe(true)
+    expect(again.body.seal.pdfSha256).toBe(sha256Hex(sealedBytes))
+    expect(again.body.message).toContain(`${sheet.jobNumber}-PS-2-C01 was already sealed by`)
+    const [after] = await withDb(conn => conn.query('SELECT COUNT(*) AS n FROM seals WHERE revision_id = ?', [approved.id]))
+    expect(after).toEqual(before)
+    expect((after as Array<{ n: number }>)[0]!.n).toBe(1)
   })
 
   it('keeps the render and its print page when a re-render differs, and says that the printed data changed', async () => {

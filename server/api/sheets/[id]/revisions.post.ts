@@ -7,5 +7,6 @@ export default defineEventHandler(async (event) => {
   const body = await validBody(event, issueBody, ISSUE_FIELD_LABELS)
   const user = await requireRole(event, 'engineer', 'admin')
   setResponseStatus(event, 201)
-  return issueRevision(event, id, body, user)
+  // two issues of one sheet at once (on two database nodes) conflict at commit: the loser runs again
+  return withRetry(() => issueRevision(event, id, body, user), 'Someone else issued this sheet a moment ago: reload the sheet and try again')
 })
