@@ -16,7 +16,7 @@ export async function reviewRevision(event: H3Event, revisionId: number, body: R
   if (body.decision !== 'comment' && user.role !== 'checker' && user.role !== 'admin') {
     throw createError({ statusCode: 403, message: `Returning or approving a revision needs the checker role; you are signed in as ${user.role}` })
   }
-  await useDb().transaction(async (tx) => {
+  await historyTransaction(async (tx) => {
     const [rev] = await tx.select({ id: tables.revisions.id, sheetId: tables.revisions.sheetId, code: tables.revisions.code, authorId: tables.revisions.authorId, sections: tables.revisions.reportSections })
       .from(tables.revisions).where(eq(tables.revisions.id, revisionId))
     if (!rev) throw createError({ statusCode: 404, message: `No revision with id ${revisionId}` })
@@ -43,6 +43,7 @@ export async function reviewRevision(event: H3Event, revisionId: number, body: R
     const fields = { revisionId: rev.id, sheetId: rev.sheetId, decision: body.decision, contractCode, comments: plainJson(body.comments), reviewerId: user.id, createdAt: new Date() }
     const contentHash = reviewHash(fields)
     const [{ id }] = await tx.insert(tables.reviews).values({ ...fields, contentHash }).$returningId()
+    await logWrittenRow(tx, 'review', id, { hash: contentHash, of: reviewHash })
     const subject = `${project!.jobNumber}/${sheet!.reference} ${rev.code}`
     const action = body.decision === 'approve' ? 'revision.approved' : body.decision === 'return' ? 'revision.returned' : 'revision.commented'
     await recordAudit(event, { action, subject, actorId: user.id, detail: { revisionId: rev.id, reviewId: id, contractCode, comments: body.comments.length } }, tx)

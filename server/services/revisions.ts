@@ -50,7 +50,7 @@ function mailLink(event: H3Event, path: string) {
  * @throws 404 unknown sheet, 422 naming the input at fault.
  */
 export async function issueRevision(event: H3Event, sheetId: number, note: string, user: SessionUser) {
-  const created = await useDb().transaction(async (tx) => {
+  const created = await historyTransaction(async (tx) => {
     const [sheet] = await tx.select().from(tables.sheets).where(eq(tables.sheets.id, sheetId)).for('update')
     if (!sheet) throw createError({ statusCode: 404, message: `No calc sheet with id ${sheetId}` })
     const [template] = await tx.select().from(tables.templates).where(eq(tables.templates.id, sheet.templateId))
@@ -79,6 +79,7 @@ export async function issueRevision(event: H3Event, sheetId: number, note: strin
     }
     const contentHash = revisionHash(fields)
     const [{ id }] = await tx.insert(r).values({ ...fields, contentHash }).$returningId()
+    await logWrittenRow(tx, 'revision', id, { hash: contentHash, of: revisionHash })
     await recordAudit(event, { action: 'revision.issued', subject: `${project.jobNumber}/${sheet.reference} ${fields.code}`, actorId: user.id, detail: { revisionId: id, contentHash } }, tx)
     await enqueueMail(tx, {
       kind: 'revision.issued',
@@ -121,7 +122,7 @@ export async function getRevisionDetail(id: number, user: SessionUser) {
   const reviews = await db.select({ id: tables.reviews.id, decision: tables.reviews.decision, contractCode: tables.reviews.contractCode, comments: tables.reviews.comments, reviewerId: tables.reviews.reviewerId, reviewerName: reviewer.name, createdAt: tables.reviews.createdAt })
     .from(tables.reviews).innerJoin(reviewer, eq(reviewer.id, tables.reviews.reviewerId)).where(eq(tables.reviews.revisionId, id)).orderBy(asc(tables.reviews.id))
   const sealer = alias(tables.users, 'sealer')
-  const [seal] = await db.select({ id: tables.seals.id, archiveRef: tables.seals.archiveRef, verificationRef: tables.seals.verificationRef, pdfSha256: tables.seals.pdfSha256, pdfBytes: tables.seals.pdfBytes, pages: tables.seals.pages, sealedAt: tables.seals.sealedAt, sealedByName: sealer.name })
+  const [seal] = await db.select({ id: tables.seals.id, archiveRef: tables.seals.archiveRef, verificationRef: tables.seals.verificationRef, pdfSha256: tables.seals.pdfSha256, pdfBytes: tables.seals.pdfBytes, pages: tables.seals.pages, sealedAt: tables.seals.sealedAt, sealedByName: sealer.name, logLeafIndex: tables.seals.logLeafIndex, headTreeSize: tables.seals.headTreeSize, headRootHash: tables.seals.headRootHash })
     .from(tables.seals).innerJoin(sealer, eq(sealer.id, tables.seals.sealedBy)).where(eq(tables.seals.revisionId, id))
   const siblings = await db.select({ id: r.id, seq: r.seq, code: r.code }).from(r).where(eq(r.sheetId, rev.sheetId)).orderBy(asc(r.seq))
   const results = rev.results as { checks?: unknown[] }

@@ -162,3 +162,28 @@ export async function pdfText(bytes: Uint8Array) {
   }
   return { pages, numPages: doc.numPages }
 }
+
+/**
+ * Runs `fn` as root with the named triggers dropped, then puts them back from the migrations
+ * whatever happens: how the tests rewrite history behind the application's back.
+ */
+export async function withoutTriggers<T>(names: string[], fn: (conn: mysql.Connection) => Promise<T>): Promise<T> {
+  const restore = names.map(triggerSql)
+  return withRoot(async (conn) => {
+    try {
+      for (const name of names) await conn.query(`DROP TRIGGER IF EXISTS \`${name}\``)
+      return await fn(conn)
+    }
+    finally {
+      for (const name of names) await conn.query(`DROP TRIGGER IF EXISTS \`${name}\``)
+      for (const sql of restore) await conn.query(sql)
+    }
+  })
+}
+
+/** Every break the chain verification lists, as records. */
+export async function chainBreaks(records: Session) {
+  const res = await records.json('POST', '/api/chain/verify')
+  if (res.status !== 200) throw new Error(`chain verification failed: ${res.status} ${JSON.stringify(res.body)}`)
+  return res.body as { ok: boolean, breaks: Array<{ chain: string, id: number, label: string, problem: string, reason: string }> }
+}
