@@ -77,6 +77,22 @@ export const signinAttempts = mysqlTable('signin_attempts', {
   createdAt: createdAt(),
 }, t => [index('signin_attempts_email_idx').on(t.email, t.createdAt), index('signin_attempts_address_idx').on(t.address, t.createdAt)])
 
+/**
+ * The first result of a state-changing request sent with an `Idempotency-Key` header, per user:
+ * a retry with the same key gets this result back instead of acting twice. `status_code` is null
+ * while the first request is still running.
+ */
+export const idempotencyKeys = mysqlTable('idempotency_keys', {
+  id: int('id').autoincrement().primaryKey(),
+  userId: int('user_id').notNull().references(() => users.id, { onDelete: 'restrict' }),
+  idempotencyKey: varchar('idempotency_key', { length: 100 }).notNull(),
+  route: varchar('route', { length: 200 }).notNull(),
+  requestHash: varchar('request_hash', { length: 64 }).notNull(),
+  statusCode: int('status_code'),
+  response: json('response'),
+  createdAt: createdAt(),
+}, t => [uniqueIndex('idempotency_keys_user_key_unique').on(t.userId, t.idempotencyKey)])
+
 export type User = typeof users.$inferSelect
 export type Project = typeof projects.$inferSelect
 export type Template = typeof templates.$inferSelect

@@ -4,6 +4,7 @@ import { alias } from 'drizzle-orm/mysql-core'
 import { EngineInputError } from '../../shared/engine/contract'
 import type { Db } from '../utils/db'
 import type { Tx } from '../utils/audit'
+import type { IssueBody } from '../utils/records-schemas'
 import { plainJson, revisionHash } from '../utils/hashing'
 import { deriveStatus, revisionCode, type DerivedStatus } from '../utils/revision-status'
 import { diffRevisions } from '../utils/revision-diff'
@@ -43,16 +44,24 @@ function mailLink(event: H3Event, path: string) {
 }
 
 /**
- * Freezes the sheet's current inputs as its next revision: the server runs the engine itself,
+ * Freezes the draft the engineer is looking at as the sheet's next revision: the server runs the engine itself,
  * renders the report from the sheet's own template version, and writes the row, its audit event and
  * the notice to the checkers in one transaction. The sheet row is locked first, so concurrent issues
  * of one sheet queue up and get consecutive codes (the unique index and the chain trigger back that up).
- * @throws 404 unknown sheet, 422 naming the input at fault.
+ * @throws 404 unknown sheet, 409 when a newer draft was saved than `draftVersion`, 422 naming the input at fault.
  */
-export async function issueRevision(event: H3Event, sheetId: number, note: string, user: SessionUser) {
+export async function issueRevision(event: H3Event, sheetId: number, { note, draftVersion }: IssueBody, user: SessionUser) {
   const created = await historyTransaction(async (tx) => {
     const [sheet] = await tx.select().from(tables.sheets).where(eq(tables.sheets.id, sheetId)).for('update')
     if (!sheet) throw createError({ statusCode: 404, message: `No calc sheet with id ${sheetId}` })
+    if (sheet.draftVersion !== draftVersion) {
+      const [editor] = await tx.select({ name: tables.users.name }).from(tables.users).where(eq(tables.users.id, sheet.updatedBy))
+      throw createError({
+        statusCode: 409,
+        message: `${editor?.name ?? 'Someone'} saved a newer draft of ${sheet.reference} (version ${sheet.draftVersion}; you are looking at version ${draftVersion}) at ${sheet.updatedAt.toISOString().slice(0, 16).replace('T', ' ')} UTC. Reload the sheet and check it before issuing.`,
+        data: { draftVersion: sheet.draftVersion },
+      })
+    }
     const [template] = await tx.select().from(tables.templates).where(eq(tables.templates.id, sheet.templateId))
     const [project] = await tx.select().from(tables.projects).where(eq(tables.projects.id, sheet.projectId))
     if (!template || !project) throw createError({ statusCode: 500, message: 'The sheet refers to a missing template or project' })

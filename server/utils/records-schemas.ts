@@ -7,7 +7,11 @@ export const revisionIdParams = z.object({
 
 export const issueBody = z.object({
   note: textField('Note').trim().max(500, 'The note is at most 500 characters').default(''),
+  // the draft the engineer is looking at: a newer one saved meanwhile must not be frozen unseen
+  draftVersion: z.number({ message: 'Reload the sheet: the issue must name the draft version on your screen' }).int().positive('Reload the sheet: the issue must name the draft version on your screen'),
 })
+
+export type IssueBody = z.infer<typeof issueBody>
 
 export const reviewBody = z.object({
   decision: z.enum(['comment', 'return', 'approve'], { message: 'decision is one of comment, return, approve' }),

@@ -23,8 +23,8 @@ export class Session {
     return res
   }
 
-  async json<T = any>(method: string, path: string, body?: unknown): Promise<{ status: number, body: T }> {
-    const res = await this.fetch(path, { method, headers: body === undefined ? {} : { 'content-type': 'application/json' }, body: body === undefined ? undefined : JSON.stringify(body) })
+  async json<T = any>(method: string, path: string, body?: unknown, headers: Record<string, string> = {}): Promise<{ status: number, body: T }> {
+    const res = await this.fetch(path, { method, headers: { ...(body === undefined ? {} : { 'content-type': 'application/json' }), ...headers }, body: body === undefined ? undefined : JSON.stringify(body) })
     const text = await res.text()
     let parsed: unknown = text
     try {
@@ -100,8 +100,21 @@ export async function makeSheet(inputs: unknown = DEMO_PS2) {
   })
 }
 
+/** A save of the draft, as the editor's would be: new inputs, the next draft version. */
 export async function setSheetInputs(sheetId: number, inputs: unknown) {
-  await withDb(conn => conn.query('UPDATE sheets SET inputs = ? WHERE id = ?', [JSON.stringify(inputs), sheetId]))
+  await withDb(conn => conn.query('UPDATE sheets SET inputs = ?, draft_version = draft_version + 1 WHERE id = ?', [JSON.stringify(inputs), sheetId]))
+}
+
+export async function draftVersionOf(sheetId: number) {
+  return withDb(async (conn) => {
+    const [rows] = await conn.query('SELECT draft_version AS v FROM sheets WHERE id = ?', [sheetId])
+    return (rows as Array<{ v: number }>)[0]?.v ?? 1
+  })
+}
+
+/** Issues the sheet's draft as the editor does: naming the draft version on screen, the latest. */
+export async function issue(s: Session, sheetId: number, body: Record<string, unknown> = {}) {
+  return s.json('POST', `/api/sheets/${sheetId}/revisions`, { draftVersion: await draftVersionOf(sheetId), ...body })
 }
 
 /** Root over the test instance's socket: the one connection that may drop a trigger. */

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest'
+import { DEMO_PS2 } from '../../shared/engine/demo'
 import { verifyTreeHead } from '../../shared/log/tree-head'
 import { countRows, withDb } from '../helpers/db'
-import { chainBreaks, makeSheet, session, userId, withoutTriggers } from './records-fixtures'
+import { chainBreaks, issue, makeSheet, session, userId, withoutTriggers } from './records-fixtures'
 
 const LONE = '\ud800'
 
@@ -18,12 +19,12 @@ describe('text that cannot be stored as it was hashed', () => {
     const engineer = await session('engineer')
     const checker = await session('checker')
     const records = await session('records')
-    const bad = await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, { note: `half an emoji ${LONE}` })
+    const bad = await issue(engineer, sheetId, { note: `half an emoji ${LONE}` })
     expect(bad.status).toBe(400)
     expect(bad.body.data.fields.note).toBe('Note: contains a broken character')
     expect(await countRows('revisions', 'sheet_id = ?', [sheetId])).toBe(0)
 
-    const rev = (await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, { note: 'whole emoji \ud83d\ude00 kept' })).body
+    const rev = (await issue(engineer, sheetId, { note: 'whole emoji \ud83d\ude00 kept' })).body
     expect(rev.note).toBe('whole emoji \ud83d\ude00 kept')
     const comment = await checker.json('POST', `/api/revisions/${rev.id}/reviews`, { decision: 'return', comments: [{ anchor: '', text: `see ${LONE}` }] })
     expect(comment.status).toBe(400)
@@ -48,11 +49,11 @@ describe('verification of every record', () => {
     const b = await makeSheet()
     const engineer = await session('engineer')
     const records = await session('records')
-    const issue = async (sheetId: number, note: string) => (await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, { note })).body as { id: number, code: string }
-    const a1 = await issue(a.sheetId, 'a one')
-    const a2 = await issue(a.sheetId, 'a two')
-    const a3 = await issue(a.sheetId, 'a three')
-    const b1 = await issue(b.sheetId, 'b one')
+    const issueNote = async (sheetId: number, note: string) => (await issue(engineer, sheetId, { note })).body as { id: number, code: string }
+    const a1 = await issueNote(a.sheetId, 'a one')
+    const a2 = await issueNote(a.sheetId, 'a two')
+    const a3 = await issueNote(a.sheetId, 'a three')
+    const b1 = await issueNote(b.sheetId, 'b one')
     expect((await chainBreaks(records)).ok).toBe(true)
 
     await withoutTriggers(['revisions_no_update', 'revisions_no_delete', 'revisions_chain_check'], async (root) => {
@@ -91,7 +92,7 @@ describe('the history log', () => {
     const engineer = await session('engineer')
     const checker = await session('checker')
     const records = await session('records')
-    const rev = (await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, { note: 'logged' })).body
+    const rev = (await issue(engineer, sheetId, { note: 'logged' })).body
     const approved = await checker.json('POST', `/api/revisions/${rev.id}/reviews`, { decision: 'approve' })
     expect(approved.status).toBe(201)
     const reviewId = approved.body.reviews[0].id
@@ -124,7 +125,7 @@ describe('the history log', () => {
     const { sheetId } = await makeSheet()
     const engineer = await session('engineer')
     const records = await session('records')
-    const rev = (await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, {})).body
+    const rev = (await issue(engineer, sheetId)).body
     const checkerId = await userId('checker')
     const inserted = await withDb(async (c) => {
       const [res] = await c.query('INSERT INTO reviews (revision_id, sheet_id, decision, contract_code, comments, reviewer_id, created_at, content_hash) VALUES (?, ?, \'return\', NULL, \'[]\', ?, NOW(3), REPEAT(\'0\', 64))', [rev.id, sheetId, checkerId])
@@ -146,8 +147,8 @@ describe('the history log', () => {
     const { sheetId } = await makeSheet()
     const engineer = await session('engineer')
     const records = await session('records')
-    const first = (await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, { note: 'first' })).body
-    const second = (await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, { note: 'second' })).body
+    const first = (await issue(engineer, sheetId, { note: 'first' })).body
+    const second = (await issue(engineer, sheetId, { note: 'second' })).body
     expect((await chainBreaks(records)).ok).toBe(true)
     const [l1, l2] = await leaves('kind = \'revision\' AND row_id IN (?, ?)', [first.id, second.id])
 
@@ -183,5 +184,85 @@ describe('the history log', () => {
       }
     })
     expect((await chainBreaks(records)).breaks).toEqual([])
+  })
+})
+
+describe('issuing the draft on screen', () => {
+  it('refuses to freeze a newer draft saved by someone else, with 409 naming who and which version', async () => {
+    const { sheetId } = await makeSheet()
+    const engineer = await session('engineer')
+    const admin = await session('admin')
+    const missing = await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, { note: 'no version' })
+    expect(missing.status).toBe(400)
+    expect(missing.body.data.fields.draftVersion).toContain('draft version on your screen')
+    // the engineer has version 1 on screen; the admin saves a change meanwhile
+    const saved = await admin.json('PUT', `/api/sheets/${sheetId}/draft`, { inputs: { ...DEMO_PS2, section: { ...DEMO_PS2.section, h: 300 } }, draftVersion: 1 })
+    expect(saved.status).toBe(200)
+    const stale = await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, { note: 'what I checked', draftVersion: 1 })
+    expect(stale.status).toBe(409)
+    expect(stale.body.message).toMatch(/^Sam Keller saved a newer draft of PS-2 \(version 2; you are looking at version 1\).*Reload the sheet/)
+    expect(await countRows('revisions', 'sheet_id = ?', [sheetId])).toBe(0)
+    const fresh = await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, { note: 'after reloading', draftVersion: 2 })
+    expect(fresh.status).toBe(201)
+    expect(fresh.body.code).toBe('P01')
+  })
+})
+
+describe('retries with an Idempotency-Key', () => {
+  let n = 0
+  const newKey = () => `test-action-${Date.now().toString(36)}-${n++}`
+
+  it('answers a retried issue with the first revision, never a second; another body or route with the key is 422', async () => {
+    const { sheetId } = await makeSheet()
+    const engineer = await session('engineer')
+    const url = `/api/sheets/${sheetId}/revisions`
+    const key = newKey()
+    const first = await engineer.json('POST', url, { note: 'once', draftVersion: 1 }, { 'idempotency-key': key })
+    expect(first.status).toBe(201)
+    const retry = await engineer.json('POST', url, { note: 'once', draftVersion: 1 }, { 'idempotency-key': key })
+    expect(retry.status).toBe(201)
+    expect(retry.body).toMatchObject({ id: first.body.id, code: 'P01', contentHash: first.body.contentHash })
+    expect(await countRows('revisions', 'sheet_id = ?', [sheetId])).toBe(1)
+
+    const changed = await engineer.json('POST', url, { note: 'twice', draftVersion: 1 }, { 'idempotency-key': key })
+    expect(changed.status).toBe(422)
+    expect(changed.body.message).toContain('already used for another request')
+    const elsewhere = await engineer.json('POST', `/api/revisions/${first.body.id}/reviews`, { decision: 'comment', comments: [{ text: 'x' }] }, { 'idempotency-key': key })
+    expect(elsewhere.status).toBe(422)
+    expect(await countRows('revisions', 'sheet_id = ?', [sheetId])).toBe(1)
+    expect((await engineer.json('POST', url, { draftVersion: 1 }, { 'idempotency-key': 'short' })).status).toBe(400)
+
+    // the same request sent four times at once: one revision, the others wait or get it back
+    const burst = newKey()
+    const answers = await Promise.all(Array.from({ length: 4 }, () => engineer.json('POST', url, { note: 'burst', draftVersion: 1 }, { 'idempotency-key': burst })))
+    expect(answers.every(a => a.status === 201 || a.status === 409)).toBe(true)
+    expect(new Set(answers.filter(a => a.status === 201).map(a => a.body.id)).size).toBe(1)
+    expect(await countRows('revisions', 'sheet_id = ?', [sheetId])).toBe(2)
+  })
+
+  it('answers a retried approval and a retried seal with the first result', async () => {
+    const { sheetId } = await makeSheet()
+    const engineer = await session('engineer')
+    const checker = await session('checker')
+    const records = await session('records')
+    const rev = (await issue(engineer, sheetId)).body
+    const approveKey = newKey()
+    const approve = () => checker.json('POST', `/api/revisions/${rev.id}/reviews`, { decision: 'approve' }, { 'idempotency-key': approveKey })
+    const approved = await approve()
+    expect(approved.status).toBe(201)
+    const again = await approve()
+    expect(again.status).toBe(201)
+    expect(again.body.status).toEqual(approved.body.status)
+    expect(await countRows('reviews', 'revision_id = ?', [rev.id])).toBe(1)
+    // without the key the same second approval is refused: it would be a second decision
+    expect((await checker.json('POST', `/api/revisions/${rev.id}/reviews`, { decision: 'approve' })).status).toBe(409)
+
+    const sealKey = newKey()
+    const sealed = await records.json('POST', `/api/revisions/${rev.id}/seal`, undefined, { 'idempotency-key': sealKey })
+    expect(sealed.status, JSON.stringify(sealed.body)).toBe(201)
+    const resent = await records.json('POST', `/api/revisions/${rev.id}/seal`, undefined, { 'idempotency-key': sealKey })
+    expect(resent.status).toBe(201)
+    expect(resent.body.seal).toEqual(sealed.body.seal)
+    expect(await countRows('seals', 'revision_id = ?', [rev.id])).toBe(1)
   })
 })

@@ -9,7 +9,7 @@ import { DEMO_PS2 } from '../../shared/engine/demo'
 import { entryLeafHash } from '../../shared/log/entry'
 import { verifyInclusion } from '../../shared/log/merkle'
 import { withDb } from '../helpers/db'
-import { makeSheet, pdfText, session, setSheetInputs, type Session } from './records-fixtures'
+import { issue, makeSheet, pdfText, session, setSheetInputs, type Session } from './records-fixtures'
 
 let engineer: Session
 let checker: Session
@@ -21,7 +21,7 @@ let sealedBytes: Uint8Array
 beforeAll(async () => {
   ;[engineer, checker, records] = await Promise.all([session('engineer'), session('checker'), session('records')])
   sheet = await makeSheet()
-  const rev = (await engineer.json('POST', `/api/sheets/${sheet.sheetId}/revisions`, { note: 'for sealing' })).body
+  const rev = (await issue(engineer, sheet.sheetId, { note: 'for sealing' })).body
   approved = (await checker.json('POST', `/api/revisions/${rev.id}/reviews`, { decision: 'approve' })).body
 })
 
@@ -34,7 +34,7 @@ describe('sealing an approved revision', () => {
   it('refuses sealing to an engineer, and an unapproved revision to records', async () => {
     expect((await engineer.json('POST', `/api/revisions/${approved.id}/seal`)).status).toBe(403)
     const other = await makeSheet()
-    const pending = (await engineer.json('POST', `/api/sheets/${other.sheetId}/revisions`, {})).body
+    const pending = (await issue(engineer, other.sheetId)).body
     const res = await records.json('POST', `/api/revisions/${pending.id}/seal`)
     expect(res.status).toBe(409)
     expect(res.body.message).toContain('only an approved')
@@ -191,7 +191,7 @@ describe('verification', () => {
 
   it('says a sealed document was superseded once a later revision is approved', async () => {
     await setSheetInputs(sheet.sheetId, { ...DEMO_PS2, loads: { ...DEMO_PS2.loads, superimposed: 2.5e-3 } })
-    const next = (await engineer.json('POST', `/api/sheets/${sheet.sheetId}/revisions`, { note: 'heavier finishes' })).body
+    const next = (await issue(engineer, sheet.sheetId, { note: 'heavier finishes' })).body
     const c02 = (await checker.json('POST', `/api/revisions/${next.id}/reviews`, { decision: 'approve' })).body
     expect(c02.status.contractCode).toBe('C02')
     const res = await records.upload('/api/verify', sealedBytes, 'old.pdf', 'application/pdf')
