@@ -57,6 +57,7 @@ export async function archiveRegister(q: ArchiveQuery) {
   return rows
 }
 
+/** The register as CSV; a cell starting with = + - @ (tab, CR) is quoted with ' so no spreadsheet runs it as a formula. */
 export function registerCsv(rows: Awaited<ReturnType<typeof archiveRegister>>) {
   return Papa.unparse(rows.map(x => ({
     'Archive ref.': x.archiveRef,
@@ -74,7 +75,7 @@ export function registerCsv(rows: Awaited<ReturnType<typeof archiveRegister>>) {
     'Pages': x.pages,
     'PDF SHA-256': x.pdfSha256,
     'Content SHA-256': x.contentHash,
-  })), { newline: '\r\n' })
+  })), { newline: '\r\n', escapeFormulae: true })
 }
 
 /** Approved revisions that still wait for their seal (and are not superseded). */

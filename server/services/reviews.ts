@@ -10,7 +10,7 @@ type SessionUser = { id: number, name: string, email: string, role: import('../.
  * Records a checker's decision (return with comments, approve) or a comment on a revision, with its
  * audit event and e-mail notices, in one transaction. The sheet is locked so a decision and a new
  * issue of the same sheet cannot cross.
- * @throws 403 when the author tries to approve, 409 when the revision is no longer open for a decision.
+ * @throws 403 when the author tries to return or approve, 409 when the revision is no longer open for a decision.
  */
 export async function reviewRevision(event: H3Event, revisionId: number, body: ReviewBody, user: SessionUser) {
   if (body.decision !== 'comment' && user.role !== 'checker' && user.role !== 'admin') {
@@ -32,8 +32,8 @@ export async function reviewRevision(event: H3Event, revisionId: number, body: R
     if (body.decision !== 'comment' && status.status !== 'issued') {
       throw createError({ statusCode: 409, message: `${sheet!.reference} ${rev.code} is ${status.label.toLowerCase()}: it is no longer open for a decision` })
     }
-    if (body.decision === 'approve' && rev.authorId === user.id) {
-      throw createError({ statusCode: 403, message: `You authored ${sheet!.reference} ${rev.code}: a revision must be approved by someone other than its author` })
+    if (body.decision !== 'comment' && rev.authorId === user.id) {
+      throw createError({ statusCode: 403, message: `You authored ${sheet!.reference} ${rev.code}: a revision must be ${body.decision === 'approve' ? 'approved' : 'returned'} by someone other than its author` })
     }
     let contractCode: string | null = null
     if (body.decision === 'approve') {

@@ -112,9 +112,16 @@ export async function listSheetRevisions(sheetId: number) {
   return rows.map(row => ({ ...row, status: statuses.get(row.id)! }))
 }
 
+/**
+ * A revision as stored, checked against its content hash before anything shows or prints it.
+ * @throws 404 unknown, 409 when the stored revision no longer matches its hash.
+ */
 async function loadRevision(id: number) {
   const [row] = await useDb().select().from(r).where(eq(r.id, id)).limit(1)
   if (!row) throw createError({ statusCode: 404, message: `No revision with id ${id}` })
+  if (revisionHash(row) !== row.contentHash) {
+    throw createError({ statusCode: 409, message: `Revision ${row.code} no longer matches its content hash: it was changed after issue, so it is not shown or printed. The records office can run the chain verification.` })
+  }
   return row
 }
 
@@ -151,7 +158,7 @@ export async function getRevisionDetail(id: number, user: SessionUser) {
     previous: siblings.filter(s => s.seq < rev.seq).at(-1) ?? null,
     next: siblings.find(s => s.seq > rev.seq) ?? null,
     can: {
-      decide: canDecide,
+      decide: canDecide && user.id !== rev.authorId,
       approve: canDecide && user.id !== rev.authorId,
       comment: user.role !== 'records',
       seal: status.status === 'approved' && (user.role === 'records' || user.role === 'admin'),

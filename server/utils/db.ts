@@ -28,6 +28,12 @@ export function useDb() {
 
 export type Db = ReturnType<typeof useDb>
 
+/** The mysql2 pool under useDb(), for libraries that speak to MariaDB themselves. */
+export function usePool() {
+  useDb()
+  return pool!
+}
+
 export async function closeDb() {
   await pool?.end()
   pool = undefined

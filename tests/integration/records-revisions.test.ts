@@ -100,6 +100,11 @@ describe('history only grows', () => {
       expect(broken.body.ok).toBe(false)
       expect(broken.body.firstBreak).toMatchObject({ chain: 'revisions', id: body.id })
       expect(broken.body.firstBreak.reason).toContain('no longer matches')
+      // nor is the changed revision shown or printed as if it were the one issued
+      const shown = await engineer.json('GET', `/api/revisions/${body.id}`)
+      expect(shown.status).toBe(409)
+      expect(shown.body.message).toContain('no longer matches its content hash')
+      expect((await records.json('GET', `/api/revisions/${body.id}/print`)).status).toBe(409)
     }
     finally {
       await withRoot(async (c) => {
@@ -181,9 +186,14 @@ describe('check and sign-off', () => {
     const admin = await session('admin')
     const rev = (await issue(admin, sheetId)).body
     expect(rev.can.approve).toBe(false)
+    expect(rev.can.decide).toBe(false)
     const refused = await admin.json('POST', `/api/revisions/${rev.id}/reviews`, { decision: 'approve' })
     expect(refused.status).toBe(403)
     expect(refused.body.message).toContain('someone other than its author')
+    // returning one's own revision is a decision on it too
+    const returned = await admin.json('POST', `/api/revisions/${rev.id}/reviews`, { decision: 'return', comments: [{ anchor: '', text: 'my own' }] })
+    expect(returned.status).toBe(403)
+    expect(returned.body.message).toContain('returned by someone other than its author')
     // and the database refuses it too, whatever the application does
     const adminId = await userId('admin')
     await expect(withDb(c => c.query('INSERT INTO reviews (revision_id, sheet_id, decision, contract_code, comments, reviewer_id, created_at, content_hash) VALUES (?, ?, \'approve\', \'C01\', \'[]\', ?, NOW(3), REPEAT(\'f\', 64))', [rev.id, sheetId, adminId]))).rejects.toThrow('may not approve')

@@ -210,6 +210,8 @@ describe('archive register', () => {
     expect((await records.json('GET', `/api/archive?project=${sheet.projectId}&status=superseded`)).body.register).toHaveLength(1)
     expect((await records.json('GET', '/api/archive?from=2001-01-01&to=2001-12-31')).body.register).toEqual([])
     expect((await records.json('GET', '/api/archive?from=yesterday')).status).toBe(400)
+    // a title that a spreadsheet would run as a formula is exported as text
+    await withDb(c => c.query('UPDATE sheets SET title = ? WHERE id = ?', ['=HYPERLINK("http://evil.example","open")', sheet.sheetId]))
     const csv = await records.fetch(`/api/archive/export.csv?project=${sheet.projectId}`)
     expect(csv.headers.get('content-type')).toContain('text/csv')
     const text = await csv.text()
@@ -217,6 +219,7 @@ describe('archive register', () => {
     const parsed = Papa.parse<Record<string, string>>(text.trim(), { header: true })
     expect(parsed.data).toHaveLength(1)
     expect(parsed.data[0]).toMatchObject({ 'Archive ref.': `${sheet.jobNumber}-PS-2-C01`, 'Revision': 'C01', 'Status': 'Superseded', 'PDF SHA-256': sha256Hex(sealedBytes) })
+    expect(parsed.data[0]!.Title).toBe('\'=HYPERLINK("http://evil.example","open")')
     expect((await checker.json('GET', '/api/archive')).status).toBe(403)
   })
 })
