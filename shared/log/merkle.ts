@@ -119,6 +119,21 @@ export class MerkleTree {
   }
 }
 
+/**
+ * One level up a proof (RFC 9162 §2.1.3.2 step 3, §2.1.4.2 step 6): whether the next proof hash
+ * sits to the left of the running hash, and the indexes `fn`, `sn` of the level above.
+ */
+function climb(fn: number, sn: number) {
+  const left = (fn & 1) === 1 || fn === sn
+  if (left) {
+    while ((fn & 1) === 0 && fn !== 0) {
+      fn = Math.floor(fn / 2)
+      sn = Math.floor(sn / 2)
+    }
+  }
+  return { left, fn: Math.floor(fn / 2), sn: Math.floor(sn / 2) }
+}
+
 /** RFC 9162 §2.1.3.2: checks an audit path of leaf `index` in a tree of `size` against `root`. */
 export function verifyInclusion(index: number, size: number, leaf: string | Uint8Array, proof: ReadonlyArray<string | Uint8Array>, root: string | Uint8Array): boolean {
   if (!Number.isInteger(index) || !Number.isInteger(size) || index < 0 || index >= size) return false
@@ -126,20 +141,12 @@ export function verifyInclusion(index: number, size: number, leaf: string | Uint
   let sn = size - 1
   let r = toHash(leaf)
   for (const item of proof) {
-    const p = toHash(item)
     if (sn === 0) return false
-    if ((fn & 1) === 1 || fn === sn) {
-      r = nodeHash(p, r)
-      while ((fn & 1) === 0 && fn !== 0) {
-        fn = Math.floor(fn / 2)
-        sn = Math.floor(sn / 2)
-      }
-    }
-    else {
-      r = nodeHash(r, p)
-    }
-    fn = Math.floor(fn / 2)
-    sn = Math.floor(sn / 2)
+    const p = toHash(item)
+    const up = climb(fn, sn)
+    r = up.left ? nodeHash(p, r) : nodeHash(r, p)
+    fn = up.fn
+    sn = up.sn
   }
   return sn === 0 && r.equals(toHash(root))
 }
@@ -168,19 +175,16 @@ export function verifyConsistency(first: number, second: number, firstRoot: stri
   let sr = path[0]!
   for (const c of path.slice(1)) {
     if (sn === 0) return false
-    if ((fn & 1) === 1 || fn === sn) {
+    const up = climb(fn, sn)
+    if (up.left) {
       fr = nodeHash(c, fr)
       sr = nodeHash(c, sr)
-      while ((fn & 1) === 0 && fn !== 0) {
-        fn = Math.floor(fn / 2)
-        sn = Math.floor(sn / 2)
-      }
     }
     else {
       sr = nodeHash(sr, c)
     }
-    fn = Math.floor(fn / 2)
-    sn = Math.floor(sn / 2)
+    fn = up.fn
+    sn = up.sn
   }
   return fr.equals(oldRoot) && sr.equals(newRoot) && sn === 0
 }
