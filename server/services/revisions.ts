@@ -78,19 +78,28 @@ function requireReasonForFailingChecks(checks: readonly CheckResult[], reason: s
 }
 
 /**
- * Freezes the sheet's current inputs as its next revision: the server runs the engine itself,
+ * Freezes the draft the engineer is looking at as the sheet's next revision: the server runs the engine itself,
  * renders the report from the sheet's own template version, and writes the row, its audit event and
  * the notice to the checkers in one transaction. The sheet row is locked first, so concurrent issues
  * of one sheet queue up and get consecutive codes (the unique index and the chain trigger back that up).
  * Issuing with failing checks needs a reason, frozen with the revision; replies to the checker's
  * comments on the revision before go with it.
- * @throws 404 unknown sheet, 422 naming the input at fault, 400 failing checks without a reason.
+ * @throws 404 unknown sheet, 409 when a newer draft was saved than `draftVersion`, 422 naming the
+ * input at fault, 400 failing checks without a reason.
  */
 export async function issueRevision(event: H3Event, sheetId: number, body: IssueRevisionBody, user: SessionUser) {
-  const { note, failingChecksReason } = body
-  const created = await useDb().transaction(async (tx) => {
+  const { note, failingChecksReason, draftVersion } = body
+  const created = await historyTransaction(async (tx) => {
     const [sheet] = await tx.select().from(tables.sheets).where(eq(tables.sheets.id, sheetId)).for('update')
     if (!sheet) throw createError({ statusCode: 404, message: `No calc sheet with id ${sheetId}` })
+    if (sheet.draftVersion !== draftVersion) {
+      const [editor] = await tx.select({ name: tables.users.name }).from(tables.users).where(eq(tables.users.id, sheet.updatedBy))
+      throw createError({
+        statusCode: 409,
+        message: `${editor?.name ?? 'Someone'} saved a newer draft of ${sheet.reference} (version ${sheet.draftVersion}; you are looking at version ${draftVersion}) at ${sheet.updatedAt.toISOString().slice(0, 16).replace('T', ' ')} UTC. Reload the sheet and check it before issuing.`,
+        data: { draftVersion: sheet.draftVersion },
+      })
+    }
     const [template] = await tx.select().from(tables.templates).where(eq(tables.templates.id, sheet.templateId))
     const [project] = await tx.select().from(tables.projects).where(eq(tables.projects.id, sheet.projectId))
     if (!template || !project) throw createError({ statusCode: 500, message: 'The sheet refers to a missing template or project' })
@@ -120,6 +129,7 @@ export async function issueRevision(event: H3Event, sheetId: number, body: Issue
     }
     const contentHash = revisionHash(fields)
     const [{ id }] = await tx.insert(r).values({ ...fields, contentHash }).$returningId()
+    await logWrittenRow(tx, 'revision', id, { hash: contentHash, of: revisionHash })
     await recordAudit(event, { action: 'revision.issued', subject: `${project.jobNumber}/${sheet.reference} ${fields.code}`, actorId: user.id, detail: { revisionId: id, contentHash } }, tx)
     await enqueueMail(tx, {
       kind: 'revision.issued',
@@ -143,9 +153,16 @@ export async function listSheetRevisions(sheetId: number) {
   return rows.map(row => ({ ...row, status: statuses.get(row.id)! }))
 }
 
+/**
+ * A revision as stored, checked against its content hash before anything shows or prints it.
+ * @throws 404 unknown, 409 when the stored revision no longer matches its hash.
+ */
 async function loadRevision(id: number) {
   const [row] = await useDb().select().from(r).where(eq(r.id, id)).limit(1)
   if (!row) throw createError({ statusCode: 404, message: `No revision with id ${id}` })
+  if (revisionHash(row) !== row.contentHash) {
+    throw createError({ statusCode: 409, message: `Revision ${row.code} no longer matches its content hash: it was changed after issue, so it is not shown or printed. The records office can run the chain verification.` })
+  }
   return row
 }
 
@@ -162,7 +179,7 @@ export async function getRevisionDetail(id: number, user: SessionUser) {
   const reviews = await db.select({ id: tables.reviews.id, decision: tables.reviews.decision, contractCode: tables.reviews.contractCode, comments: tables.reviews.comments, reviewerId: tables.reviews.reviewerId, reviewerName: reviewer.name, createdAt: tables.reviews.createdAt })
     .from(tables.reviews).innerJoin(reviewer, eq(reviewer.id, tables.reviews.reviewerId)).where(eq(tables.reviews.revisionId, id)).orderBy(asc(tables.reviews.id))
   const sealer = alias(tables.users, 'sealer')
-  const [seal] = await db.select({ id: tables.seals.id, archiveRef: tables.seals.archiveRef, verificationRef: tables.seals.verificationRef, pdfSha256: tables.seals.pdfSha256, pdfBytes: tables.seals.pdfBytes, pages: tables.seals.pages, sealedAt: tables.seals.sealedAt, sealedByName: sealer.name })
+  const [seal] = await db.select({ id: tables.seals.id, archiveRef: tables.seals.archiveRef, verificationRef: tables.seals.verificationRef, pdfSha256: tables.seals.pdfSha256, pdfBytes: tables.seals.pdfBytes, pages: tables.seals.pages, sealedAt: tables.seals.sealedAt, sealedByName: sealer.name, logLeafIndex: tables.seals.logLeafIndex, headTreeSize: tables.seals.headTreeSize, headRootHash: tables.seals.headRootHash })
     .from(tables.seals).innerJoin(sealer, eq(sealer.id, tables.seals.sealedBy)).where(eq(tables.seals.revisionId, id))
   const siblings = await db.select({ id: r.id, seq: r.seq, code: r.code }).from(r).where(eq(r.sheetId, rev.sheetId)).orderBy(asc(r.seq))
   const results = rev.results as { checks?: unknown[] }
@@ -183,7 +200,7 @@ export async function getRevisionDetail(id: number, user: SessionUser) {
     previous: siblings.filter(s => s.seq < rev.seq).at(-1) ?? null,
     next: siblings.find(s => s.seq > rev.seq) ?? null,
     can: {
-      decide: canDecide,
+      decide: canDecide && user.id !== rev.authorId,
       approve: canDecide && user.id !== rev.authorId,
       comment: user.role !== 'records',
       seal: status.status === 'approved' && (user.role === 'records' || user.role === 'admin'),
