@@ -4,9 +4,9 @@
  * TypeScript over the engine and the report renderer.
  */
 import { EngineInputError } from '../engine/contract'
-import { designMember, type Design } from '../engine/design/member'
-import { memberInputSchema, type MemberInput } from '../engine/schema'
-import { DEMO_BB1, DEMO_PS2 } from '../engine/demo'
+import { designMember, type Design } from '../engine/member/design'
+import { memberInputSchema, type MemberInput } from '../engine/input/schema'
+import { DEMO_BB1, DEMO_PS2 } from '../engine/input/demo'
 import { compileTemplate, parseTemplate, renderReport, TemplateLoadError, type CompiledTemplate, type RenderMode, type RenderOptions, type TemplateMeta } from '../report'
 import { MODELS } from '../report/models'
 

@@ -3,7 +3,7 @@ import type { Browser } from 'playwright-core'
 import { launch, screenshot } from '../helpers/browser'
 import { signedIn } from '../helpers/client'
 import { demoProjectId, editorAsEngineer, ownSheet, spaceTendonsWide } from '../helpers/sheets'
-import { DEMO_PS2 } from '../../shared/engine/demo'
+import { DEMO_PS2 } from '../../shared/engine/input/demo'
 
 let browser: Browser
 beforeAll(async () => { browser = await launch() })

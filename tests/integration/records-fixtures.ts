@@ -5,7 +5,7 @@ import { readdirSync, readFileSync } from 'node:fs'
 import { dirname, join, resolve } from 'node:path'
 import mysql from 'mysql2/promise'
 import { inject } from 'vitest'
-import { DEMO_PS2 } from '../../shared/engine/demo'
+import { DEMO_PS2 } from '../../shared/engine/input/demo'
 import { DEMO, unique } from '../helpers/client'
 import { withDb } from '../helpers/db'
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { DEMO_PS2 } from '../../shared/engine/demo'
+import { DEMO_PS2 } from '../../shared/engine/input/demo'
 import { verifyTreeHead } from '../../shared/log/tree-head'
 import { countRows, withDb } from '../helpers/db'
 import { chainBreaks, issue, makeSheet, session, userId, withoutTriggers } from './records-fixtures'

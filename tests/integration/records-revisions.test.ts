@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { designMember } from '../../shared/engine'
-import { DEMO_PS2 } from '../../shared/engine/demo'
+import { DEMO_PS2 } from '../../shared/engine/input/demo'
 import { auditHash, revisionHash } from '../../server/utils/hashing'
 import { countRows, withDb } from '../helpers/db'
 import { DEMO } from '../helpers/client'
