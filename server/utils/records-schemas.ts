@@ -8,8 +8,6 @@ export const revisionIdParams = z.object({
 // the Issue dialog and this route share one schema
 export { issueRevisionSchema as issueBody } from '../../shared/schemas/issue'
 
-export type IssueBody = z.infer<typeof issueBody>
-
 export const reviewBody = z.object({
   decision: z.enum(['comment', 'return', 'approve'], { message: 'decision is one of comment, return, approve' }),
   comments: z.array(z.object({
