@@ -41,7 +41,7 @@ describe('issuing from the editor', () => {
   it('shows the checker\'s returned comments in the editor, linked to their sections, and sends the replies with the next issue', async () => {
     const id = await ownSheet('RET')
     const engineer = await signedIn('engineer')
-    const p01 = await engineer.post(`/api/sheets/${id}/revisions`, { note: 'First issue' })
+    const p01 = await engineer.issue(id, { note: 'First issue' })
     expect(p01.status).toBe(201)
     const rev = p01.body as { id: number, sections: Array<{ id: string, title: string }> }
     const section = rev.sections.find(s => /Loads/.test(s.title))!

@@ -145,17 +145,17 @@ describe('office templates', () => {
     inputs.tendon.count = 1
     expect((await client.request('PUT', `/api/sheets/${created.id}/draft`, { inputs, draftVersion: created.draftVersion })).status).toBe(200)
     const before = await countRows('revisions')
-    const refused = await client.post(`/api/sheets/${created.id}/revisions`, { note: 'try' })
+    const refused = await client.issue(created.id, { note: 'try' })
     expect(refused.status).toBe(400)
     expect(Object.keys(refused.body.data.fields)).toEqual(['failingChecksReason'])
     expect(refused.body.message).toMatch(/^Reason for issuing with failing checks: \d+ checks? fail/)
     expect(await countRows('revisions')).toBe(before)
 
-    const tooLong = await client.post(`/api/sheets/${created.id}/revisions`, { failingChecksReason: 'x'.repeat(2001) })
+    const tooLong = await client.issue(created.id, { failingChecksReason: 'x'.repeat(2001) })
     expect(tooLong.status).toBe(400)
     expect(tooLong.body.message).toMatch(/^Reason for issuing with failing checks: /)
 
-    const issued = await client.post(`/api/sheets/${created.id}/revisions`, { note: 'try', failingChecksReason: 'Stress state for the layout meeting' })
+    const issued = await client.issue(created.id, { note: 'try', failingChecksReason: 'Stress state for the layout meeting' })
     expect(issued.status).toBe(201)
     expect(issued.body.failingChecksReason).toBe('Stress state for the layout meeting')
   })
@@ -164,14 +164,14 @@ describe('office templates', () => {
     const client = await signedIn('engineer')
     const template = await firstTemplate(client)
     const created = (await client.post(`/api/projects/${await demoProject(client)}/sheets`, { reference: unique('R-'), title: 'Replies', templateId: template.id })).body
-    const p01 = (await client.post(`/api/sheets/${created.id}/revisions`, {})).body as { id: number }
+    const p01 = (await client.issue(created.id, {})).body as { id: number }
     const checker = await signedIn('checker')
     const returned = (await checker.post(`/api/revisions/${p01.id}/reviews`, { decision: 'return', comments: [{ anchor: '', text: 'Check the cover.' }] })).body as { reviews: Array<{ id: number }> }
     const review = returned.reviews.at(-1)!
-    const wrong = await client.post(`/api/sheets/${created.id}/revisions`, { replies: [{ reviewId: review.id, comment: 3, text: 'Done' }] })
+    const wrong = await client.issue(created.id, { replies: [{ reviewId: review.id, comment: 3, text: 'Done' }] })
     expect(wrong.status).toBe(400)
     expect(wrong.body.data.fields).toHaveProperty('replies')
-    const p02 = await client.post(`/api/sheets/${created.id}/revisions`, { replies: [{ reviewId: review.id, comment: 0, text: 'Cover raised to 30 mm.' }] })
+    const p02 = await client.issue(created.id, { replies: [{ reviewId: review.id, comment: 0, text: 'Cover raised to 30 mm.' }] })
     expect(p02.status).toBe(201)
     expect(p02.body.replies).toEqual([{ reviewId: review.id, comment: 0, text: 'Cover raised to 30 mm.', anchor: '', commentText: 'Check the cover.' }])
   })
