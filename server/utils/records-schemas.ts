@@ -1,8 +1,11 @@
 import { z } from 'zod'
 
-export const revisionIdParams = z.object({
+/** A record's numeric id in the path (a revision, a review, a version of the office details). */
+export const idParams = z.object({
   id: z.coerce.number({ message: 'id must be a number' }).int().positive('id must be a positive whole number'),
 })
+
+export const revisionIdParams = idParams
 
 export const issueBody = z.object({
   note: z.string().trim().max(500, 'The note is at most 500 characters').default(''),
