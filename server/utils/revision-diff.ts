@@ -168,9 +168,29 @@ function changedLeaves(before: Map<string, Leaf>, after: Map<string, Leaf>, rela
   })
 }
 
-function matchesPattern(path: string, patterns: readonly string[]) {
-  const pattern = patternOf(path)
-  return patterns.some(p => p === pattern)
+/**
+ * The model's governing quantities in both runs: a single value as it is; a list (a pattern with
+ * `[]`, one value per span or section) by its element of greatest magnitude, which is what governs.
+ * `path` is where the later run has it (the section that shows it), `of` how many elements compete.
+ */
+function governingValues(model: ReportModel, before: Map<string, Leaf>, after: Map<string, Leaf>) {
+  const out: Array<{ path: string, before: number, after: number, of: number }> = []
+  for (const pattern of model.governingKeys ?? []) {
+    const extreme = (leaves: Map<string, Leaf>) => {
+      let best: { path: string, value: number } | null = null
+      let count = 0
+      for (const [path, value] of leaves) {
+        if (typeof value !== 'number' || patternOf(path) !== pattern) continue
+        count += 1
+        if (!best || Math.abs(value) > Math.abs(best.value)) best = { path, value }
+      }
+      return { best, count }
+    }
+    const a = extreme(before)
+    const b = extreme(after)
+    if (a.best && b.best) out.push({ path: b.best.path, before: a.best.value, after: b.best.value, of: Math.max(a.count, b.count) })
+  }
+  return out
 }
 
 function checksOf(model: ReportModel, results: unknown): readonly CheckResult[] {
@@ -217,8 +237,8 @@ export function diffRevisions(model: ReportModel, before: DiffSide, after: DiffS
   const leavesBefore = resultLeaves(before.results)
   const leavesAfter = resultLeaves(after.results)
   const all = changedLeaves(leavesBefore, leavesAfter, NOISE.relative, NOISE.absolute)
-  const governing = changedLeaves(leavesBefore, leavesAfter, threshold, NOISE.absolute)
-    .filter(path => matchesPattern(path, model.governingKeys ?? []))
+  const governing = governingValues(model, leavesBefore, leavesAfter)
+    .filter(g => differsBeyond(g.before, g.after, threshold, NOISE.absolute))
 
   // sections in the order of the later report; what only the earlier one shows goes after them
   const groups = new Map<string, SectionChanges>()
@@ -234,7 +254,10 @@ export function diffRevisions(model: ReportModel, before: DiffSide, after: DiffS
 
   const checks = checkChanges(checksOf(model, before.results), checksOf(model, after.results), threshold)
   for (const c of checks) groupFor(sectionOf(side => side.checkSections[c.id])).checks.push(c)
-  for (const path of governing) groupFor(sectionOf(side => side.keySections[path])).values.push(valueChange(model, path, leavesBefore.get(path), leavesAfter.get(path)))
+  for (const g of governing) {
+    const change = valueChange(model, g.path, g.before, g.after)
+    groupFor(sectionOf(side => side.keySections[g.path])).values.push(g.of > 1 ? { ...change, label: `${specOf(model, g.path)?.label ?? g.path}, greatest of ${g.of}` } : change)
+  }
 
   const sections = [...groups.values(), other].filter(g => g.checks.length + g.values.length > 0)
   return {

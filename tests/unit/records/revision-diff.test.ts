@@ -98,7 +98,7 @@ describe('revision diff', () => {
       ['Stresses in service', ['a:now-fails', 'b:now-passes', 'c:utilisation'], []],
       ['Deflection', [], ['deflection.1.long']],
     ])
-    expect(diff.sections[1]!.values[0]!.label).toBe('Long-term deflection (2)')
+    expect(diff.sections[1]!.values[0]!.label).toBe('Long-term deflection, greatest of 2')
     expect(diff.sections[1]!.values[0]!.after.replace(/\s/g, ' ')).toBe('5.2 mm')
     expect(diff.counts).toEqual({ nowFails: 1, nowPasses: 1, governingMoved: 1 })
     // a 0.6 % move of the force is in the full list only; the other result is not governing
