@@ -16,7 +16,7 @@ import { fileURLToPath } from 'node:url'
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '..')
 
 /** Tables whose rows may never change once written: the app user gets SELECT and INSERT only. */
-export const APPEND_ONLY_TABLES = ['revisions', 'reviews', 'seals', 'audit_events', 'attachments', 'templates', 'log_leaves', 'log_heads']
+export const APPEND_ONLY_TABLES = ['revisions', 'reviews', 'seals', 'audit_events', 'attachments', 'templates', 'log_leaves', 'log_heads', 'office_details', 'comment_states']
 
 /**
  * Every port and folder of a run, from the environment with today's values as defaults:

@@ -49,6 +49,21 @@ export const revisions = mysqlTable('revisions', {
   index('revisions_issued_idx').on(t.issuedAt),
 ])
 
+/**
+ * The office's details for the title block of printed revisions, one row per version (the newest is
+ * in force). The logo is a stored file, typed by its content, with its SHA-256.
+ */
+export const officeDetails = mysqlTable('office_details', {
+  id: int('id').autoincrement().primaryKey(),
+  name: varchar('name', { length: 160 }).notNull(),
+  logoStorageKey: varchar('logo_storage_key', { length: 200 }),
+  logoMime: varchar('logo_mime', { length: 40 }),
+  logoBytes: int('logo_bytes'),
+  logoSha256: sha256('logo_sha256'),
+  createdBy: int('created_by').notNull().references(() => users.id, { onDelete: 'restrict' }),
+  createdAt: ms('created_at').notNull(),
+})
+
 export const REVIEW_DECISIONS = ['comment', 'return', 'approve'] as const
 export type ReviewDecision = (typeof REVIEW_DECISIONS)[number]
 
@@ -66,11 +81,28 @@ export const reviews = mysqlTable('reviews', {
   comments: json('comments').notNull(),
   reviewerId: int('reviewer_id').notNull().references(() => users.id, { onDelete: 'restrict' }),
   createdAt: ms('created_at').notNull(),
+  // an approval freezes the office details in force (title block name and logo), so a re-print matches
+  officeVersion: int('office_version').references(() => officeDetails.id, { onDelete: 'restrict' }),
   contentHash: sha256('content_hash').notNull(),
 }, t => [
   uniqueIndex('reviews_sheet_contract_code_unique').on(t.sheetId, t.contractCode),
   index('reviews_revision_idx').on(t.revisionId),
 ])
+
+export const COMMENT_STATES = ['open', 'closed'] as const
+
+/**
+ * A checker closes a comment (or opens it again): each change of state is a new row, the newest
+ * row of a comment is its state. A comment is (review, position in that review's comments).
+ */
+export const commentStates = mysqlTable('comment_states', {
+  id: int('id').autoincrement().primaryKey(),
+  reviewId: int('review_id').notNull().references(() => reviews.id, { onDelete: 'restrict' }),
+  commentIndex: int('comment_index').notNull(),
+  state: mysqlEnum('state', COMMENT_STATES).notNull(),
+  actorId: int('actor_id').notNull().references(() => users.id, { onDelete: 'restrict' }),
+  createdAt: ms('created_at').notNull(),
+}, t => [index('comment_states_comment_idx').on(t.reviewId, t.commentIndex, t.id)])
 
 /** The sealed PDF of an approved revision: one per revision. */
 export const seals = mysqlTable('seals', {
@@ -193,3 +225,5 @@ export type AuditEvent = typeof auditEvents.$inferSelect
 export type OutboxMessage = typeof outbox.$inferSelect
 export type LogLeaf = typeof logLeaves.$inferSelect
 export type LogHead = typeof logHeads.$inferSelect
+export type OfficeDetails = typeof officeDetails.$inferSelect
+export type CommentState = typeof commentStates.$inferSelect

@@ -1,6 +1,7 @@
 import { and, asc, eq, inArray, lte, sql } from 'drizzle-orm'
 import type { Role } from '../../shared/types/roles'
 import type { Tx } from '../utils/audit'
+import { CAUTION } from '../utils/print-templates'
 
 /** Attempts before a message is marked failed; waits grow 10 s, 20 s, 40 s… */
 export const OUTBOX_MAX_ATTEMPTS = 6
@@ -16,7 +17,12 @@ export interface OutgoingMail {
 export async function enqueueMail(tx: Tx, mail: OutgoingMail) {
   const to = [...new Set(mail.to.filter(Boolean))]
   if (to.length === 0) return
-  await tx.insert(tables.outbox).values({ kind: mail.kind, toAddresses: to.join(','), subject: mail.subject.slice(0, 250), bodyText: mail.text })
+  await tx.insert(tables.outbox).values({ kind: mail.kind, toAddresses: to.join(','), subject: mail.subject.slice(0, 250), bodyText: withCaution(mail.text) })
+}
+
+/** Every message ends with the caution, whatever it tells about. */
+export function withCaution(text: string): string {
+  return `${text.trimEnd()}\n\n--\n${CAUTION}\n`
 }
 
 export async function addressesWithRole(tx: Tx, ...roles: Role[]) {

@@ -3,6 +3,7 @@ import { and, count, eq, isNotNull } from 'drizzle-orm'
 import type { ReviewBody } from '../utils/records-schemas'
 import { plainJson, reviewHash } from '../utils/hashing'
 import { revisionCode } from '../utils/revision-status'
+import { quotedComments } from '../utils/comment-threads'
 
 type SessionUser = { id: number, name: string, email: string, role: import('../../shared/types/roles').Role }
 
@@ -40,7 +41,9 @@ export async function reviewRevision(event: H3Event, revisionId: number, body: R
       const [{ n }] = await tx.select({ n: count() }).from(tables.reviews).where(and(eq(tables.reviews.sheetId, rev.sheetId), isNotNull(tables.reviews.contractCode)))
       contractCode = revisionCode('C', n + 1)
     }
-    const fields = { revisionId: rev.id, sheetId: rev.sheetId, decision: body.decision, contractCode, comments: plainJson(body.comments), reviewerId: user.id, createdAt: new Date() }
+    // the approval freezes the office details in force, so every later print of it has the same title block
+    const officeVersion = body.decision === 'approve' ? await officeVersionInForce(tx) : null
+    const fields = { revisionId: rev.id, sheetId: rev.sheetId, decision: body.decision, contractCode, comments: plainJson(body.comments), reviewerId: user.id, createdAt: new Date(), officeVersion }
     const contentHash = reviewHash(fields)
     const [{ id }] = await tx.insert(tables.reviews).values({ ...fields, contentHash }).$returningId()
     await logWrittenRow(tx, 'review', id, { hash: contentHash, of: reviewHash })
@@ -50,9 +53,10 @@ export async function reviewRevision(event: H3Event, revisionId: number, body: R
 
     const link = `${getRequestURL(event).origin}/revisions/${rev.id}`
     const [author] = await tx.select({ email: tables.users.email }).from(tables.users).where(eq(tables.users.id, rev.authorId))
-    const commentText = body.comments.map(c => `- ${c.anchor ? `[${c.anchor}] ` : ''}${c.text}`).join('\n')
+    const sectionTitles = new Map((rev.sections as Array<{ id: string, title: string }>).map(x => [x.id, x.title]))
+    const commentText = quotedComments(body.comments, anchor => sectionTitles.get(anchor) ?? anchor)
     if (body.decision === 'return') {
-      await enqueueMail(tx, { kind: action, to: [author?.email ?? ''], subject: `[Tendonbook] ${sheet!.reference} ${rev.code} returned with comments - job ${project!.jobNumber}`, text: `${user.name} returned ${sheet!.reference} ${rev.code} "${sheet!.title}" with comments:\n\n${commentText}\n\nOpen it: ${link}\n` })
+      await enqueueMail(tx, { kind: action, to: [author?.email ?? ''], subject: `[Tendonbook] ${sheet!.reference} ${rev.code} returned with comments - job ${project!.jobNumber}`, text: `${user.name} returned ${sheet!.reference} ${rev.code} "${sheet!.title}" with ${body.comments.length === 1 ? 'this comment' : `these ${body.comments.length} comments`}:\n\n${commentText}\n\nOpen it: ${link}\n` })
     }
     if (body.decision === 'approve') {
       const text = `${user.name} approved ${sheet!.reference} ${rev.code} "${sheet!.title}" as ${contractCode}.\n${commentText ? `\n${commentText}\n` : ''}\nOpen it: ${link}\n`

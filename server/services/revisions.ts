@@ -1,7 +1,9 @@
 import type { H3Event } from 'h3'
-import { and, asc, desc, eq, inArray } from 'drizzle-orm'
+import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm'
 import { alias } from 'drizzle-orm/mysql-core'
 import { EngineInputError, type CheckResult } from '../../shared/engine/index'
+import { tallyChecks } from '../../shared/report/tally'
+import { checkSectionsIn } from '../../shared/report/render'
 import type { Db } from '../utils/db'
 import type { Tx } from '../utils/audit'
 import { plainJson, revisionHash } from '../utils/hashing'
@@ -9,6 +11,7 @@ import { deriveStatus, revisionCode, type DerivedStatus } from '../utils/revisio
 import { diffRevisions } from '../utils/revision-diff'
 import type { CommentReply, IssueRevisionBody } from '../../shared/schemas/issue'
 import { describeInputError } from '../../shared/sheet/labels'
+import { MODELS } from '../../shared/report/models'
 
 type DbLike = Db | Tx
 type SessionUser = { id: number, name: string, email: string, role: import('../../shared/types/roles').Role }
@@ -19,6 +22,15 @@ const revisionSummary = {
   id: r.id, sheetId: r.sheetId, seq: r.seq, code: r.code, note: r.note, failingChecksReason: r.failingChecksReason, templateTitle: r.templateTitle,
   templateVersion: r.templateVersion, engineVersion: r.engineVersion, authorId: r.authorId,
   issuedAt: r.issuedAt, contentHash: r.contentHash, prevHash: r.prevHash,
+}
+
+/** Only the check list of a revision's results, not its figure samples: enough for a tally. */
+const checksJson = sql<unknown>`JSON_EXTRACT(${r.results}, '$.checks')`
+
+/** Pass/fail counts and the governing utilisation of a revision, from its checks column. */
+function tallyOf(checks: unknown) {
+  const list = typeof checks === 'string' ? JSON.parse(checks) as unknown : checks
+  return tallyChecks(Array.isArray(list) ? list as CheckResult[] : [])
 }
 
 /** Derived status of every revision of a sheet, from the reviews, seals and later revisions. */
@@ -147,10 +159,10 @@ export async function listSheetRevisions(sheetId: number) {
   const [sheet] = await db.select({ id: tables.sheets.id }).from(tables.sheets).where(eq(tables.sheets.id, sheetId))
   if (!sheet) throw createError({ statusCode: 404, message: `No calc sheet with id ${sheetId}` })
   const author = alias(tables.users, 'author')
-  const rows = await db.select({ ...revisionSummary, authorName: author.name }).from(r).innerJoin(author, eq(author.id, r.authorId))
+  const rows = await db.select({ ...revisionSummary, authorName: author.name, checks: checksJson }).from(r).innerJoin(author, eq(author.id, r.authorId))
     .where(eq(r.sheetId, sheetId)).orderBy(desc(r.seq))
   const statuses = await sheetRevisionStatuses(db, sheetId)
-  return rows.map(row => ({ ...row, status: statuses.get(row.id)! }))
+  return rows.map(({ checks, ...row }) => ({ ...row, status: statuses.get(row.id)!, tally: tallyOf(checks) }))
 }
 
 /**
@@ -176,13 +188,16 @@ export async function getRevisionDetail(id: number, user: SessionUser) {
   const statuses = await sheetRevisionStatuses(db, rev.sheetId)
   const status = statuses.get(rev.id)!
   const reviewer = alias(tables.users, 'reviewer')
-  const reviews = await db.select({ id: tables.reviews.id, decision: tables.reviews.decision, contractCode: tables.reviews.contractCode, comments: tables.reviews.comments, reviewerId: tables.reviews.reviewerId, reviewerName: reviewer.name, createdAt: tables.reviews.createdAt })
+  const reviews = await db.select({ id: tables.reviews.id, decision: tables.reviews.decision, contractCode: tables.reviews.contractCode, comments: tables.reviews.comments, reviewerId: tables.reviews.reviewerId, reviewerName: reviewer.name, createdAt: tables.reviews.createdAt, officeVersion: tables.reviews.officeVersion })
     .from(tables.reviews).innerJoin(reviewer, eq(reviewer.id, tables.reviews.reviewerId)).where(eq(tables.reviews.revisionId, id)).orderBy(asc(tables.reviews.id))
   const sealer = alias(tables.users, 'sealer')
   const [seal] = await db.select({ id: tables.seals.id, archiveRef: tables.seals.archiveRef, verificationRef: tables.seals.verificationRef, pdfSha256: tables.seals.pdfSha256, pdfBytes: tables.seals.pdfBytes, pages: tables.seals.pages, sealedAt: tables.seals.sealedAt, sealedByName: sealer.name, logLeafIndex: tables.seals.logLeafIndex, headTreeSize: tables.seals.headTreeSize, headRootHash: tables.seals.headRootHash })
     .from(tables.seals).innerJoin(sealer, eq(sealer.id, tables.seals.sealedBy)).where(eq(tables.seals.revisionId, id))
   const siblings = await db.select({ id: r.id, seq: r.seq, code: r.code }).from(r).where(eq(r.sheetId, rev.sheetId)).orderBy(asc(r.seq))
   const results = rev.results as { checks?: unknown[] }
+  const checks = (Array.isArray(results.checks) ? results.checks : []) as CheckResult[]
+  const homes = checkSectionsIn(rev.reportHtml)
+  const model = Object.hasOwn(MODELS, rev.model) ? MODELS[rev.model] : undefined
   const approval = reviews.find(v => v.decision === 'approve')
   const canDecide = status.status === 'issued' && (user.role === 'checker' || user.role === 'admin')
   return {
@@ -190,12 +205,15 @@ export async function getRevisionDetail(id: number, user: SessionUser) {
     replies: (Array.isArray(rev.replies) ? rev.replies : []) as FrozenReply[], issuedAt: rev.issuedAt, contentHash: rev.contentHash, prevHash: rev.prevHash,
     engineVersion: rev.engineVersion, template: { id: rev.templateId, slug: rev.templateSlug, version: rev.templateVersion, title: rev.templateTitle, model: rev.model },
     reportHtml: rev.reportHtml, sections: rev.reportSections as Array<{ id: string, title: string, level: number }>,
-    checks: Array.isArray(results.checks) ? results.checks : [],
+    checks: checks.map(c => ({ ...c, sectionId: homes[c.id] ?? null })),
+    tally: tallyChecks(checks),
+    groupLabels: model?.groupLabels ?? {},
+    threads: await sheetCommentThreads(db, rev.sheetId, rev.seq),
     author: { id: rev.authorId, name: ctx?.authorName ?? '' },
     sheet: { id: rev.sheetId, reference: ctx?.sheet.reference ?? '', title: ctx?.sheet.title ?? '', partOfStructure: ctx?.sheet.partOfStructure ?? '' },
     project: { id: ctx?.project.id ?? 0, jobNumber: ctx?.project.jobNumber ?? '', name: ctx?.project.name ?? '', client: ctx?.project.client ?? '', site: ctx?.project.site ?? '' },
     status, reviews,
-    approvedBy: approval ? { name: approval.reviewerName, at: approval.createdAt } : null,
+    approvedBy: approval ? { name: approval.reviewerName, at: approval.createdAt, officeVersion: approval.officeVersion } : null,
     seal: seal ?? null,
     previous: siblings.filter(s => s.seq < rev.seq).at(-1) ?? null,
     next: siblings.find(s => s.seq > rev.seq) ?? null,
@@ -204,6 +222,7 @@ export async function getRevisionDetail(id: number, user: SessionUser) {
       approve: canDecide && user.id !== rev.authorId,
       comment: user.role !== 'records',
       seal: status.status === 'approved' && (user.role === 'records' || user.role === 'admin'),
+      closeComments: user.role === 'checker' || user.role === 'admin',
     },
   }
 }
@@ -220,14 +239,17 @@ export async function revisionDiff(id: number, againstId?: number) {
     [base] = await useDb().select().from(r).where(and(eq(r.sheetId, rev.sheetId), eq(r.seq, rev.seq - 1)))
   }
   if (!base) return { against: null, diff: null }
-  return { against: { id: base.id, code: base.code }, diff: diffRevisions(base, rev, { specFor: resultSpecFor }) }
+  const model = Object.hasOwn(MODELS, rev.model) ? MODELS[rev.model] : undefined
+  if (!model) throw createError({ statusCode: 409, message: `${rev.code} binds to the model "${rev.model}", which this version of Tendonbook does not know` })
+  const side = (row: typeof rev) => ({ inputs: row.inputs, results: row.results, ...reportMapOf(row) })
+  return { against: { id: base.id, code: base.code }, diff: diffRevisions(model, side(base), side(rev)) }
 }
 
 /** Revisions waiting for a decision: the latest of their sheet and neither returned nor approved. */
 export async function checkQueue(user: SessionUser) {
   const db = useDb()
   const author = alias(tables.users, 'author')
-  const rows = await db.select({ ...revisionSummary, authorName: author.name, sheetReference: tables.sheets.reference, sheetTitle: tables.sheets.title, jobNumber: tables.projects.jobNumber, projectName: tables.projects.name })
+  const rows = await db.select({ ...revisionSummary, authorName: author.name, checks: checksJson, sheetReference: tables.sheets.reference, sheetTitle: tables.sheets.title, jobNumber: tables.projects.jobNumber, projectName: tables.projects.name })
     .from(r).innerJoin(author, eq(author.id, r.authorId)).innerJoin(tables.sheets, eq(tables.sheets.id, r.sheetId))
     .innerJoin(tables.projects, eq(tables.projects.id, tables.sheets.projectId)).orderBy(asc(r.issuedAt))
   const statusBySheet = new Map<number, Map<number, DerivedStatus>>()
@@ -235,7 +257,8 @@ export async function checkQueue(user: SessionUser) {
   for (const row of rows) {
     if (!statusBySheet.has(row.sheetId)) statusBySheet.set(row.sheetId, await sheetRevisionStatuses(db, row.sheetId))
     const status = statusBySheet.get(row.sheetId)!.get(row.id)!
-    if (status.status === 'issued') out.push({ ...row, status, authoredByYou: row.authorId === user.id })
+    const { checks, ...summary } = row
+    if (status.status === 'issued') out.push({ ...summary, status, tally: tallyOf(checks), authoredByYou: row.authorId === user.id })
   }
   return out
 }

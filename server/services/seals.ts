@@ -1,8 +1,10 @@
 import type { H3Event } from 'h3'
 import { eq } from 'drizzle-orm'
 import { sha256Hex, verificationRef } from '../utils/hashing'
-import { makeReproducible, PdfBusyError, PdfRenderError, printOrigin, renderPdf } from '../utils/pdf'
-import { footerTemplate, headerTemplate, isoDay, logStampKeywords, type LogStamp, type TitleBlock } from '../utils/print-templates'
+import { makeReproducible, namedDestinationPages, PdfBusyError, PdfRenderError, printOrigin, renderPdf } from '../utils/pdf'
+import { CAUTION, footerTemplate, headerTemplate, isoDay, logStampKeywords, type LogStamp, type TitleBlock } from '../utils/print-templates'
+import { encodePages } from '../../shared/report/page-references'
+import type { OfficeStamp } from './office'
 
 type SessionUser = { id: number, name: string, email: string, role: import('../../shared/types/roles').Role }
 type Detail = Awaited<ReturnType<typeof getRevisionDetail>>
@@ -13,8 +15,10 @@ export function archiveRefOf(detail: Pick<Detail, 'project' | 'sheet' | 'status'
 }
 
 /** The title block of a printed revision: only facts fixed at approval, so a re-print gives the same bytes. */
-export function titleBlockOf(detail: Detail): TitleBlock {
+export function titleBlockOf(detail: Detail, office: OfficeStamp | null): TitleBlock {
   return {
+    office: office?.name ?? '',
+    officeLogo: office?.logoDataUrl ?? null,
     projectName: detail.project.name,
     jobNumber: detail.project.jobNumber,
     client: detail.project.client,
@@ -57,23 +61,42 @@ type Rendered = { bytes: Uint8Array, pages: number, html: string }
 /** Where the print page of a seal is kept beside its PDF, to explain a later render that differs. */
 const printPageKey = (pdfKey: string) => pdfKey.replace(/\.pdf$/, '.print.html')
 
-/** Renders the approved revision's print page to reproducible PDF bytes. @throws 502 saying why rendering failed. */
+/** What the print page shows: the frozen report, its sections and the title block, all fixed at approval. */
+export async function printViewOf(detail: Detail) {
+  const office = await officeStamp(detail.approvedBy?.officeVersion ?? null)
+  return { id: detail.id, titleBlock: titleBlockOf(detail, office), sections: detail.sections, reportHtml: detail.reportHtml, caution: CAUTION }
+}
+
+/**
+ * Renders the approved revision's print page to reproducible PDF bytes, in two passes at least: the
+ * first tells the page of every section heading, the next prints the contents and the page
+ * references with those numbers; one more pass if the numbers moved a heading to another page.
+ * @throws 502 saying why rendering failed, 503 when this server's renders are all busy.
+ */
 async function renderRevisionPdf(event: H3Event, detail: Detail, stamp: LogStamp | undefined): Promise<Rendered> {
-  const block = titleBlockOf(detail)
+  const { titleBlock: block } = await printViewOf(detail)
   const origin = printOrigin()
   const session = useRuntimeConfig().session as { name?: string }
   const cookieName = session.name || 'nuxt-session'
   const value = getCookie(event, cookieName)
   let html = ''
+  const render = (pages: string | null) => renderPdf({
+    onHtml: (page) => { html = page },
+    url: `${origin}/revisions/${detail.id}/print${pages === null ? '' : `?pages=${pages}`}`,
+    origin,
+    cookies: value ? [{ name: cookieName, value }] : [],
+    headerTemplate: headerTemplate(block),
+    footerTemplate: footerTemplate(block, stamp),
+  })
   try {
-    const raw = await renderPdf({
-      onHtml: (page) => { html = page },
-      url: `${origin}/revisions/${detail.id}/print`,
-      origin,
-      cookies: value ? [{ name: cookieName, value }] : [],
-      headerTemplate: headerTemplate(block),
-      footerTemplate: footerTemplate(block, stamp),
-    })
+    let raw = await render(null)
+    let pages = encodePages(detail.sections, await namedDestinationPages(raw))
+    for (let pass = 2; pass <= 3; pass++) {
+      raw = await render(pages)
+      const printed = encodePages(detail.sections, await namedDestinationPages(raw))
+      if (printed === pages) break
+      pages = printed
+    }
     const fixed = await makeReproducible(raw, {
       title: `${block.jobNumber} ${block.sheetReference} ${block.revision} ${block.title}`,
       subject: `${block.projectName}: ${block.title}`,

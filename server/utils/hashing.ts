@@ -70,6 +70,8 @@ export interface ReviewHashFields {
   comments: unknown
   reviewerId: number
   createdAt: Date
+  /** the office details frozen by an approval; absent from the hash when null, so older rows keep theirs */
+  officeVersion?: number | null
 }
 
 export function reviewHash(r: ReviewHashFields): string {
@@ -82,6 +84,7 @@ export function reviewHash(r: ReviewHashFields): string {
     comments: r.comments,
     reviewerId: r.reviewerId,
     createdAt: r.createdAt.toISOString(),
+    ...(r.officeVersion == null ? {} : { officeVersion: r.officeVersion }),
   })
 }
 

@@ -1,9 +1,12 @@
 import { z } from 'zod'
 import { textField } from '../../shared/schemas/text'
 
-export const revisionIdParams = z.object({
+/** A record's numeric id in the path (a revision, a review, a version of the office details). */
+export const idParams = z.object({
   id: z.coerce.number({ message: 'id must be a number' }).int().positive('id must be a positive whole number'),
 })
+
+export const revisionIdParams = idParams
 
 // the Issue dialog and this route share one schema
 export { issueRevisionSchema as issueBody } from '../../shared/schemas/issue'

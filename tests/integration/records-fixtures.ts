@@ -70,9 +70,9 @@ The governing force to balance the chosen load is :val[balancing.governing].
 :::
 `
 
-/** The first built-in pt-member template seeded in the database, else the fallback above. */
-async function templateId(conn: mysql.Connection) {
-  const [rows] = await conn.query('SELECT id FROM templates WHERE model = ? AND builtin = 1 ORDER BY (slug LIKE ?) DESC, id ASC LIMIT 1', ['pt-member', '%slab%'])
+/** The first built-in pt-member template seeded in the database (the slab strip unless `kind` says), else the fallback above. */
+async function templateId(conn: mysql.Connection, kind = 'slab') {
+  const [rows] = await conn.query('SELECT id FROM templates WHERE model = ? AND builtin = 1 ORDER BY (slug LIKE ?) DESC, id ASC LIMIT 1', ['pt-member', `%${kind}%`])
   const found = (rows as Array<{ id: number }>)[0]
   if (found) return found.id
   // INSERT IGNORE: the integration and e2e runs may both get here first
@@ -88,14 +88,14 @@ export async function userId(role: keyof typeof DEMO) {
   })
 }
 
-/** A new project with one calc sheet holding the PS-2 demo inputs. */
-export async function makeSheet(inputs: unknown = DEMO_PS2) {
+/** A new project with one calc sheet holding the PS-2 demo inputs (or others, on the template of the `kind` named). */
+export async function makeSheet(inputs: unknown = DEMO_PS2, kind = 'slab') {
   const engineer = await userId('engineer')
   return withDb(async (conn) => {
     const job = unique('R')
     const [p] = await conn.query('INSERT INTO projects (job_number, name, client, site, created_by) VALUES (?, ?, ?, ?, ?)', [job, 'Alder Yard podium (records test)', 'Alder Yard Developments (fictional)', 'Northgate', engineer])
     const projectId = (p as { insertId: number }).insertId
-    const [s] = await conn.query('INSERT INTO sheets (project_id, reference, title, part_of_structure, template_id, inputs, created_by, updated_by) VALUES (?, ?, ?, ?, ?, ?, ?, ?)', [projectId, 'PS-2', 'Podium slab strip', 'Level 1 podium', await templateId(conn), JSON.stringify(inputs), engineer, engineer])
+    const [s] = await conn.query('INSERT INTO sheets (project_id, reference, title, part_of_structure, template_id, inputs, created_by, updated_by) VALUES (?, ?, ?, ?, ?, ?, ?, ?)', [projectId, kind === 'slab' ? 'PS-2' : 'BB-1', kind === 'slab' ? 'Podium slab strip' : 'Band beam on grid C', 'Level 1 podium', await templateId(conn, kind), JSON.stringify(inputs), engineer, engineer])
     return { projectId, jobNumber: job, sheetId: (s as { insertId: number }).insertId }
   })
 }
