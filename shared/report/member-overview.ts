@@ -3,7 +3,7 @@
  * reader looks for first — prestress per metre (slab strip) or per beam, strands and their spacing,
  * average precompression, the share of the load balanced, the largest long-term deflection.
  */
-import type { Design } from '../engine/design/member'
+import type { Design } from '../engine/member/design'
 import { formatQuantity } from '../utils/units'
 import type { ModelOverview, OverviewRow } from './model'
 

@@ -4,9 +4,9 @@
 import zlib from 'node:zlib'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import type { Browser, Page } from 'playwright-core'
-import { DEMO_BB1, DEMO_PS2 } from '../../shared/engine/demo'
+import { DEMO_BB1, DEMO_PS2 } from '../../shared/engine/input/demo'
 import { launch, newPage, screenshot, signInAs } from '../helpers/browser'
-import { makeSheet, pdfText, session } from '../integration/records-fixtures'
+import { issue, makeSheet, pdfText, session } from '../integration/records-fixtures'
 
 let browser: Browser
 beforeAll(async () => { browser = await launch() })
@@ -97,7 +97,7 @@ describe('printing a revision', () => {
     const approved: number[] = []
     for (const [inputs, kind] of [[DEMO_PS2, 'slab'], [DEMO_BB1, 'band-beam']] as const) {
       const { sheetId } = await makeSheet(inputs, kind)
-      const issued = await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, { note: '' })
+      const issued = await issue(engineer, sheetId, { note: '' })
       expect(issued.status).toBe(201)
       expect((await checker.json('POST', `/api/revisions/${issued.body.id}/reviews`, { decision: 'approve', comments: [] })).status).toBe(201)
       approved.push(issued.body.id)

@@ -3,10 +3,10 @@
 // comments carried forward to the next revision with their state and the return e-mail.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser } from 'playwright-core'
-import { DEMO_PS2 } from '../../shared/engine/demo'
+import { DEMO_PS2 } from '../../shared/engine/input/demo'
 import { launch, newPage, screenshot, signInAs } from '../helpers/browser'
 import { DEMO } from '../helpers/client'
-import { makeSheet, session, setSheetInputs, waitForMail } from '../integration/records-fixtures'
+import { issue, makeSheet, session, setSheetInputs, waitForMail } from '../integration/records-fixtures'
 
 let browser: Browser
 beforeAll(async () => { browser = await launch() })
@@ -19,7 +19,7 @@ describe('the checker reviews a revision against the one before', () => {
   it('reads the diff by label and section, sees the tallies and the front page, and carries comments forward', async () => {
     const { sheetId } = await makeSheet()
     const engineer = await session('engineer')
-    const p01 = await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, { note: 'First issue' })
+    const p01 = await issue(engineer, sheetId, { note: 'First issue' })
     expect(p01.status).toBe(201)
 
     // the queue shows pass/fail counts and the governing utilisation
@@ -64,7 +64,7 @@ describe('the checker reviews a revision against the one before', () => {
     // P02: the depth changes; the support eccentricities change too, but the profile is not custom, so they change nothing
     const supportEcc = DEMO_PS2.geometry.spans.map(() => 40).concat([40])
     await setSheetInputs(sheetId, { ...DEMO_PS2, section: { ...DEMO_PS2.section, h: 280 }, profile: { ...DEMO_PS2.profile, mode: 'deepest', supportEcc } })
-    const p02 = await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, { note: 'Depth 280 mm after comments' })
+    const p02 = await issue(engineer, sheetId, { note: 'Depth 280 mm after comments' })
     expect(p02.status).toBe(201)
     await checker.goto(`/revisions/${p02.body.id}`)
     await checker.waitForLoadState('networkidle')

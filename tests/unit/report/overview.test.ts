@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
-import { designMember } from '../../../shared/engine/design/member'
-import { DEMO_BB1, DEMO_PS2 } from '../../../shared/engine/demo'
+import { designMember } from '../../../shared/engine/member/design'
+import { DEMO_BB1, DEMO_PS2 } from '../../../shared/engine/input/demo'
 import { compileSheet, renderSheet } from '../../../shared/sheet/runtime'
 import { PT_BAND_BEAM, PT_SLAB_STRIP } from '../../../shared/report/builtins/texts'
 import { ptMemberModel } from '../../../shared/report/models'
