@@ -29,7 +29,7 @@ describe('text with a broken character', () => {
     ['sheet title', sheetCreateSchema, { reference: 'PS-2', title: `Slab ${LONE}`, templateId: 1 }, 'title', 'Title'],
     ['part of structure', sheetCreateSchema, { reference: 'PS-2', title: 'Slab', partOfStructure: LONE, templateId: 1 }, 'partOfStructure', 'Part of structure'],
     ['template text', templatePublishSchema, { slug: 'office-slab', body: `${'x'.repeat(30)}${LONE}` }, 'body', 'Template text'],
-    ['issue note', issueBody, { note: LONE, draftVersion: 1 }, 'note', 'Note'],
+    ['issue note', issueBody, { note: LONE, draftVersion: 1 }, 'note', 'Note for the checker'],
     ['comment', reviewBody, { decision: 'return', comments: [{ text: LONE }] }, 'comments.0.text', 'Comment'],
     ['comment section', reviewBody, { decision: 'return', comments: [{ anchor: LONE, text: 'ok' }] }, 'comments.0.anchor', 'Section'],
     ['archive search', archiveQuery, { q: LONE }, 'q', 'Search'],
