@@ -8,7 +8,7 @@
 // so tests never touch the demo data. Both are settings (see `settings` below), so several
 // instances and test runs can live on one machine side by side.
 import { spawn, spawnSync, execFileSync } from 'node:child_process'
-import { randomBytes } from 'node:crypto'
+import { generateKeyPairSync, randomBytes } from 'node:crypto'
 import { existsSync, mkdirSync, readFileSync, writeFileSync, openSync } from 'node:fs'
 import { dirname, join, resolve } from 'node:path'
 import { fileURLToPath } from 'node:url'
@@ -16,7 +16,7 @@ import { fileURLToPath } from 'node:url'
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '..')
 
 /** Tables whose rows may never change once written: the app user gets SELECT and INSERT only. */
-export const APPEND_ONLY_TABLES = ['revisions', 'reviews', 'seals', 'audit_events', 'attachments', 'templates']
+export const APPEND_ONLY_TABLES = ['revisions', 'reviews', 'seals', 'audit_events', 'attachments', 'templates', 'log_leaves', 'log_heads']
 
 /**
  * Every port and folder of a run, from the environment with today's values as defaults:
@@ -105,6 +105,25 @@ export function secrets(inst) {
   }
   writeFileSync(file, JSON.stringify(value, null, 2), { mode: 0o600 })
   return value
+}
+
+/**
+ * The Ed25519 key that signs the history log's tree heads: made once beside the data, mode 0600,
+ * never in the database (whoever can write the database must not be able to sign) nor committed.
+ */
+export function logSigningKeyPath(inst) {
+  const file = join(inst.base, 'log-signing-key.pem')
+  if (existsSync(file)) return file
+  mkdirSync(inst.base, { recursive: true })
+  const { privateKey } = generateKeyPairSync('ed25519')
+  try {
+    writeFileSync(file, privateKey.export({ type: 'pkcs8', format: 'pem' }), { mode: 0o600, flag: 'wx' })
+  }
+  catch (error) {
+    // another process made it first: theirs is the key
+    if (error.code !== 'EEXIST') throw error
+  }
+  return file
 }
 
 export function admin(inst, args, options = {}) {
@@ -264,6 +283,7 @@ export function serverEnv(inst) {
     NUXT_DATABASE_NAME: inst.database,
     NUXT_SESSION_PASSWORD: sessionPassword,
     NUXT_STORAGE_BASE: join(inst.base, 'files'),
+    NUXT_LOG_SIGNING_KEY_PATH: logSigningKeyPath(inst),
   }
 }
 

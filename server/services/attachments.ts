@@ -37,8 +37,9 @@ export async function uploadAttachment(event: H3Event, sheetId: number, user: Se
   const storageKey = generatedKey(`attachments:${sheetId}`, extension)
   await writeStored(storageKey, bytes)
   const filename = safeName(part.filename ?? '')
-  const id = await useDb().transaction(async (tx) => {
+  const id = await historyTransaction(async (tx) => {
     const [{ id }] = await tx.insert(tables.attachments).values({ sheetId, storageKey, filename, mime: detected.mime, bytes: bytes.length, sha256, uploadedBy: user.id, createdAt: new Date() }).$returningId()
+    await logWrittenRow(tx, 'attachment', id)
     await recordAudit(event, { action: 'attachment.uploaded', subject: `${sheet.reference}: ${filename}`, actorId: user.id, detail: { attachmentId: id, sha256, mime: detected.mime } }, tx)
     return id
   })

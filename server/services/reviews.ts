@@ -10,13 +10,13 @@ type SessionUser = { id: number, name: string, email: string, role: import('../.
  * Records a checker's decision (return with comments, approve) or a comment on a revision, with its
  * audit event and e-mail notices, in one transaction. The sheet is locked so a decision and a new
  * issue of the same sheet cannot cross.
- * @throws 403 when the author tries to approve, 409 when the revision is no longer open for a decision.
+ * @throws 403 when the author tries to return or approve, 409 when the revision is no longer open for a decision.
  */
 export async function reviewRevision(event: H3Event, revisionId: number, body: ReviewBody, user: SessionUser) {
   if (body.decision !== 'comment' && user.role !== 'checker' && user.role !== 'admin') {
     throw createError({ statusCode: 403, message: `Returning or approving a revision needs the checker role; you are signed in as ${user.role}` })
   }
-  await useDb().transaction(async (tx) => {
+  await historyTransaction(async (tx) => {
     const [rev] = await tx.select({ id: tables.revisions.id, sheetId: tables.revisions.sheetId, code: tables.revisions.code, authorId: tables.revisions.authorId, sections: tables.revisions.reportSections })
       .from(tables.revisions).where(eq(tables.revisions.id, revisionId))
     if (!rev) throw createError({ statusCode: 404, message: `No revision with id ${revisionId}` })
@@ -32,8 +32,8 @@ export async function reviewRevision(event: H3Event, revisionId: number, body: R
     if (body.decision !== 'comment' && status.status !== 'issued') {
       throw createError({ statusCode: 409, message: `${sheet!.reference} ${rev.code} is ${status.label.toLowerCase()}: it is no longer open for a decision` })
     }
-    if (body.decision === 'approve' && rev.authorId === user.id) {
-      throw createError({ statusCode: 403, message: `You authored ${sheet!.reference} ${rev.code}: a revision must be approved by someone other than its author` })
+    if (body.decision !== 'comment' && rev.authorId === user.id) {
+      throw createError({ statusCode: 403, message: `You authored ${sheet!.reference} ${rev.code}: a revision must be ${body.decision === 'approve' ? 'approved' : 'returned'} by someone other than its author` })
     }
     let contractCode: string | null = null
     if (body.decision === 'approve') {
@@ -43,6 +43,7 @@ export async function reviewRevision(event: H3Event, revisionId: number, body: R
     const fields = { revisionId: rev.id, sheetId: rev.sheetId, decision: body.decision, contractCode, comments: plainJson(body.comments), reviewerId: user.id, createdAt: new Date() }
     const contentHash = reviewHash(fields)
     const [{ id }] = await tx.insert(tables.reviews).values({ ...fields, contentHash }).$returningId()
+    await logWrittenRow(tx, 'review', id, { hash: contentHash, of: reviewHash })
     const subject = `${project!.jobNumber}/${sheet!.reference} ${rev.code}`
     const action = body.decision === 'approve' ? 'revision.approved' : body.decision === 'return' ? 'revision.returned' : 'revision.commented'
     await recordAudit(event, { action, subject, actorId: user.id, detail: { revisionId: rev.id, reviewId: id, contractCode, comments: body.comments.length } }, tx)

@@ -2,7 +2,7 @@ import type { H3Event } from 'h3'
 import { eq } from 'drizzle-orm'
 import { sha256Hex, verificationRef } from '../utils/hashing'
 import { makeReproducible, PdfBusyError, PdfRenderError, printOrigin, renderPdf } from '../utils/pdf'
-import { footerTemplate, headerTemplate, isoDay, type TitleBlock } from '../utils/print-templates'
+import { footerTemplate, headerTemplate, isoDay, logStampKeywords, type LogStamp, type TitleBlock } from '../utils/print-templates'
 
 type SessionUser = { id: number, name: string, email: string, role: import('../../shared/types/roles').Role }
 type Detail = Awaited<ReturnType<typeof getRevisionDetail>>
@@ -39,11 +39,11 @@ export function titleBlockOf(detail: Detail): TitleBlock {
  * most) and take the agreed bytes with the print page they came from.
  * @throws 502 when no two renders agree.
  */
-async function agreedRevisionPdf(event: H3Event, detail: Detail, accept?: (sha256: string) => boolean) {
+async function agreedRevisionPdf(event: H3Event, detail: Detail, stamp: LogStamp | undefined, accept?: (sha256: string) => boolean) {
   const seen = new Map<string, number>()
   let last: Rendered | null = null
   for (let attempt = 1; attempt <= 3; attempt++) {
-    last = await renderRevisionPdf(event, detail)
+    last = await renderRevisionPdf(event, detail, stamp)
     const sha = sha256Hex(last.bytes)
     if (accept?.(sha) || seen.has(sha)) return { ...last, sha256: sha, renders: attempt, agreed: true }
     seen.set(sha, attempt)
@@ -58,7 +58,7 @@ type Rendered = { bytes: Uint8Array, pages: number, html: string }
 const printPageKey = (pdfKey: string) => pdfKey.replace(/\.pdf$/, '.print.html')
 
 /** Renders the approved revision's print page to reproducible PDF bytes. @throws 502 saying why rendering failed. */
-async function renderRevisionPdf(event: H3Event, detail: Detail): Promise<Rendered> {
+async function renderRevisionPdf(event: H3Event, detail: Detail, stamp: LogStamp | undefined): Promise<Rendered> {
   const block = titleBlockOf(detail)
   const origin = printOrigin()
   const session = useRuntimeConfig().session as { name?: string }
@@ -72,12 +72,12 @@ async function renderRevisionPdf(event: H3Event, detail: Detail): Promise<Render
       origin,
       cookies: value ? [{ name: cookieName, value }] : [],
       headerTemplate: headerTemplate(block),
-      footerTemplate: footerTemplate(block),
+      footerTemplate: footerTemplate(block, stamp),
     })
     const fixed = await makeReproducible(raw, {
       title: `${block.jobNumber} ${block.sheetReference} ${block.revision} ${block.title}`,
       subject: `${block.projectName}: ${block.title}`,
-      keywords: [block.archiveRef, block.verificationRef, detail.contentHash],
+      keywords: [block.archiveRef, block.verificationRef, detail.contentHash, ...(stamp ? logStampKeywords(stamp) : [])],
       date: new Date(detail.approvedBy?.at ?? detail.issuedAt),
       documentId: detail.contentHash.slice(0, 32),
     })
@@ -91,6 +91,26 @@ async function renderRevisionPdf(event: H3Event, detail: Detail): Promise<Render
     const reason = error instanceof PdfRenderError ? error.message : error instanceof Error ? error.message : String(error)
     throw createError({ statusCode: 502, message: `The PDF could not be rendered: ${reason}` })
   }
+}
+
+/**
+ * The revision's leaf and the latest signed head, which covers it and its approval: what the
+ * sealed PDF prints. @throws 409 when the revision is not in the history log.
+ */
+async function logStampFor(detail: Detail): Promise<LogStamp> {
+  const head = await publishHead()
+  const leafIndex = await leafIndexOf('revision', detail.id)
+  if (leafIndex === null || leafIndex >= head.treeSize) {
+    throw createError({ statusCode: 409, message: `${detail.sheet.reference} ${detail.code} is not in the history log, so it cannot be sealed; run the chain verification` })
+  }
+  return { leafIndex, treeSize: head.treeSize, rootHash: head.rootHash }
+}
+
+/** The stamp a seal was made with (none on seals made before the history log). */
+function sealedStamp(seal: NonNullable<Detail['seal']>): LogStamp | undefined {
+  return seal.logLeafIndex !== null && seal.headTreeSize !== null && seal.headRootHash !== null
+    ? { leafIndex: seal.logLeafIndex, treeSize: seal.headTreeSize, rootHash: seal.headRootHash }
+    : undefined
 }
 
 /**
@@ -116,18 +136,21 @@ export async function sealRevision(event: H3Event, revisionId: number, user: Ses
   if (detail.status.status !== 'approved') {
     throw createError({ statusCode: 409, message: `${detail.sheet.reference} ${detail.code} is ${detail.status.label.toLowerCase()}: only an approved, unsealed revision can be sealed` })
   }
-  const { bytes, pages, html, sha256: pdfSha256 } = await agreedRevisionPdf(event, detail)
+  const stamp = await logStampFor(detail)
+  const { bytes, pages, html, sha256: pdfSha256 } = await agreedRevisionPdf(event, detail, stamp)
   const archiveRef = archiveRefOf(detail)
   const storageKey = generatedKey('seals', 'pdf')
   await writeStored(storageKey, bytes)
   await writeStored(printPageKey(storageKey), new TextEncoder().encode(html))
   try {
-    await withRetry(() => useDb().transaction(async (tx) => {
-      await tx.insert(tables.seals).values({
+    await withRetry(() => historyTransaction(async (tx) => {
+      const [{ id }] = await tx.insert(tables.seals).values({
         revisionId, archiveRef, verificationRef: verificationRef(detail.contentHash), storageKey, pdfSha256,
         pdfBytes: bytes.length, pages, sealedBy: user.id, sealedAt: new Date(),
-      })
-      await recordAudit(event, { action: 'revision.sealed', subject: archiveRef, actorId: user.id, detail: { revisionId, pdfSha256, pages } }, tx)
+        logLeafIndex: stamp.leafIndex, headTreeSize: stamp.treeSize, headRootHash: stamp.rootHash,
+      }).$returningId()
+      await logWrittenRow(tx, 'seal', id)
+      await recordAudit(event, { action: 'revision.sealed', subject: archiveRef, actorId: user.id, detail: { revisionId, sealId: id, pdfSha256, pages } }, tx)
     }), `${archiveRef} could not be sealed because the records changed a moment ago: try again`)
   }
   catch (error) {
@@ -154,7 +177,7 @@ export async function resealCheck(event: H3Event, revisionId: number, user: Sess
   const detail = await getRevisionDetail(revisionId, user)
   if (!detail.seal) throw createError({ statusCode: 409, message: `${detail.sheet.reference} ${detail.code} is not sealed` })
   const sealed = detail.seal.pdfSha256
-  const { bytes, html, sha256: renderedSha256, renders } = await agreedRevisionPdf(event, detail, sha => sha === sealed)
+  const { bytes, html, sha256: renderedSha256, renders } = await agreedRevisionPdf(event, detail, sealedStamp(detail.seal), sha => sha === sealed)
   const identical = renderedSha256 === sealed
   let kept: { pdf: string, printPage: string, printPageChanged: boolean | null } | null = null
   if (!identical) {

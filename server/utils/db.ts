@@ -115,6 +115,11 @@ class FailoverPool {
     }, () => true)
   }
 
+  /** The current host's mysql2 pool, for libraries that speak to MariaDB themselves. */
+  currentPool() {
+    return this.pool(this.current)
+  }
+
   async end() {
     await Promise.all(this.pools.map(p => p?.end()))
     this.pools = []
@@ -180,6 +185,12 @@ export async function withRetry<T>(fn: () => Promise<T>, message: string, attemp
       await new Promise(r => setTimeout(r, 25 * 2 ** attempt + Math.random() * 50))
     }
   }
+}
+
+/** The mysql2 pool under useDb(), for libraries that speak to MariaDB themselves. */
+export function usePool() {
+  useDb()
+  return pool!.currentPool()
 }
 
 export async function closeDb() {

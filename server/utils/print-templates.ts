@@ -47,8 +47,24 @@ export function headerTemplate(t: TitleBlock): string {
 </table></div>`
 }
 
-export function footerTemplate(t: TitleBlock): string {
+/**
+ * Where a sealed revision stands in the history log: its leaf, and the signed head it was sealed
+ * under. Fixed at sealing (stored on the seal row), so a re-render prints the same.
+ */
+export interface LogStamp {
+  leafIndex: number
+  treeSize: number
+  rootHash: string
+}
+
+/** The stamp as the PDF's keywords carry it, for the offline verifier to read back. */
+export function logStampKeywords(stamp: LogStamp): string[] {
+  return [`log-leaf:${stamp.leafIndex}`, `log-head:${stamp.treeSize}:${stamp.rootHash}`]
+}
+
+export function footerTemplate(t: TitleBlock, stamp?: LogStamp): string {
+  const log = stamp ? `<div>History log leaf ${stamp.leafIndex} · sealed under signed head size ${stamp.treeSize}, root ${escapeHtml(stamp.rootHash)}</div>\n` : ''
   return `<div style="width:100%;margin:0 16mm;font-family:'DejaVu Sans','Liberation Sans',sans-serif;font-size:6.4pt;color:#374151;border-top:0.6pt solid #1f2937;padding-top:1.2mm;">
 <div>Archive ${escapeHtml(t.archiveRef)} · verification ${escapeHtml(t.verificationRef)} · content SHA-256 ${escapeHtml(t.contentHash)}</div>
-<div style="margin-top:0.6mm;">${escapeHtml(CAUTION)}</div></div>`
+${log}<div style="margin-top:0.6mm;">${escapeHtml(CAUTION)}</div></div>`
 }

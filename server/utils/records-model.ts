@@ -2,8 +2,8 @@
 // report rendered from the sheet's own template version, through the same sheet runtime the
 // editor uses (shared/sheet/runtime.ts), so the frozen document is what the engineer saw.
 import type { CheckResult } from '../../shared/engine/contract'
-import { specFor } from '../../shared/engine/catalogue'
-import { designMember } from '../../shared/engine/design/member'
+import { specFor } from '../../shared/engine/results/specs'
+import { designMember } from '../../shared/engine/member/design'
 import { compileSheet, renderSheet } from '../../shared/sheet/runtime'
 
 export interface FrozenRun {

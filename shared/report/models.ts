@@ -3,11 +3,13 @@
  * post-tensioned continuous member of shared/engine (designMember), with its input schema, its
  * result catalogue and its figures drawn from Design.series.
  */
-import { RESULT_SPECS, specFor } from '../engine/catalogue'
-import { DEMO_BB1, DEMO_PS2 } from '../engine/demo'
-import { designMember } from '../engine/design/member'
-import type { CriticalSection, Design } from '../engine/design/member'
-import { INPUT_GROUPS, inputFieldSpecs, memberInputSchema } from '../engine/schema'
+import { RESULT_SPECS, specFor } from '../engine/results/specs'
+import { DEMO_BB1, DEMO_PS2 } from '../engine/input/demo'
+import { designMember } from '../engine/member/design'
+import type { Design } from '../engine/member/design'
+import type { CriticalSection } from '../engine/member/stress-limits'
+import { INPUT_GROUPS, memberInputSchema } from '../engine/input/schema'
+import { inputFieldSpecs } from '../engine/input/field-specs'
 import { getPath } from '../utils/paths'
 import { magnelSvg } from './figures/magnel'
 import { momentDiagramSvg } from './figures/moments'

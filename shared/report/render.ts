@@ -26,6 +26,8 @@ export interface RenderOptions {
   /** the engine's results; null or undefined when the engine could not run */
   results: unknown
   mode: RenderMode
+  /** the words an editable drop-down shows for an option id of the input at `path` (default: the id) */
+  optionLabel?: (path: string, option: string) => string
 }
 
 export interface ReportSection {
@@ -61,6 +63,7 @@ interface ReportEnv {
   completedInputs: unknown
   results: unknown
   mode: RenderMode
+  optionLabel: (path: string, option: string) => string
   checks: readonly CheckResult[]
   scopes: PathScope[]
   ids: Map<string, number>
@@ -210,7 +213,7 @@ function renderInput(meta: InlineMeta, env: ReportEnv): string {
   let control: string
   if (options && !whole) {
     const chosen = typeof value === 'string' ? value : ''
-    const items = options.map((o) => `<option value="${escapeHtml(o)}"${o === chosen ? ' selected' : ''}>${escapeHtml(o)}</option>`).join('')
+    const items = options.map((o) => `<option value="${escapeHtml(o)}"${o === chosen ? ' selected' : ''}>${escapeHtml(env.optionLabel(fieldPath, o))}</option>`).join('')
     control = `<select class="tb-input" id="${id}" data-key="${key}" aria-label="${label}">${items}</select>`
   } else {
     const kind = whole ? 'list' : 'number'
@@ -442,6 +445,7 @@ export function renderReport(compiled: CompiledTemplate, options: RenderOptions)
     completedInputs: hasResults && model.inputOf ? model.inputOf(options.results) : undefined,
     results: options.results,
     mode: options.mode,
+    optionLabel: options.optionLabel ?? ((_path, option) => option),
     checks: hasResults ? model.checksOf(options.results) : [],
     scopes: [],
     ids: new Map(),

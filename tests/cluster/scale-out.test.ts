@@ -9,7 +9,7 @@ import { describe, expect, it } from 'vitest'
 import { sha256Hex } from '../../server/utils/hashing'
 import { DEMO } from '../helpers/client'
 import { withDb } from '../helpers/db'
-import { makeSheet } from '../integration/records-fixtures'
+import { issue, makeSheet } from '../integration/records-fixtures'
 import {
   A, B, on, onNode, received, record, rowCounts, signIn, startNode, stopNode, theCluster, waitForCluster, wsrepStatus,
 } from './cluster-fixtures'
@@ -62,7 +62,7 @@ describe('the records flow across instances', () => {
   it('issued on A, approved on B, sealed on A into S3, downloaded from B; sealing again on B gives the first seal', async () => {
     const { sheetId, jobNumber } = await makeSheet()
     const engineer = await signIn('engineer', A)
-    const issued = await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, { note: 'cluster flow' })
+    const issued = await issue(engineer, sheetId, { note: 'cluster flow' })
     expect(issued.status, JSON.stringify(issued.body)).toBe(201)
     const checker = await signIn('checker', B)
     const approved = await checker.json('POST', `/api/revisions/${issued.body.id}/reviews`, { decision: 'approve', comments: [] })
@@ -93,7 +93,7 @@ describe('the records flow across instances', () => {
   it('two instances asked to seal one revision at once make one seal and both answer with it', async () => {
     const { sheetId } = await makeSheet()
     const engineer = await signIn('engineer', B)
-    const issued = await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, { note: 'sealed twice at once' })
+    const issued = await issue(engineer, sheetId, { note: 'sealed twice at once' })
     const checker = await signIn('checker', A)
     expect((await checker.json('POST', `/api/revisions/${issued.body.id}/reviews`, { decision: 'approve', comments: [] })).status).toBe(201)
     const records = await signIn('records', A)
@@ -114,7 +114,7 @@ describe('concurrent issues of one sheet on two nodes', () => {
     const statuses: number[] = []
     const codes: string[] = []
     for (let round = 0; round < 4; round++) {
-      const answers = await Promise.all([onA, onB].map(s => s.json('POST', `/api/sheets/${sheetId}/revisions`, { note: `round ${round}` })))
+      const answers = await Promise.all([onA, onB].map(s => issue(s, sheetId, { note: `round ${round}` })))
       for (const a of answers) {
         statuses.push(a.status)
         if (a.status === 201) codes.push(a.body.code)
@@ -152,7 +152,7 @@ describe('one node stops in the middle of a run', () => {
         const read = await s.json('GET', i % 2 ? '/api/auth/me' : `/api/sheets/${sheetId}/revisions`).catch(() => ({ status: 0, body: null }))
         results.push({ phase, instance: name, status: read.status })
         if (i % 3 === 0) {
-          const write = await s.json('POST', `/api/sheets/${sheetId}/revisions`, { note: `${name} ${i}` }).catch(() => ({ status: 0, body: null }))
+          const write = await issue(s, sheetId, { note: `${name} ${i}` }).catch(() => ({ status: 0, body: null }))
           results.push({ phase, instance: name, status: write.status, id: write.status === 201 ? (write.body as { id: number }).id : undefined })
         }
       }

@@ -5,7 +5,7 @@ import { readdirSync, readFileSync } from 'node:fs'
 import { dirname, join, resolve } from 'node:path'
 import mysql from 'mysql2/promise'
 import { inject } from 'vitest'
-import { DEMO_PS2 } from '../../shared/engine/demo'
+import { DEMO_PS2 } from '../../shared/engine/input/demo'
 import { DEMO, unique } from '../helpers/client'
 import { withDb } from '../helpers/db'
 
@@ -23,8 +23,8 @@ export class Session {
     return res
   }
 
-  async json<T = any>(method: string, path: string, body?: unknown): Promise<{ status: number, body: T }> {
-    const res = await this.fetch(path, { method, headers: body === undefined ? {} : { 'content-type': 'application/json' }, body: body === undefined ? undefined : JSON.stringify(body) })
+  async json<T = any>(method: string, path: string, body?: unknown, headers: Record<string, string> = {}): Promise<{ status: number, body: T }> {
+    const res = await this.fetch(path, { method, headers: { ...(body === undefined ? {} : { 'content-type': 'application/json' }), ...headers }, body: body === undefined ? undefined : JSON.stringify(body) })
     const text = await res.text()
     let parsed: unknown = text
     try {
@@ -100,8 +100,21 @@ export async function makeSheet(inputs: unknown = DEMO_PS2) {
   })
 }
 
+/** A save of the draft, as the editor's would be: new inputs, the next draft version. */
 export async function setSheetInputs(sheetId: number, inputs: unknown) {
-  await withDb(conn => conn.query('UPDATE sheets SET inputs = ? WHERE id = ?', [JSON.stringify(inputs), sheetId]))
+  await withDb(conn => conn.query('UPDATE sheets SET inputs = ?, draft_version = draft_version + 1 WHERE id = ?', [JSON.stringify(inputs), sheetId]))
+}
+
+export async function draftVersionOf(sheetId: number) {
+  return withDb(async (conn) => {
+    const [rows] = await conn.query('SELECT draft_version AS v FROM sheets WHERE id = ?', [sheetId])
+    return (rows as Array<{ v: number }>)[0]?.v ?? 1
+  })
+}
+
+/** Issues the sheet's draft as the editor does: naming the draft version on screen, the latest. */
+export async function issue(s: Session, sheetId: number, body: Record<string, unknown> = {}) {
+  return s.json('POST', `/api/sheets/${sheetId}/revisions`, { draftVersion: await draftVersionOf(sheetId), ...body })
 }
 
 /** Root over the test instance's socket: the one connection that may drop a trigger. */
@@ -161,4 +174,29 @@ export async function pdfText(bytes: Uint8Array) {
     pages.push(content.items.map(item => ('str' in item ? item.str : '')).join(' '))
   }
   return { pages, numPages: doc.numPages }
+}
+
+/**
+ * Runs `fn` as root with the named triggers dropped, then puts them back from the migrations
+ * whatever happens: how the tests rewrite history behind the application's back.
+ */
+export async function withoutTriggers<T>(names: string[], fn: (conn: mysql.Connection) => Promise<T>): Promise<T> {
+  const restore = names.map(triggerSql)
+  return withRoot(async (conn) => {
+    try {
+      for (const name of names) await conn.query(`DROP TRIGGER IF EXISTS \`${name}\``)
+      return await fn(conn)
+    }
+    finally {
+      for (const name of names) await conn.query(`DROP TRIGGER IF EXISTS \`${name}\``)
+      for (const sql of restore) await conn.query(sql)
+    }
+  })
+}
+
+/** Every break the chain verification lists, as records. */
+export async function chainBreaks(records: Session) {
+  const res = await records.json('POST', '/api/chain/verify')
+  if (res.status !== 200) throw new Error(`chain verification failed: ${res.status} ${JSON.stringify(res.body)}`)
+  return res.body as { ok: boolean, breaks: Array<{ chain: string, id: number, label: string, problem: string, reason: string }> }
 }

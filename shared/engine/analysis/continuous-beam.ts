@@ -1,14 +1,34 @@
 /**
- * Continuous beam on rigid supports by the stiffness (slope-deflection) method, one rotation per
- * support. Sign conventions (fixed for the whole engine): sagging moment positive, gravity loads
- * positive downward, reactions positive upward, couples positive counter-clockwise. x is measured
+ * Continuous beam by the stiffness (slope–deflection) method, one rotation per support, solved as a
+ * tridiagonal system: O(n) time and memory in the number of spans. Sign conventions (fixed for the
+ * whole engine): sagging moment positive, gravity loads positive downward, reactions positive
+ * upward, couples positive counter-clockwise, rotations counter-clockwise positive. x is measured
  * from the left support of each span. momentAt(span, 0) is the value just inside the span (0⁺) and
  * momentAt(span, L) the value at L⁻, so anchorage couples at the ends show in the end moments.
+ *
+ * Supports: 'pinned' (free to rotate, with an optional rotational spring — the columns above and
+ * below), 'fixed' (no rotation), 'free' (no support; only at an end: the span next to it is a
+ * cantilever, statically determinate, whose root moment loads the rest of the beam).
+ * Spans may be non-prismatic: EI given as segments { from, to, EI } covering the span. The
+ * flexibility coefficients are the unit-load (virtual work) integrals ∫ m·m'/EI dx, evaluated by
+ * Simpson's rule between the segment ends and load discontinuities — exact for piecewise-constant
+ * EI, since every integrand is then a polynomial of degree ≤ 3 on each interval.
  */
 import { EngineInputError } from '../contract'
-import { solveLinear } from './linear'
+import { factorTridiagonal } from './linear'
+import type { TridiagonalFactors } from './linear'
 
-export type SupportKind = 'pinned' | 'fixed'
+export type SupportKind = 'pinned' | 'fixed' | 'free'
+
+/** A length of span with constant flexural stiffness, x from the span's left support, mm and N·mm². */
+export interface EISegment {
+  from: number
+  to: number
+  EI: number
+}
+
+/** Flexural stiffness of one span: a constant, or segments covering the span (drop panel, haunch). */
+export type SpanEI = number | EISegment[]
 
 export type BeamLoad =
   | { kind: 'udl'; span: number; w: number }
@@ -16,31 +36,68 @@ export type BeamLoad =
   | { kind: 'point'; span: number; at: number; P: number }
   | { kind: 'couple'; span: number; at: number; M: number }
 
-export interface ContinuousBeamInput {
+/** The beam without its loads: spans, stiffness, supports and rotational springs. */
+export interface BeamModelInput {
   spans: number[]
-  EI?: number | number[]
+  /** one value for all spans, or one per span (a number or segments); default 1 (moments do not depend on a common EI) */
+  EI?: number | SpanEI[]
+  /** one per support (spans + 1); default all pinned; 'free' only at an end */
   supports?: SupportKind[]
+  /**
+   * rotational stiffness at each support, N·mm/rad (spans + 1 values; 0 = none): the columns
+   * above and below the support, each from columnStiffness(); the caller adds them. Acts at pinned
+   * supports; irrelevant at fixed ones; must be 0 at a free end.
+   */
+  springs?: number[]
+}
+
+export interface ContinuousBeamInput extends BeamModelInput {
   loads: BeamLoad[]
 }
 
 export interface ContinuousBeamResult {
-  /** bending moment at each support (sagging positive), N·mm */
+  /** bending moment at each support (sagging positive), N·mm: momentAt(j, 0⁺), the last at L⁻ */
   supportMoments: number[]
-  /** reaction at each support (upward positive), N */
+  /** reaction at each support (upward positive), N; 0 at a free end */
   reactions: number[]
+  /**
+   * couple reaction of each support on the beam (counter-clockwise positive), N·mm: the fixed
+   * support's or the columns' moment; it equals M(left of the support) − M(right of it)
+   */
+  reactionCouples: number[]
+  /** rotation at each support (counter-clockwise positive), rad when EI is in N·mm² */
+  rotations: number[]
   momentAt(span: number, x: number): number
   shearAt(span: number, x: number): number
 }
 
-/** Simply supported span: moment M0(x), shear V0(x), ∫M0 dx and ∫M0·x dx of one load. */
+/** Rotational stiffness of a column at the joint, N·mm/rad (slope–deflection: 4EI/H far end fixed, 3EI/H pinned). */
+export function columnStiffness(input: { E: number; I: number; height: number; farEnd: 'fixed' | 'pinned' }): number {
+  const { E, I, height, farEnd } = input
+  if (!(E > 0) || !Number.isFinite(E)) throw new EngineInputError('E', 'the column modulus must be a positive number')
+  if (!(I > 0) || !Number.isFinite(I)) throw new EngineInputError('I', 'the column second moment of area must be a positive number')
+  if (!(height > 0) || !Number.isFinite(height)) throw new EngineInputError('height', 'the column height must be a positive number')
+  if (farEnd !== 'fixed' && farEnd !== 'pinned') throw new EngineInputError('farEnd', "the column's far end must be 'fixed' or 'pinned'")
+  return farEnd === 'fixed' ? (4 * E * I) / height : (3 * E * I) / height // slope–deflection: 4EI/H, 3EI/H
+}
+
+const NO_LOADS: readonly SimpleSpan[] = []
+
+/** Simply supported span under one load: moment, shear, end reactions and its breakpoints. */
 interface SimpleSpan {
+  /** moment at x; at a couple the value on its left, except at x = 0 where it is 0⁺ */
   M0(x: number): number
+  /** one-sided moment: side −1 the limit from the left, +1 from the right */
+  M0side(x: number, side: -1 | 1): number
   V0(x: number): number
+  /** ∫M0 dx and ∫M0·x dx over the span (closed forms, for prismatic spans) */
   area: number
   firstMoment: number
   /** end reactions of the simple span (upward +); a load right at a support goes to that support */
   RA: number
   RB: number
+  /** interior points where M0 is not a single polynomial */
+  breaks: number[]
 }
 
 function simpleSpan(load: BeamLoad, L: number): SimpleSpan {
@@ -54,18 +111,16 @@ function simpleSpan(load: BeamLoad, L: number): SimpleSpan {
       const W = w * (b - a)
       const RA = (W * (L - (a + b) / 2)) / L // statics of the simple span
       const loadedLeft = (x: number): number => Math.max(0, Math.min(x, b) - a)
-      // Integrals of the point-load results a(L−a)/2 and a(L²−a²)/6 over the loaded length (statics)
-      const F1 = (s: number): number => (L * s * s) / 2 - (s * s * s) / 3
-      const F2 = (s: number): number => (L * L * s * s) / 2 - (s * s * s * s) / 4
+      const M0 = (x: number): number => {
+        const l = loadedLeft(x)
+        return RA * x - w * l * (x - (a + l / 2))
+      }
+      // integrals of the point-load results a(L−a)/2 and a(L²−a²)/6 over the loaded length (statics)
+      const F1 = (t: number): number => (L * t * t) / 2 - (t * t * t) / 3
+      const F2 = (t: number): number => (L * L * t * t) / 2 - (t * t * t * t) / 4
       return {
-        M0: (x) => {
-          const l = loadedLeft(x)
-          return RA * x - w * l * (x - (a + l / 2))
-        },
-        V0: (x) => RA - w * loadedLeft(x),
+        M0, M0side: M0, V0: (x) => RA - w * loadedLeft(x), RA, RB: W - RA, breaks: [a, b],
         area: (w / 2) * (F1(b) - F1(a)),
-        RA,
-        RB: W - RA,
         firstMoment: (w / 6) * (F2(b) - F2(a)),
       }
     }
@@ -73,12 +128,10 @@ function simpleSpan(load: BeamLoad, L: number): SimpleSpan {
       const a = load.at
       const P = load.P
       const RA = (P * (L - a)) / L // statics of the simple span
+      const M0 = (x: number): number => (x <= a ? RA * x : RA * x - P * (x - a))
       return {
-        M0: (x) => (x <= a ? RA * x : RA * x - P * (x - a)),
-        V0: (x) => (x < a ? RA : RA - P),
+        M0, M0side: M0, V0: (x) => (x < a ? RA : RA - P), RA, RB: P - RA, breaks: [a],
         area: (P * a * (L - a)) / 2,
-        RA,
-        RB: P - RA,
         firstMoment: (P * a * (L - a) * (L + a)) / 6,
       }
     }
@@ -86,13 +139,15 @@ function simpleSpan(load: BeamLoad, L: number): SimpleSpan {
       const c = load.at
       const M = load.M
       // a counter-clockwise couple M: RA = M/L up, RB = −M/L; the moment drops by M across c
-      const included = (x: number): boolean => c < x || c === 0
+      const value = (x: number, included: boolean): number => (included ? (M * x) / L - M : (M * x) / L)
       return {
-        M0: (x) => (included(x) ? (M * x) / L - M : (M * x) / L),
+        M0: (x) => value(x, c < x || c === 0),
+        M0side: (x, side) => value(x, side > 0 ? c <= x : c < x),
         V0: () => M / L,
-        area: (M * (2 * c - L)) / 2,
         RA: M / L,
         RB: -M / L,
+        breaks: [c],
+        area: (M * (2 * c - L)) / 2,
         firstMoment: (M * c * c * c) / (3 * L) - (M / L) * ((L * (L * L - c * c)) / 2 - (L * L * L - c * c * c) / 3),
       }
     }
@@ -101,119 +156,328 @@ function simpleSpan(load: BeamLoad, L: number): SimpleSpan {
 
 function checkLoad(load: BeamLoad, i: number, spans: number[]): void {
   const field = `loads.${i}`
-  const L = spans[load.span]
-  if (!Number.isInteger(load.span) || L === undefined) throw new EngineInputError(`${field}.span`, 'no such span')
-  const finite = (v: number, f: string): void => {
-    if (!Number.isFinite(v)) throw new EngineInputError(`${field}.${f}`, 'must be a finite number')
+  if (!Number.isInteger(load.span) || spans[load.span] === undefined) throw new EngineInputError(`${field}.span`, `no such span: the member has ${spans.length} spans, numbered from 0`)
+  const L = spans[load.span] as number
+  const finite = (v: number, f: string, what: string): void => {
+    if (!Number.isFinite(v)) throw new EngineInputError(`${field}.${f}`, `the ${what} must be a finite number`)
   }
-  if (load.kind === 'udl') finite(load.w, 'w')
-  if (load.kind === 'patch') {
-    finite(load.w, 'w')
-    if (!(load.from >= 0 && load.to <= L && load.from <= load.to)) throw new EngineInputError(`${field}.from`, 'the patch must lie within the span')
-  }
-  if (load.kind === 'point') {
-    finite(load.P, 'P')
-    if (!(load.at >= 0 && load.at <= L)) throw new EngineInputError(`${field}.at`, 'the load must lie within the span')
-  }
-  if (load.kind === 'couple') {
-    finite(load.M, 'M')
-    if (!(load.at >= 0 && load.at <= L)) throw new EngineInputError(`${field}.at`, 'the couple must lie within the span')
+  switch (load.kind) {
+    case 'udl':
+      finite(load.w, 'w', 'line load')
+      return
+    case 'patch':
+      finite(load.w, 'w', 'line load')
+      if (!(load.from >= 0 && load.to <= L && load.from <= load.to)) throw new EngineInputError(`${field}.from`, 'the patch must lie within the span (0 ≤ from ≤ to ≤ span length)')
+      return
+    case 'point':
+      finite(load.P, 'P', 'point load')
+      if (!(load.at >= 0 && load.at <= L)) throw new EngineInputError(`${field}.at`, 'the load must lie within the span')
+      return
+    case 'couple':
+      finite(load.M, 'M', 'couple')
+      if (!(load.at >= 0 && load.at <= L)) throw new EngineInputError(`${field}.at`, 'the couple must lie within the span')
+      return
+    default:
+      throw new EngineInputError(`${field}.kind`, "the load kind must be 'udl', 'patch', 'point' or 'couple'")
   }
 }
 
-export function analyseContinuousBeam(input: ContinuousBeamInput): ContinuousBeamResult {
-  const { spans, loads } = input
+/** The segments of one span's EI, checked to cover the span without gaps or overlaps. */
+function spanSegments(value: SpanEI | undefined, i: number, L: number): EISegment[] {
+  const field = `EI.${i}`
+  if (typeof value === 'number') {
+    if (!(value > 0) || !Number.isFinite(value)) throw new EngineInputError(field, 'flexural stiffness must be positive')
+    return [{ from: 0, to: L, EI: value }]
+  }
+  if (!Array.isArray(value) || value.length === 0) throw new EngineInputError(field, 'give the flexural stiffness as a positive number or as segments covering the span')
+  const tol = 1e-9 * L
+  let at = 0
+  return value.map((s, k) => {
+    const f = `${field}.${k}`
+    if (!(s.EI > 0) || !Number.isFinite(s.EI)) throw new EngineInputError(`${f}.EI`, 'flexural stiffness must be positive')
+    if (!Number.isFinite(s.from) || Math.abs(s.from - at) > tol) throw new EngineInputError(`${f}.from`, `the segment must start where the previous one ends (at ${at} mm from the left support): the segments must cover the span without gaps or overlaps`)
+    if (!Number.isFinite(s.to) || !(s.to > s.from)) throw new EngineInputError(`${f}.to`, 'the segment must end after it starts')
+    const last = k === value.length - 1
+    if (last && Math.abs(s.to - L) > tol) throw new EngineInputError(`${f}.to`, `the last segment must end at the span length (${L} mm): the segments must cover the span`)
+    if (!last && s.to > L + tol) throw new EngineInputError(`${f}.to`, 'the segment runs past the end of the span')
+    at = s.to
+    return { from: k === 0 ? 0 : s.from, to: last ? L : s.to, EI: s.EI }
+  })
+}
+
+/** Simpson's rule of f over [p, q] with one-sided end values: exact for cubics. */
+function simpson(p: number, q: number, fp: number, fm: number, fq: number): number {
+  return ((q - p) / 6) * (fp + 4 * fm + fq)
+}
+
+/** Flexibility of a simple span: rotations of its ends under unit end moments (unit-load method). */
+interface SpanFlexibility {
+  /** ∫(1−ξ)²/EI, ∫ξ(1−ξ)/EI, ∫ξ²/EI dx */
+  fAA: number
+  fAB: number
+  fBB: number
+  /** stiffness, the inverse of [[fAA, fAB], [fAB, fBB]] */
+  S11: number
+  S12: number
+  S22: number
+}
+
+function flexibility(segs: EISegment[], L: number): SpanFlexibility {
+  const only = segs.length === 1 ? (segs[0] as EISegment) : undefined
+  if (only) {
+    const k = only.EI / L
+    return { fAA: L / (3 * only.EI), fAB: L / (6 * only.EI), fBB: L / (3 * only.EI), S11: 4 * k, S12: -2 * k, S22: 4 * k } // prismatic: 4EI/L, 2EI/L
+  }
+  let fAA = 0
+  let fAB = 0
+  let fBB = 0
+  for (const s of segs) {
+    const xi = (x: number): number => x / L
+    const m = (s.from + s.to) / 2
+    const g = (h: (t: number) => number): number => simpson(s.from, s.to, h(xi(s.from)), h(xi(m)), h(xi(s.to))) / s.EI
+    fAA += g((t) => (1 - t) * (1 - t))
+    fAB += g((t) => t * (1 - t))
+    fBB += g((t) => t * t)
+  }
+  const det = fAA * fBB - fAB * fAB
+  return { fAA, fAB, fBB, S11: fBB / det, S12: -fAB / det, S22: fAA / det }
+}
+
+/**
+ * ∫(1−ξ)·M0/EI dx and ∫ξ·M0/EI dx of one load's simple-span moment (unit-load method), split at the
+ * segment ends and the load's breakpoints so that every piece is a polynomial.
+ */
+function loadIntegrals(p: SimpleSpan, segs: EISegment[], L: number): { a0: number; b0: number } {
+  const only = segs.length === 1 ? (segs[0] as EISegment) : undefined
+  if (only) return { a0: (p.area - p.firstMoment / L) / only.EI, b0: p.firstMoment / (L * only.EI) } // prismatic: closed forms
+  let a0 = 0
+  let b0 = 0
+  for (const s of segs) {
+    const cuts = [s.from, ...p.breaks.filter((x) => x > s.from && x < s.to), s.to].sort((u, v) => u - v)
+    for (let k = 0; k < cuts.length - 1; k++) {
+      const x0 = cuts[k] as number
+      const x1 = cuts[k + 1] as number
+      if (!(x1 > x0)) continue
+      const xm = (x0 + x1) / 2
+      const m0 = p.M0side(x0, 1)
+      const mm = p.M0side(xm, 1)
+      const m1 = p.M0side(x1, -1)
+      a0 += simpson(x0, x1, (1 - x0 / L) * m0, (1 - xm / L) * mm, (1 - x1 / L) * m1) / s.EI
+      b0 += simpson(x0, x1, (x0 / L) * m0, (xm / L) * mm, (x1 / L) * m1) / s.EI
+    }
+  }
+  return { a0, b0 }
+}
+
+export interface ContinuousBeamModel {
+  readonly spans: readonly number[]
+  /** the beam's response to a set of loads: one O(n) back-substitution on the stored factors */
+  analyse(loads: BeamLoad[]): ContinuousBeamResult
+}
+
+/** Validate the beam and factor its stiffness once; analyse any number of load sets with it. */
+export function continuousBeamModel(input: BeamModelInput): ContinuousBeamModel {
+  if (!Array.isArray(input.spans) || input.spans.length < 1) throw new EngineInputError('spans', 'at least one span is needed')
+  const spans = [...input.spans]
   const n = spans.length
-  if (n < 1) throw new EngineInputError('spans', 'at least one span is needed')
   spans.forEach((L, i) => {
     if (!(L > 0) || !Number.isFinite(L)) throw new EngineInputError(`spans.${i}`, 'span length must be positive')
   })
-  const EIs = spans.map((_, i) => (Array.isArray(input.EI) ? input.EI[i] : input.EI ?? 1))
-  EIs.forEach((v, i) => {
-    if (v === undefined || !(v > 0) || !Number.isFinite(v)) throw new EngineInputError(`EI.${i}`, 'flexural stiffness must be positive')
-  })
-  const supports = input.supports ?? spans.map(() => 'pinned' as SupportKind).concat('pinned')
+  const EIin = input.EI
+  if (Array.isArray(EIin) && EIin.length !== n) throw new EngineInputError('EI', `give ${n} flexural stiffnesses for ${n} spans, or one for all`)
+  const segments = spans.map((L, i) => spanSegments(Array.isArray(EIin) ? EIin[i] : EIin ?? 1, i, L))
+  const supports: SupportKind[] = input.supports ? [...input.supports] : new Array<SupportKind>(n + 1).fill('pinned')
   if (supports.length !== n + 1) throw new EngineInputError('supports', `give ${n + 1} supports for ${n} spans`)
-  loads.forEach((l, i) => checkLoad(l, i, spans))
-
-  const bySpan: SimpleSpan[][] = spans.map(() => [])
-  loads.forEach((l) => bySpan[l.span]?.push(simpleSpan(l, spans[l.span] as number)))
-
-  // Fixed-end bending moments from zero end rotations: ∫M dx = 0 and ∫M·x dx = 0 (moment-area)
-  const fixedEnd = spans.map((L, i) => {
-    const parts = bySpan[i] as SimpleSpan[]
-    const A0 = parts.reduce((s, p) => s + p.area, 0)
-    const S0 = parts.reduce((s, p) => s + p.firstMoment, 0)
-    // Solve MA·L/2 + MB·L/2 = −A0 ; MA·L²/6 + MB·L²/3 = −S0
-    const MB = (-6 * S0) / (L * L) + (2 * A0) / L
-    const MA = (-2 * A0) / L - MB
-    return { MA, MB }
-  })
-
-  // Unknown rotations (counter-clockwise positive) at the supports that are not fixed
-  const dof: number[] = supports.map(() => -1)
-  let m = 0
   supports.forEach((s, j) => {
-    if (s !== 'fixed') dof[j] = m++
+    if (s !== 'pinned' && s !== 'fixed' && s !== 'free') throw new EngineInputError(`supports.${j}`, "a support must be 'pinned', 'fixed' or 'free'")
+    if (s === 'free' && j > 0 && j < n) throw new EngineInputError(`supports.${j}`, 'a free end (cantilever) is possible only at the first or last support, not at an interior support')
   })
-  const K: number[][] = Array.from({ length: m }, () => new Array<number>(m).fill(0))
-  const F: number[] = new Array<number>(m).fill(0)
-  spans.forEach((L, i) => {
-    const k = (EIs[i] as number) / L
-    const fe = fixedEnd[i] as { MA: number; MB: number }
-    // member-end moments acting on the member, counter-clockwise positive: left = −MA, right = +MB
-    const ends: Array<[number, number]> = [[dof[i] as number, -fe.MA], [dof[i + 1] as number, fe.MB]]
-    const local = [[4 * k, 2 * k], [2 * k, 4 * k]]
-    ends.forEach(([a, mf], r) => {
-      if (a < 0) return
-      F[a] = (F[a] as number) - mf
-      ends.forEach(([b], c) => {
-        if (b < 0) return
-        const row = K[a] as number[]
-        row[b] = (row[b] as number) + ((local[r] as number[])[c] as number)
-      })
-    })
+  if (input.springs !== undefined && input.springs.length !== n + 1) throw new EngineInputError('springs', `give ${n + 1} rotational spring stiffnesses (0 = none) for ${n + 1} supports`)
+  const springs = supports.map((s, j) => {
+    const k = input.springs?.[j] ?? 0
+    if (!Number.isFinite(k) || k < 0) throw new EngineInputError(`springs.${j}`, 'the rotational spring stiffness must be zero or a positive number')
+    if (s === 'free' && k !== 0) throw new EngineInputError(`springs.${j}`, 'a free end (cantilever tip) has no column: its spring must be 0')
+    return s === 'pinned' ? k : 0 // at a fixed support the spring changes nothing
   })
-  const theta = m > 0 ? solveLinear(K, F) : []
-  const rot = (j: number): number => (dof[j] as number) >= 0 ? (theta[dof[j] as number] as number) : 0
+  const leftCantilever = supports[0] === 'free'
+  const rightCantilever = supports[n] === 'free'
+  if (n === 1 && leftCantilever && rightCantilever) throw new EngineInputError('supports', 'a single span free at both ends is a mechanism: it has no support')
+  // spans between two supports (the rest are cantilevers, statically determinate)
+  const core = spans.map((_, i) => !(i === 0 && leftCantilever) && !(i === n - 1 && rightCantilever))
+  if (!core.some(Boolean)) {
+    // all spans are cantilevers: their root must take the moment by itself
+    const root = leftCantilever ? 1 : 0
+    if (supports[root] !== 'fixed' && !((springs[root] as number) > 0)) {
+      throw new EngineInputError(`supports.${root}`, 'the cantilever(s) would turn about a pinned support with no rotational spring: a mechanism; fix the support or give it a spring')
+    }
+  }
+  const flex = spans.map((L, i) => flexibility(segments[i] as EISegment[], L))
+  const active = supports.map((s) => s === 'pinned')
 
-  const endMoments = spans.map((L, i) => {
-    const k = (EIs[i] as number) / L
-    const fe = fixedEnd[i] as { MA: number; MB: number }
-    const ta = rot(i)
-    const tb = rot(i + 1)
-    return { left: fe.MA - k * (4 * ta + 2 * tb), right: fe.MB + k * (2 * ta + 4 * tb) }
-  })
+  // Joint equilibrium at each active support j: M_A(span j) − M_B(span j−1) = k_j·θ_j, with the
+  // member-end moments from the span stiffness (slope–deflection) — a tridiagonal system in θ.
+  const diag = new Float64Array(n + 1)
+  const sub = new Float64Array(n + 1)
+  const sup = new Float64Array(n + 1)
+  for (let j = 0; j <= n; j++) {
+    if (!active[j]) {
+      diag[j] = 1 // θ known (0 at a fixed support; at a free end found afterwards)
+      continue
+    }
+    let d = springs[j] as number
+    if (j < n && core[j]) {
+      const f = flex[j] as SpanFlexibility
+      d += f.S11
+      if (active[j + 1]) sup[j] = -f.S12
+    }
+    if (j > 0 && core[j - 1]) {
+      const f = flex[j - 1] as SpanFlexibility
+      d += f.S22
+      if (active[j - 1]) sub[j] = -f.S12
+    }
+    diag[j] = d
+  }
+  let factors: TridiagonalFactors
+  try {
+    factors = factorTridiagonal(sub, diag, sup)
+  } catch {
+    throw new EngineInputError('supports', 'the member is a mechanism: it cannot carry load with these supports')
+  }
 
-  const momentAt = (span: number, x: number): number => {
+  const analyse = (loads: BeamLoad[]): ContinuousBeamResult => {
+    if (!Array.isArray(loads)) throw new EngineInputError('loads', 'give a list of loads')
+    loads.forEach((l, i) => checkLoad(l, i, spans))
+    // only loaded spans get a list, so that many single-span load cases stay small
+    const bySpan: Array<SimpleSpan[] | undefined> = new Array<SimpleSpan[] | undefined>(n)
+    loads.forEach((l) => (bySpan[l.span] ??= []).push(simpleSpan(l, spans[l.span] as number)))
+    const a0 = new Float64Array(n)
+    const b0 = new Float64Array(n)
+    const RA = new Float64Array(n)
+    const RB = new Float64Array(n)
+    for (let i = 0; i < n; i++) {
+      for (const p of bySpan[i] ?? NO_LOADS) {
+        const g = loadIntegrals(p, segments[i] as EISegment[], spans[i] as number)
+        a0[i] = (a0[i] as number) + g.a0
+        b0[i] = (b0[i] as number) + g.b0
+        RA[i] = (RA[i] as number) + p.RA
+        RB[i] = (RB[i] as number) + p.RB
+      }
+    }
+    // Fixed-end moments (θ = 0 at both ends): [MA, MB] = −S·[a0, b0] (unit-load compatibility)
+    const MA = new Float64Array(n)
+    const MB = new Float64Array(n)
+    for (let i = 0; i < n; i++) {
+      const L = spans[i] as number
+      const f = flex[i] as SpanFlexibility
+      if (core[i]) {
+        MA[i] = -f.S11 * (a0[i] as number) - f.S12 * (b0[i] as number)
+        MB[i] = -f.S12 * (a0[i] as number) - f.S22 * (b0[i] as number)
+      } else if (i === 0 && leftCantilever) {
+        MB[i] = -(RA[i] as number) * L // statics: no reaction at the free tip, M = M0 − RA·x
+      } else {
+        MA[i] = -(RB[i] as number) * L // statics: no reaction at the free tip, M = M0 − RB·(L − x)
+      }
+    }
+    const rhs = new Float64Array(n + 1)
+    for (let j = 0; j <= n; j++) {
+      if (!active[j]) continue
+      rhs[j] = (j < n ? (MA[j] as number) : 0) - (j > 0 ? (MB[j - 1] as number) : 0)
+    }
+    const theta = factors.solve(rhs)
+    for (let i = 0; i < n; i++) {
+      if (!core[i]) continue
+      const f = flex[i] as SpanFlexibility
+      const tA = theta[i] as number
+      const tB = theta[i + 1] as number
+      MA[i] = (MA[i] as number) - f.S11 * tA + f.S12 * tB // slope–deflection from the span stiffness
+      MB[i] = (MB[i] as number) - f.S12 * tA + f.S22 * tB
+    }
+    // rotation of a free tip: θB − θA = ∫M/EI dx over the cantilever (moment-area)
+    const curvatureArea = (i: number): number => {
+      const f = flex[i] as SpanFlexibility
+      return (a0[i] as number) + (b0[i] as number) + (MA[i] as number) * (f.fAA + f.fAB) + (MB[i] as number) * (f.fAB + f.fBB)
+    }
+    const rotations = Array.from(theta)
+    if (leftCantilever) rotations[0] = (theta[1] as number) - curvatureArea(0)
+    if (rightCantilever) rotations[n] = (theta[n - 1] as number) + curvatureArea(n - 1)
+    return beamResult(spans, bySpan, MA, MB, RA, RB, supports, springs, rotations)
+  }
+  return { spans, analyse }
+}
+
+/** Results from the per-span end moments and loads only (nothing else is kept alive). */
+function beamResult(
+  spans: number[], bySpan: Array<SimpleSpan[] | undefined>, MA: Float64Array, MB: Float64Array, RA: Float64Array, RB: Float64Array,
+  supports: SupportKind[], springs: number[], rotations: number[],
+): ContinuousBeamResult {
+  const n = spans.length
+  const spanAt = (span: number, x: number): number => {
     const L = spans[span]
-    const em = endMoments[span]
-    if (L === undefined || em === undefined) throw new EngineInputError('span', 'no such span')
-    const parts = bySpan[span] as SimpleSpan[]
-    let M = em.left * (1 - x / L) + (em.right * x) / L
-    for (const p of parts) M += p.M0(x)
+    if (!Number.isInteger(span) || L === undefined) throw new EngineInputError('span', `no such span: the member has ${n} spans, numbered from 0`)
+    if (!Number.isFinite(x) || x < -1e-9 * L || x > L * (1 + 1e-9)) throw new EngineInputError('x', 'x must lie within the span')
+    return L
+  }
+  const momentAt = (span: number, x: number): number => {
+    const L = spanAt(span, x)
+    let M = (MA[span] as number) * (1 - x / L) + ((MB[span] as number) * x) / L
+    for (const p of bySpan[span] ?? NO_LOADS) M += p.M0(x)
     return M
   }
   const shearAt = (span: number, x: number): number => {
-    const L = spans[span]
-    const em = endMoments[span]
-    if (L === undefined || em === undefined) throw new EngineInputError('span', 'no such span')
-    const parts = bySpan[span] as SimpleSpan[]
-    let V = (em.right - em.left) / L
-    for (const p of parts) V += p.V0(x)
+    const L = spanAt(span, x)
+    let V = ((MB[span] as number) - (MA[span] as number)) / L
+    for (const p of bySpan[span] ?? NO_LOADS) V += p.V0(x)
     return V
   }
-
   const supportMoments = supports.map((_, j) => (j < n ? momentAt(j, 0) : momentAt(n - 1, spans[n - 1] as number)))
   // end reactions of each span: simple-span reactions plus the couple of the end moments (statics)
-  const endReaction = (i: number, end: 'A' | 'B'): number => {
-    const L = spans[i] as number
-    const em = endMoments[i] as { left: number; right: number }
-    const parts = bySpan[i] as SimpleSpan[]
-    const simple = parts.reduce((s, p) => s + (end === 'A' ? p.RA : p.RB), 0)
-    const fromMoments = (em.right - em.left) / L
-    return end === 'A' ? simple + fromMoments : simple - fromMoments
+  const endA = (i: number): number => (RA[i] as number) + ((MB[i] as number) - (MA[i] as number)) / (spans[i] as number)
+  const endB = (i: number): number => (RB[i] as number) - ((MB[i] as number) - (MA[i] as number)) / (spans[i] as number)
+  const reactions = supports.map((s, j) => (s === 'free' ? 0 : (j < n ? endA(j) : 0) + (j > 0 ? endB(j - 1) : 0)))
+  // couple reaction on the beam from joint equilibrium: M(left) − M(right) of the support (statics)
+  const reactionCouples = supports.map((s, j) => {
+    if (s === 'free') return 0
+    if (s === 'pinned') return -(springs[j] as number) * (rotations[j] as number)
+    return (j > 0 ? (MB[j - 1] as number) : 0) - (j < n ? (MA[j] as number) : 0)
+  })
+  return { supportMoments, reactions, reactionCouples, rotations, momentAt, shearAt }
+}
+
+export function analyseContinuousBeam(input: ContinuousBeamInput): ContinuousBeamResult {
+  return continuousBeamModel(input).analyse(input.loads)
+}
+
+/**
+ * Unit responses for pattern loading (EN 1992-1-1 5.1.3): the beam is factored once; unit(i) is
+ * the response to a uniform load of 1 N/mm on span i alone (computed on first use and kept, O(n)
+ * each), and combine(w) the response to w[i] N/mm on every span i together — by superposition
+ * equal to Σ w[i]·unit(i), but found with one O(n) solve, so a pattern case costs O(n) whatever
+ * the number of spans. Multiply a unit response by the case's line load to scale it.
+ */
+export interface SpanUnitResponses {
+  readonly model: ContinuousBeamModel
+  unit(span: number): ContinuousBeamResult
+  combine(w: number[]): ContinuousBeamResult
+}
+
+export function spanUnitResponses(input: BeamModelInput): SpanUnitResponses {
+  const model = continuousBeamModel(input)
+  const n = model.spans.length
+  const cache = new Map<number, ContinuousBeamResult>()
+  return {
+    model,
+    unit(span) {
+      if (!Number.isInteger(span) || span < 0 || span >= n) throw new EngineInputError('span', `no such span: the member has ${n} spans, numbered from 0`)
+      let r = cache.get(span)
+      if (!r) {
+        r = model.analyse([{ kind: 'udl', span, w: 1 }])
+        cache.set(span, r)
+      }
+      return r
+    },
+    combine(w) {
+      if (!Array.isArray(w) || w.length !== n) throw new EngineInputError('w', `give ${n} line loads, one per span`)
+      return model.analyse(w.map((wi, span) => ({ kind: 'udl' as const, span, w: wi })))
+    },
   }
-  const reactions = supports.map((_, j) => (j < n ? endReaction(j, 'A') : 0) + (j > 0 ? endReaction(j - 1, 'B') : 0))
-  return { supportMoments, reactions, momentAt, shearAt }
 }

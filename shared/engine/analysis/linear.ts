@@ -1,29 +1,36 @@
-/** Dense linear solve by Gaussian elimination with partial pivoting (small stiffness systems). */
-export function solveLinear(A: number[][], b: number[]): number[] {
-  const n = b.length
-  const M = A.map((row, i) => [...row, b[i] as number])
-  for (let c = 0; c < n; c++) {
-    let p = c
-    for (let r = c + 1; r < n; r++) if (Math.abs((M[r] as number[])[c] as number) > Math.abs((M[p] as number[])[c] as number)) p = r
-    const tmp = M[c] as number[]
-    M[c] = M[p] as number[]
-    M[p] = tmp
-    const pivotRow = M[c] as number[]
-    const pivot = pivotRow[c] as number
-    if (Math.abs(pivot) < 1e-300) throw new Error('singular stiffness matrix')
-    for (let r = c + 1; r < n; r++) {
-      const row = M[r] as number[]
-      const f = (row[c] as number) / pivot
-      if (f === 0) continue
-      for (let k = c; k <= n; k++) row[k] = (row[k] as number) - f * (pivotRow[k] as number)
-    }
+/**
+ * Tridiagonal solve (the Thomas algorithm: Gaussian elimination without pivoting on a band of
+ * width three), O(n) time and memory. Safe without pivoting for the symmetric positive definite
+ * stiffness matrices of a continuous beam (Golub & Van Loan, Matrix Computations, 4.3).
+ * The factors are kept so that many load cases reuse one elimination.
+ */
+export interface TridiagonalFactors {
+  /** solve A·x = rhs with the factored matrix; rhs is not changed */
+  solve(rhs: ArrayLike<number>): Float64Array
+}
+
+/**
+ * Factor A with sub-diagonal `sub` (sub[i] = A[i][i−1], sub[0] unused), diagonal `diag` and
+ * super-diagonal `sup` (sup[i] = A[i][i+1], the last unused).
+ */
+export function factorTridiagonal(sub: ArrayLike<number>, diag: ArrayLike<number>, sup: ArrayLike<number>): TridiagonalFactors {
+  const n = diag.length
+  const c = new Float64Array(n) // modified super-diagonal
+  const pivot = new Float64Array(n)
+  const a = Float64Array.from(sub)
+  for (let i = 0; i < n; i++) {
+    const d = (diag[i] as number) - (i > 0 ? (a[i] as number) * (c[i - 1] as number) : 0)
+    // a zero pivot on a positive definite matrix means the structure is a mechanism
+    if (!(Math.abs(d) > 1e-14 * Math.abs(diag[i] as number)) || !Number.isFinite(d)) throw new Error(`singular stiffness matrix at row ${i}`)
+    pivot[i] = d
+    c[i] = i < n - 1 ? (sup[i] as number) / d : 0
   }
-  const x = new Array<number>(n).fill(0)
-  for (let r = n - 1; r >= 0; r--) {
-    const row = M[r] as number[]
-    let s = row[n] as number
-    for (let k = r + 1; k < n; k++) s -= (row[k] as number) * (x[k] as number)
-    x[r] = s / (row[r] as number)
+  return {
+    solve(rhs) {
+      const x = new Float64Array(n)
+      for (let i = 0; i < n; i++) x[i] = ((rhs[i] as number) - (i > 0 ? (a[i] as number) * (x[i - 1] as number) : 0)) / (pivot[i] as number)
+      for (let i = n - 2; i >= 0; i--) x[i] = (x[i] as number) - (c[i] as number) * (x[i + 1] as number)
+      return x
+    },
   }
-  return x
 }

@@ -6,7 +6,7 @@
  * γP = 1.0 through its secondary effects (EN 1992-1-1 2.4.2.2(1), 5.10.8(1)); its primary effect is
  * in the resistance of the section.
  */
-import { requireRange } from '../uls/inputs'
+import { requireRange } from '../common/guards'
 import { EngineInputError } from '../contract'
 
 export type UlsRule = '6.10' | '6.10a/b'

@@ -2,46 +2,64 @@
  * Primary, total and secondary (hyperstatic) moments of prestress, EN 1992-1-1 5.10.7.
  * The member is analysed under the tendon's equivalent loads: the total moment comes out; the
  * primary moment is −P·e (e below the centroid, sagging positive); secondary = total − primary,
- * which varies linearly between supports.
+ * which varies linearly along each span (it comes from the support reactions alone). With columns
+ * (rotational springs) the total moment steps at a support by the columns' moment, so each span
+ * carries its own end values; a cantilever is statically determinate and has no secondary moment.
  */
-import { analyseContinuousBeam } from '../analysis/continuous-beam'
-import type { SupportKind } from '../analysis/continuous-beam'
+import { continuousBeamModel } from '../analysis/continuous-beam'
+import type { SpanEI, SupportKind } from '../analysis/continuous-beam'
 import { equivalentLoads } from './equivalent-loads'
-import type { TendonProfile } from './profile'
+import { eccentricityIn, resolveProfile } from './profile'
+import type { ProfilePiece, TendonProfile } from './profile'
 
 export interface PrestressMomentsInput {
   spans: number[]
-  EI?: number | number[]
+  EI?: number | SpanEI[]
+  /** as analyseContinuousBeam; at a free end (cantilever) the tendon anchors at the tip */
   supports?: SupportKind[]
+  /** rotational stiffness of the columns at each support, N·mm/rad (see columnStiffness) */
+  springs?: number[]
   profile: TendonProfile
   P: number
 }
 
 export interface PrestressMoments {
-  /** at each support, N·mm */
+  /** at each support, N·mm: total and secondary are taken just right of the support (the last just left) */
   primary: number[]
   total: number[]
   secondary: number[]
+  /** secondary moment at the two ends of each span (0⁺ and L⁻), N·mm */
+  secondaryEnds: Array<{ start: number; end: number }>
+  /** couple reaction of each support (counter-clockwise positive): the columns' share of the prestress, N·mm */
+  reactionCouples: number[]
+  /** vertical reactions of prestress (upward positive), N: the hyperstatic reactions, self-equilibrating */
+  reactions: number[]
   /** total moment anywhere, N·mm */
   totalAt(span: number, x: number): number
-  /** secondary moment anywhere (linear between supports), N·mm */
+  /** secondary moment anywhere (linear along each span), N·mm */
   secondaryAt(span: number, x: number): number
 }
 
 export function prestressMoments(input: PrestressMomentsInput): PrestressMoments {
-  const beam = analyseContinuousBeam({
-    spans: input.spans,
-    EI: input.EI,
-    supports: input.supports,
-    loads: equivalentLoads(input.profile, input.P),
-  })
-  const primary = input.profile.supportEcc.map((e) => -input.P * e) // primary moment M1 = −P·e
+  const beam = continuousBeamModel({ spans: input.spans, EI: input.EI, supports: input.supports, springs: input.springs })
+    .analyse(equivalentLoads(input.profile, input.P))
+  const pieces = resolveProfile(input.profile)
+  const P = input.P
+  const primary = input.profile.supportEcc.map((e) => -P * e) // primary moment M1 = −P·e
   const total = beam.supportMoments
   const secondary = total.map((m, j) => m - (primary[j] as number)) // EN 1992-1-1 5.10.7: M2 = M − M1
+  const secondaryEnds = input.spans.map((L, i) => {
+    const p = pieces[i] as ProfilePiece[]
+    return {
+      start: beam.momentAt(i, 0) + P * eccentricityIn(p, 0), // M2 = M − (−P·e)
+      end: beam.momentAt(i, L) + P * eccentricityIn(p, L),
+    }
+  })
   const secondaryAt = (span: number, x: number): number => {
     const L = input.spans[span] as number
-    return (secondary[span] as number) * (1 - x / L) + ((secondary[span + 1] as number) * x) / L
+    const ends = secondaryEnds[span] as { start: number; end: number }
+    return ends.start * (1 - x / L) + (ends.end * x) / L
   }
   const totalAt = (span: number, x: number): number => beam.momentAt(span, x)
-  return { primary, total, secondary, totalAt, secondaryAt }
+  return { primary, total, secondary, secondaryEnds, reactionCouples: beam.reactionCouples, reactions: beam.reactions, totalAt, secondaryAt }
 }

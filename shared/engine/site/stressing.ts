@@ -9,7 +9,7 @@ import { EngineInputError } from '../contract'
 import { drawInForces, frictionForce } from '../prestress/losses'
 import { resolveProfile, slopeIn } from '../prestress/profile'
 import type { TendonProfile } from '../prestress/profile'
-import { requireNonNegative, requirePositive, requireRange } from '../uls/inputs'
+import { requireNonNegative, requirePositive, requireRange } from '../common/guards'
 
 export type StressingEnds = 'left' | 'right' | 'both'
 export type TendonEnd = 'left' | 'right'

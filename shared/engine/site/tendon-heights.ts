@@ -7,7 +7,7 @@
 import { EngineInputError } from '../contract'
 import { eccentricityIn, lowPointFraction, resolveProfile } from '../prestress/profile'
 import type { ProfilePiece, TendonProfile } from '../prestress/profile'
-import { requireNonNegative, requirePositive } from '../uls/inputs'
+import { requireNonNegative, requirePositive } from '../common/guards'
 
 export type HeightPointKind = 'support' | 'low' | 'inflection' | 'station'
 

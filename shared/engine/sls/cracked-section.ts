@@ -8,7 +8,8 @@
  */
 import { EngineInputError } from '../contract'
 import type { SectionOutline } from '../uls/bending'
-import { bisect, requireNonNegative, requirePositive, requireRange } from '../uls/inputs'
+import { requireNonNegative, requirePositive, requireRange } from '../common/guards'
+import { bisect } from '../common/numeric'
 
 export interface SteelLayer {
   A: number

@@ -5,7 +5,7 @@
  * 7.3.1(5) (bonded tendons or ducts at least 25 mm inside concrete in compression). N, mm, MPa.
  */
 import { EngineInputError } from '../contract'
-import { requireNonNegative, requirePositive, requireRange } from '../uls/inputs'
+import { requireNonNegative, requirePositive, requireRange } from '../common/guards'
 
 export const CRACK_EXPOSURE_CLASSES = ['X0', 'XC1', 'XC2', 'XC3', 'XC4', 'XD1', 'XD2', 'XD3', 'XS1', 'XS2', 'XS3'] as const
 export type CrackExposure = (typeof CRACK_EXPOSURE_CLASSES)[number]

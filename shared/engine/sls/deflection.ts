@@ -9,7 +9,7 @@
 import { analyseContinuousBeam } from '../analysis/continuous-beam'
 import type { BeamLoad, SupportKind } from '../analysis/continuous-beam'
 import { EngineInputError } from '../contract'
-import { requireNonNegative, requirePositive, requireRange } from '../uls/inputs'
+import { requireNonNegative, requirePositive, requireRange } from '../common/guards'
 
 /** Cracking data of one span: net moments at first cracking and the cracked second moments. */
 export interface SpanCracking {

@@ -8,7 +8,8 @@
  * hogging. Forces N, lengths mm, stresses MPa, moments N·mm; strains are pure numbers, tension +.
  */
 import { EngineInputError } from '../contract'
-import { bisect, requireNonNegative, requirePositive, requireRange } from './inputs'
+import { requireNonNegative, requirePositive, requireRange } from '../common/guards'
+import { bisect } from '../common/numeric'
 
 /** Rectangle, or a flanged (T/L) section with its flange at the top of the member. */
 export type SectionOutline =

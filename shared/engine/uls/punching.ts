@@ -4,7 +4,7 @@
  * the inclined tendons crossing the control section subtracted from VEd, vRd,c with k1·σcp
  * (6.4.4(1), eq. (6.47)) and vRd,max at the column face (6.4.5(3)). N, mm, MPa.
  */
-import { requireNonNegative, requirePositive, requireRange } from './inputs'
+import { requireNonNegative, requirePositive, requireRange } from '../common/guards'
 import { EngineInputError } from '../contract'
 
 export type ColumnPosition = 'interior' | 'edge' | 'corner'

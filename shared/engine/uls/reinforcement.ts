@@ -5,7 +5,7 @@
  * steel over the columns and bonded steel for the tension zone where service tension is high.
  * N, mm, MPa; areas mm² for the width given.
  */
-import { requirePositive, requireRange } from './inputs'
+import { requirePositive, requireRange } from '../common/guards'
 
 export interface ReinforcementLimitsInput {
   member: 'beam' | 'slab'

@@ -6,7 +6,7 @@
  * N, mm, MPa; σcp positive in compression.
  */
 import { EngineInputError } from '../contract'
-import { requireNonNegative, requirePositive, requireRange } from './inputs'
+import { requireNonNegative, requirePositive, requireRange } from '../common/guards'
 
 export type DuctKind = 'grouted-metal' | 'grouted-plastic' | 'unbonded'
 

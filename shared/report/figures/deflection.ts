@@ -1,6 +1,7 @@
 /**
  * Deflected shape under the quasi-permanent unbalanced load, short-term and long-term, drawn
- * downwards as the member deflects. Values in mm along the member.
+ * downwards as the member deflects and upwards where it cambers: one sign throughout, downward
+ * positive, as in the engine's results and the deflection table. Values in mm along the member.
  */
 import { PALETTE, esc, extent, frame, hline, legend, linear, seriesPath, supports, svgOpen, xAxis, yAxis } from './svg'
 
@@ -29,7 +30,7 @@ export function deflectionSvg(d: DeflectionData): string {
       { label: 'long-term (with creep)', stroke: PALETTE.blue },
     ])
     + xAxis(f, x, 'distance along the member (m)')
-    + yAxis(f, y, 'deflection (mm), downwards +')
+    + yAxis(f, y, 'deflection (mm), downwards +, upwards (camber) −')
     + hline(f.left, f.width - f.right, y(0), PALETTE.ink)
     + seriesPath({ label: 'short-term', x: xs, y: d.shortTerm, stroke: PALETTE.sand, dash: 'dashed' }, x, y)
     + seriesPath({ label: 'long-term', x: xs, y: d.longTerm, stroke: PALETTE.blue, width: 2 }, x, y)

@@ -4,9 +4,9 @@
  * Magnel line clipping against the line equation on seeded random lines).
  */
 import { describe, expect, it } from 'vitest'
-import { DEMO_BB1, DEMO_PS2 } from '../../../shared/engine/demo'
-import { designMember } from '../../../shared/engine/design/member'
-import type { Design } from '../../../shared/engine/design/member'
+import { DEMO_BB1, DEMO_PS2 } from '../../../shared/engine/input/demo'
+import { designMember } from '../../../shared/engine/member/design'
+import type { Design } from '../../../shared/engine/member/design'
 import { clipLine, magnelSvg } from '../../../shared/report/figures/magnel'
 import { tendonProfileSvg } from '../../../shared/report/figures/tendon'
 import { n } from '../../../shared/report/figures/svg'

@@ -1,0 +1,86 @@
+/**
+ * Loads stage: line loads from the section and the loaded width, the imposed-load arrangements,
+ * and the moments of each load case at the stations: the beam is factored once and each case is one
+ * O(n) solve with its loads on every span together (superposition of the unit-span responses).
+ */
+import type { StageOutcome } from '../common/stage'
+import type { MemberInput } from '../input/schema'
+import { spanUnitResponses } from '../analysis/continuous-beam'
+import type { SpanUnitResponses, SupportKind } from '../analysis/continuous-beam'
+import type { MemberSection } from './section'
+import type { Station } from './stations'
+
+export interface LoadPattern { id: string; label: string; loadedSpans: number[] }
+
+export interface CaseMoments {
+  /** N·mm at each station */
+  selfWeight: number[]
+  superimposed: number[]
+  /** one row of station moments per imposed-load arrangement */
+  imposedByPattern: number[][]
+}
+
+export interface MemberLoads {
+  supports: SupportKind[]
+  /** line loads, N/mm */
+  selfWeight: number
+  superimposed: number
+  imposed: number
+  patterns: LoadPattern[]
+  /** the member factored once: its response to 1 N/mm on one span, or to any set of span loads in one O(n) solve */
+  responses: SpanUnitResponses
+  cases: CaseMoments
+}
+
+/** Supports as given, or all pinned. */
+export function memberSupports(input: MemberInput): SupportKind[] {
+  const spans = input.geometry.spans
+  return input.geometry.supports ?? spans.map(() => 'pinned' as SupportKind).concat('pinned')
+}
+
+/** The imposed-load arrangements of EN 1992-1-1 5.1.3: all spans, alternate spans, adjacent pairs. */
+export function loadPatterns(input: MemberInput): LoadPattern[] {
+  const n = input.geometry.spans.length
+  const all = input.geometry.spans.map((_, i) => i)
+  const patterns: LoadPattern[] = [{ id: 'all', label: 'All spans', loadedSpans: all }]
+  if (input.loads.pattern === 'alternate-and-adjacent' && n > 1) {
+    patterns.push({ id: 'odd', label: 'Alternate spans 1, 3, …', loadedSpans: all.filter((i) => i % 2 === 0) })
+    patterns.push({ id: 'even', label: 'Alternate spans 2, 4, …', loadedSpans: all.filter((i) => i % 2 === 1) })
+    for (let j = 1; j < n; j++) {
+      if (n > 2) patterns.push({ id: `adjacent-${j}`, label: `Adjacent spans ${j} and ${j + 1}`, loadedSpans: [j - 1, j] })
+    }
+  }
+  return patterns
+}
+
+export function loadsStage(input: MemberInput, section: MemberSection, stations: Station[]): StageOutcome<MemberLoads> {
+  const spans = input.geometry.spans
+  const supports = memberSupports(input)
+  const s = input.section
+  const width = section.width
+  const trib = section.tributaryWidth
+
+  // line loads (N/mm): self-weight of the section and of any slab beyond the flange within the loaded width
+  const extraSlab = !section.isSlab && s.hf !== undefined && trib > width && s.kind !== 'rectangle' ? s.hf * (trib - width) : 0
+  const selfWeight = input.materials.density * (section.properties.A + extraSlab) // EN 1991-1-1 5.2: self-weight from the nominal dimensions
+  const superimposed = input.loads.superimposed * trib
+  const imposed = input.loads.imposed * trib
+
+  const responses = spanUnitResponses({ spans, EI: section.EI, supports })
+  const patterns = loadPatterns(input)
+  // linear elastic analysis (EN 1992-1-1 5.4): each case is the sum of the unit-span cases, found in one solve
+  const along = (w: number[]): number[] => {
+    const r = responses.combine(w)
+    return stations.map((st) => r.momentAt(st.span, st.x))
+  }
+  const cases: CaseMoments = {
+    selfWeight: along(spans.map(() => selfWeight)),
+    superimposed: along(spans.map(() => superimposed)),
+    imposedByPattern: patterns.map((pt) => {
+      const w = spans.map(() => 0)
+      for (const i of pt.loadedSpans) w[i] = imposed
+      return along(w)
+    }),
+  }
+  return { result: { supports, selfWeight, superimposed, imposed, patterns, responses, cases }, checks: [], warnings: [] }
+}

@@ -1,0 +1,97 @@
+/** Per-station arrays of the member for the figures: profile, forces, moments of prestress, stresses, limits. */
+import { at } from '../common/numeric'
+import type { PrestressAnalysis } from './analysis'
+import type { MemberLosses } from './losses'
+import type { MemberProfile } from './profile'
+import type { MemberSection } from './section'
+import type { Station } from './stations'
+import { SERVICE } from './stress-limits'
+import type { ServiceStresses } from './stress-limits'
+
+export interface MemberSeries {
+  X: number[]
+  span: number[]
+  x: number[]
+  e: number[]
+  eLimitTop: number[]
+  eLimitBottom: number[]
+  depth: number[]
+  centroid: number[]
+  forceFriction: number[]
+  forceDrawIn: number[]
+  forceTransfer: number[]
+  forceService: number[]
+  primaryTransfer: number[]
+  secondaryTransfer: number[]
+  totalTransfer: number[]
+  primaryService: number[]
+  secondaryService: number[]
+  totalService: number[]
+  momentTransfer: number[]
+  momentServiceMax: number[]
+  momentServiceMin: number[]
+  stressTransferTopMin: number[]
+  stressTransferTopMax: number[]
+  stressTransferBottomMin: number[]
+  stressTransferBottomMax: number[]
+  stressServiceTopMin: number[]
+  stressServiceTopMax: number[]
+  stressServiceBottomMin: number[]
+  stressServiceBottomMax: number[]
+  limitTransferCompression: number[]
+  limitTransferTension: number[]
+  limitServiceCompression: number[]
+  limitServiceTension: number[]
+}
+
+export interface SeriesInput {
+  stations: Station[]
+  section: MemberSection
+  profile: MemberProfile
+  losses: MemberLosses
+  analysis: PrestressAnalysis
+  stresses: ServiceStresses
+}
+
+export function memberSeries({ stations, section, profile, losses, analysis, stresses }: SeriesInput): MemberSeries {
+  const X = stations.map((s) => s.X)
+  const all = stresses.byStation
+  const limits = stresses.limits
+  const serviceTensionLimit = limits.frequent.tension ?? limits.quasiPermanent.tension ?? 0
+  const { top: eTop, bottom: eBot } = section.eccentricity
+  return {
+    X,
+    span: stations.map((s) => s.span),
+    x: stations.map((s) => s.x),
+    e: profile.e,
+    eLimitTop: X.map(() => -eTop),
+    eLimitBottom: X.map(() => eBot),
+    depth: X.map(() => section.properties.h),
+    centroid: X.map(() => section.properties.yt),
+    forceFriction: losses.afterFriction,
+    forceDrawIn: losses.afterDrawIn,
+    forceTransfer: losses.transfer.P,
+    forceService: losses.service.P,
+    primaryTransfer: analysis.transfer.primary,
+    secondaryTransfer: analysis.transfer.secondary,
+    totalTransfer: analysis.transfer.primary.map((v, k) => v + at(analysis.transfer.secondary, k)),
+    primaryService: analysis.service.primary,
+    secondaryService: analysis.service.secondary,
+    totalService: analysis.service.primary.map((v, k) => v + at(analysis.service.secondary, k)),
+    momentTransfer: all.map((r) => r.moments.transfer.min),
+    momentServiceMax: all.map((r) => r.moments.characteristic.max),
+    momentServiceMin: all.map((r) => r.moments.characteristic.min),
+    stressTransferTopMin: all.map((r) => r.stress.transfer.envelope.topMin),
+    stressTransferTopMax: all.map((r) => r.stress.transfer.envelope.topMax),
+    stressTransferBottomMin: all.map((r) => r.stress.transfer.envelope.bottomMin),
+    stressTransferBottomMax: all.map((r) => r.stress.transfer.envelope.bottomMax),
+    stressServiceTopMin: all.map((r) => Math.min(...SERVICE.map((s) => r.stress[s].envelope.topMin))),
+    stressServiceTopMax: all.map((r) => Math.max(...SERVICE.map((s) => r.stress[s].envelope.topMax))),
+    stressServiceBottomMin: all.map((r) => Math.min(...SERVICE.map((s) => r.stress[s].envelope.bottomMin))),
+    stressServiceBottomMax: all.map((r) => Math.max(...SERVICE.map((s) => r.stress[s].envelope.bottomMax))),
+    limitTransferCompression: X.map(() => limits.transfer.compression as number),
+    limitTransferTension: X.map(() => -(limits.transfer.tension as number)),
+    limitServiceCompression: X.map(() => limits.characteristic.compression as number),
+    limitServiceTension: X.map(() => -serviceTensionLimit),
+  }
+}

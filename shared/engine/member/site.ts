@@ -1,0 +1,60 @@
+/**
+ * Site stage: what the site needs from the member — the tendon height schedule (chair heights to
+ * the duct underside, the tendon centroid taken at the duct centre as in the eccentricity limits)
+ * and the stressing schedule with the acceptance of measured extensions.
+ */
+import type { CheckResult } from '../contract'
+import { EngineInputError } from '../contract'
+import { ratioCheck } from '../common/check'
+import type { StageOutcome } from '../common/stage'
+import type { MemberInput } from '../input/schema'
+import { tendonHeightSchedule } from '../site/tendon-heights'
+import type { TendonHeightSchedule } from '../site/tendon-heights'
+import { stressingSchedule } from '../site/stressing'
+import type { MeasuredExtension, StressingEnds, StressingSchedule, StressingTendon } from '../site/stressing'
+import type { MemberProfile } from './profile'
+import type { MemberSection } from './section'
+
+export interface MemberSite {
+  heights: TendonHeightSchedule
+  stressing: StressingSchedule
+}
+
+export function siteStage(input: MemberInput, section: MemberSection, profile: MemberProfile): StageOutcome<MemberSite> {
+  const warnings: string[] = []
+  const s = input.site
+  // the strands sit off the duct centre by the offset the eccentricity limits allow for (towards the centre of curvature)
+  const offset = Math.max(0, section.eccentricity.dTop - input.tendon.coverTop - input.tendon.ductHeight / 2)
+  const half = input.tendon.ductHeight / 2
+  const heights = tendonHeightSchedule({
+    profile: profile.profile, h: section.properties.h, centroidHeight: section.properties.yb, spacing: s.spacing,
+    centroidToUnderside: { sagging: half + offset, hogging: Math.max(0, half - offset) }, roundTo: s.roundTo,
+  })
+  if (heights.outside > 0) warnings.push('Tendon heights: the duct leaves the section at some station; check the profile and covers.')
+
+  const count = s.tendons ?? (section.isSlab ? 1 : input.tendon.count)
+  const perTendon = input.tendon.strandsPerTendon * section.strand.Ap
+  const first = input.tendon.stressing
+  const endsOf = (i: number): StressingEnds => {
+    if (first === 'both' || s.alternateEnds === 'no') return first
+    return i % 2 === 0 ? first : first === 'left' ? 'right' : 'left'
+  }
+  const tendons: StressingTendon[] = Array.from({ length: count }, (_, i) => ({ id: `T${i + 1}`, ends: endsOf(i), Pjack: section.sigmaJack * perTendon, Ap: perTendon }))
+  const values = s.measured ?? []
+  if (values.length > count) throw new EngineInputError('site.measured', `give at most one measured extension per tendon (${count})`)
+  const measured: MeasuredExtension[] = values.flatMap((v, i) => (v > 0 ? [{ id: `T${i + 1}`, extension: v }] : []))
+  const stressing = stressingSchedule({
+    profile: profile.profile, tendons, Ep: section.strand.Ep, mu: input.losses.mu, k: input.losses.wobble, drawIn: input.losses.drawIn,
+    tolerance: s.tolerance, jackLength: s.jackLength, measured,
+  })
+  // common practice: the measured extension within a band about the calculated one; the schedule decides the pass
+  const checks: CheckResult[] = stressing.tendons.flatMap((t) => t.checks.map((c) => ({
+    ...ratioCheck({
+      id: `site.extension.${t.id}`, group: 'site', title: `Measured extension of tendon ${t.id}`, clause: 'common practice: acceptance band on the calculated extension',
+      location: `Tendon ${t.id}`, actual: Math.abs(c.deviation), limit: s.tolerance, unit: '%',
+      note: `measured ${c.measured.toFixed(0)} mm against ${c.calculated.toFixed(0)} mm calculated`,
+    }),
+    pass: c.within,
+  })))
+  return { result: { heights, stressing }, checks, warnings }
+}

@@ -1,1 +1,0 @@
-export { mulberry32 } from '../../helpers/prng'

@@ -1,0 +1,20 @@
+import { describe, expect, it } from 'vitest'
+import { designForService, ONE_SPAN_SLAB, parsed } from '../../../helpers/members'
+
+describe('losses stage', () => {
+  it('friction from the left end of a single parabola: P(L) = Pjack·e^(−μ(8a/L + kL)) (EN 1992-1-1 eq. (5.45); the parabola turns through 2 × 4a/L)', () => {
+    const d = designForService(parsed(ONE_SPAN_SLAB))
+    const { mu, wobble } = d.input.losses
+    const a = d.profile.drapes[0]!
+    const far = d.losses.afterFriction[d.losses.afterFriction.length - 1]!
+    expect(far / d.section.Pjack).toBeCloseTo(Math.exp(-mu * ((8 * a) / 8000 + wobble * 8000)), 6)
+  })
+  it('the percentage model takes the accepted share of the transfer force at every station', () => {
+    const d = designForService(parsed(ONE_SPAN_SLAB, { losses: { model: 'percentage', longTermShare: 0.12 } }))
+    d.losses.service.P.forEach((P, k) => expect(P).toBeCloseTo(0.88 * d.losses.transfer.P[k]!, 6))
+  })
+  it('no draw-in and no friction leave the jacking force less elastic shortening (eq. (5.44))', () => {
+    const d = designForService(parsed(ONE_SPAN_SLAB, { losses: { mu: 0, wobble: 0, drawIn: 0 } }))
+    d.losses.afterDrawIn.forEach((P) => expect(P).toBeCloseTo(d.section.Pjack, 6))
+  })
+})

@@ -1,1 +1,0 @@
-export { between, prng } from '../../helpers/prng'
