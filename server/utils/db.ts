@@ -53,7 +53,8 @@ const READ_ONLY = /^\s*(select|show)\b/i
  * mysql2 pools over an ordered list of hosts, with the Pool surface Drizzle uses (query, execute,
  * getConnection). It serves from the current host; when that host refuses connections or is not
  * ready it moves to the next one and stays there. A statement outside a transaction is repeated on
- * the next host when it never ran, or when it only reads; a transaction is never repeated here.
+ * the next host when it never ran, or when it only reads; a transaction is never repeated here
+ * once it has begun.
  */
 class FailoverPool {
   private pools: Array<mysql.Pool | undefined> = []
@@ -96,9 +97,22 @@ class FailoverPool {
     return this.run(pool => (pool.execute as (...a: unknown[]) => Promise<unknown>)(...args), error => isNotSent(error) || READ_ONLY.test(text))
   }
 
-  /** A connection for a transaction: only getting it is retried on another host. */
+  /**
+   * A connection for a transaction, checked with a ping first: a pooled connection whose server
+   * went away is dropped and the next host tried, before the transaction has begun.
+   */
   getConnection() {
-    return this.run(pool => pool.getConnection(), () => true)
+    return this.run(async (pool) => {
+      const conn = await pool.getConnection()
+      try {
+        await conn.ping()
+        return conn
+      }
+      catch (error) {
+        conn.destroy()
+        throw error
+      }
+    }, () => true)
   }
 
   /** The current host's mysql2 pool, for libraries that speak to MariaDB themselves. */
