@@ -41,12 +41,15 @@ export function titleBlockOf(detail: Detail, office: OfficeStamp | null): TitleB
 /**
  * Chromium now and then lays a page out differently when the machine is under heavy load, so one
  * render is not proof of the document's bytes: render until two renders agree (three at most) and
- * take the agreed bytes. @throws 502 when no two renders agree.
+ * take the agreed bytes. The page numbers are settled first; the render that settled them is the
+ * first candidate. @throws 502 when no two renders agree.
  */
 async function agreedRevisionPdf(event: H3Event, detail: Detail, accept?: (sha256: string) => boolean) {
+  const printer = await revisionPrinter(event, detail)
+  const { pages, raw } = await printer.settlePageNumbers()
   const seen = new Map<string, number>()
   for (let attempt = 1; attempt <= 3; attempt++) {
-    const rendered = await renderRevisionPdf(event, detail)
+    const rendered = await printer.reproducible(attempt === 1 ? raw : await printer.render(pages))
     const sha = sha256Hex(rendered.bytes)
     if (accept?.(sha) || seen.has(sha)) return { ...rendered, sha256: sha, renders: attempt }
     seen.set(sha, attempt)
@@ -60,45 +63,50 @@ export async function printViewOf(detail: Detail) {
   return { id: detail.id, titleBlock: titleBlockOf(detail, office), sections: detail.sections, reportHtml: detail.reportHtml, caution: CAUTION }
 }
 
+function renderFailure(error: unknown): never {
+  const reason = error instanceof PdfRenderError ? error.message : error instanceof Error ? error.message : String(error)
+  throw createError({ statusCode: 502, message: `The PDF could not be rendered: ${reason}` })
+}
+
 /**
- * Renders the approved revision's print page to reproducible PDF bytes, in two passes at least: the
- * first tells the page of every section heading, the next prints the contents and the page
- * references with those numbers; one more pass if the numbers moved a heading to another page.
- * @throws 502 saying why rendering failed.
+ * Prints an approved revision's print page to PDF with its title block. Page numbers take two
+ * passes at least: the first tells the page of every section heading, the next prints the contents
+ * and the page references with those numbers; one more if the numbers moved a heading.
  */
-async function renderRevisionPdf(event: H3Event, detail: Detail) {
+async function revisionPrinter(event: H3Event, detail: Detail) {
   const { titleBlock: block } = await printViewOf(detail)
   const origin = printOrigin()
   const session = useRuntimeConfig().session as { name?: string }
   const cookieName = session.name || 'nuxt-session'
   const value = getCookie(event, cookieName)
+  /** @throws 502 saying why rendering failed. */
   const render = (pages: string | null) => renderPdf({
     url: `${origin}/revisions/${detail.id}/print${pages === null ? '' : `?pages=${pages}`}`,
     origin,
     cookies: value ? [{ name: cookieName, value }] : [],
     headerTemplate: headerTemplate(block),
     footerTemplate: footerTemplate(block),
-  })
-  try {
-    let raw = await render(null)
-    let pages = encodePages(detail.sections, await namedDestinationPages(raw))
-    for (let pass = 2; pass <= 3; pass++) {
-      raw = await render(pages)
-      const printed = encodePages(detail.sections, await namedDestinationPages(raw))
-      if (printed === pages) break
-      pages = printed
-    }
-    return await makeReproducible(raw, {
+  }).catch(renderFailure)
+  const pagesOf = async (raw: Uint8Array) => encodePages(detail.sections, await namedDestinationPages(raw))
+  return {
+    render,
+    async settlePageNumbers() {
+      let pages = await pagesOf(await render(null))
+      let raw = await render(pages)
+      const moved = await pagesOf(raw)
+      if (moved !== pages) {
+        pages = moved
+        raw = await render(pages)
+      }
+      return { pages, raw }
+    },
+    reproducible: (raw: Uint8Array) => makeReproducible(raw, {
       title: `${block.jobNumber} ${block.sheetReference} ${block.revision} ${block.title}`,
       subject: `${block.projectName}: ${block.title}`,
       keywords: [block.archiveRef, block.verificationRef, detail.contentHash],
       date: new Date(detail.approvedBy?.at ?? detail.issuedAt),
       documentId: detail.contentHash.slice(0, 32),
-    })
-  }
-  catch (error) {
-    const reason = error instanceof PdfRenderError ? error.message : error instanceof Error ? error.message : String(error)
-    throw createError({ statusCode: 502, message: `The PDF could not be rendered: ${reason}` })
+    }).catch(renderFailure),
   }
 }
 
