@@ -40,14 +40,18 @@ export function titleBlockOf(detail: Detail, office: OfficeStamp | null): TitleB
 
 /**
  * One render is not proof of the document's bytes, so render until two renders agree (three at
- * most) and take the agreed bytes with the print page they came from.
+ * most) and take the agreed bytes with the print page they came from. The page numbers are settled
+ * first; the render that settled them is the first candidate. A check against sealed bytes
+ * (`accept`) that finds no match answers with the last render rather than an error.
  * @throws 502 when no two renders agree.
  */
 async function agreedRevisionPdf(event: H3Event, detail: Detail, stamp: LogStamp | undefined, accept?: (sha256: string) => boolean) {
+  const printer = await revisionPrinter(event, detail, stamp)
+  const { pages, raw } = await printer.settlePageNumbers()
   const seen = new Map<string, number>()
   let last: Rendered | null = null
   for (let attempt = 1; attempt <= 3; attempt++) {
-    last = await renderRevisionPdf(event, detail, stamp)
+    last = await printer.reproducible(attempt === 1 ? raw : await printer.render(pages))
     const sha = sha256Hex(last.bytes)
     if (accept?.(sha) || seen.has(sha)) return { ...last, sha256: sha, renders: attempt, agreed: true }
     seen.set(sha, attempt)
@@ -67,19 +71,32 @@ export async function printViewOf(detail: Detail) {
   return { id: detail.id, titleBlock: titleBlockOf(detail, office), sections: detail.sections, reportHtml: detail.reportHtml, caution: CAUTION }
 }
 
+function renderFailure(event: H3Event) {
+  return (error: unknown): never => {
+    if (error instanceof PdfBusyError) {
+      setResponseHeader(event, 'Retry-After', String(error.retryAfterSeconds))
+      throw createError({ statusCode: 503, message: `The PDF could not be rendered now: ${error.message}` })
+    }
+    const reason = error instanceof PdfRenderError ? error.message : error instanceof Error ? error.message : String(error)
+    throw createError({ statusCode: 502, message: `The PDF could not be rendered: ${reason}` })
+  }
+}
+
 /**
- * Renders the approved revision's print page to reproducible PDF bytes, in two passes at least: the
- * first tells the page of every section heading, the next prints the contents and the page
- * references with those numbers; one more pass if the numbers moved a heading to another page.
- * @throws 502 saying why rendering failed, 503 when this server's renders are all busy.
+ * Prints an approved revision's print page to PDF with its title block and, once sealed or being
+ * sealed, its place in the history log. Page numbers take two passes at least: the first tells the
+ * page of every section heading, the next prints the contents and the page references with those
+ * numbers; one more if the numbers moved a heading.
  */
-async function renderRevisionPdf(event: H3Event, detail: Detail, stamp: LogStamp | undefined): Promise<Rendered> {
+async function revisionPrinter(event: H3Event, detail: Detail, stamp: LogStamp | undefined) {
   const { titleBlock: block } = await printViewOf(detail)
   const origin = printOrigin()
   const session = useRuntimeConfig().session as { name?: string }
   const cookieName = session.name || 'nuxt-session'
   const value = getCookie(event, cookieName)
+  const failed = renderFailure(event)
   let html = ''
+  /** @throws 502 saying why rendering failed, 503 when this server's renders are all busy. */
   const render = (pages: string | null) => renderPdf({
     onHtml: (page) => { html = page },
     url: `${origin}/revisions/${detail.id}/print${pages === null ? '' : `?pages=${pages}`}`,
@@ -87,32 +104,31 @@ async function renderRevisionPdf(event: H3Event, detail: Detail, stamp: LogStamp
     cookies: value ? [{ name: cookieName, value }] : [],
     headerTemplate: headerTemplate(block),
     footerTemplate: footerTemplate(block, stamp),
-  })
-  try {
-    let raw = await render(null)
-    let pages = encodePages(detail.sections, await namedDestinationPages(raw))
-    for (let pass = 2; pass <= 3; pass++) {
-      raw = await render(pages)
-      const printed = encodePages(detail.sections, await namedDestinationPages(raw))
-      if (printed === pages) break
-      pages = printed
-    }
-    const fixed = await makeReproducible(raw, {
-      title: `${block.jobNumber} ${block.sheetReference} ${block.revision} ${block.title}`,
-      subject: `${block.projectName}: ${block.title}`,
-      keywords: [block.archiveRef, block.verificationRef, detail.contentHash, ...(stamp ? logStampKeywords(stamp) : [])],
-      date: new Date(detail.approvedBy?.at ?? detail.issuedAt),
-      documentId: detail.contentHash.slice(0, 32),
-    })
-    return { ...fixed, html }
-  }
-  catch (error) {
-    if (error instanceof PdfBusyError) {
-      setResponseHeader(event, 'Retry-After', String(error.retryAfterSeconds))
-      throw createError({ statusCode: 503, message: `The PDF could not be rendered now: ${error.message}` })
-    }
-    const reason = error instanceof PdfRenderError ? error.message : error instanceof Error ? error.message : String(error)
-    throw createError({ statusCode: 502, message: `The PDF could not be rendered: ${reason}` })
+  }).catch(failed)
+  const pagesOf = async (raw: Uint8Array) => encodePages(detail.sections, await namedDestinationPages(raw))
+  return {
+    render,
+    async settlePageNumbers() {
+      let pages = await pagesOf(await render(null))
+      let raw = await render(pages)
+      const moved = await pagesOf(raw)
+      if (moved !== pages) {
+        pages = moved
+        raw = await render(pages)
+      }
+      return { pages, raw }
+    },
+    /** the render made reproducible, with the print page of the last render */
+    reproducible: async (raw: Uint8Array): Promise<Rendered> => ({
+      ...await makeReproducible(raw, {
+        title: `${block.jobNumber} ${block.sheetReference} ${block.revision} ${block.title}`,
+        subject: `${block.projectName}: ${block.title}`,
+        keywords: [block.archiveRef, block.verificationRef, detail.contentHash, ...(stamp ? logStampKeywords(stamp) : [])],
+        date: new Date(detail.approvedBy?.at ?? detail.issuedAt),
+        documentId: detail.contentHash.slice(0, 32),
+      }).catch(failed),
+      html,
+    }),
   }
 }
 

@@ -9,6 +9,8 @@ import { launch, newPage, screenshot, signInAs } from '../helpers/browser'
 import { issue, makeSheet, pdfText, session } from '../integration/records-fixtures'
 
 let browser: Browser
+/** The machine may be busy: give the page time. */
+const poll = <T>(read: () => T | Promise<T>) => expect.poll(read, { timeout: 30_000, interval: 250 })
 beforeAll(async () => { browser = await launch() })
 afterAll(async () => { await browser?.close() })
 
@@ -72,7 +74,7 @@ async function overflowing(page: Page) {
 }
 
 describe('printing a revision', () => {
-  it('fits the A4 content box, numbers its contents, prints the office in force at approval and reprints the same bytes', async () => {
+  it('fits the A4 content box, numbers its contents, prints the office in force at approval and reprints the same bytes', { timeout: 600_000 }, async () => {
     // the admin sets the office's name and logo on the office-details page
     const admin = await newPage(browser)
     await signInAs(admin, 'admin')
@@ -81,13 +83,13 @@ describe('printing a revision', () => {
     await admin.fill('#office-name', 'Harrow & Vane Structural Engineers')
     await admin.setInputFiles('#office-logo', { name: 'logo.png', mimeType: 'image/png', buffer: png(120, 40) })
     await admin.click('[data-test=office-save]')
-    await expect.poll(() => admin.locator('[data-test=office-name]').textContent()).toContain('Harrow & Vane Structural Engineers')
-    await expect.poll(() => admin.locator('[data-test=office-logo]').evaluate(img => (img as HTMLImageElement).naturalWidth)).toBe(120)
+    await poll(() => admin.locator('[data-test=office-name]').textContent()).toContain('Harrow & Vane Structural Engineers')
+    await poll(() => admin.locator('[data-test=office-logo]').evaluate(img => (img as HTMLImageElement).naturalWidth)).toBe(120)
     // a file that only claims to be a PNG is refused by its content, and nothing is saved
     await admin.setInputFiles('#office-logo', { name: 'logo.png', mimeType: 'image/png', buffer: Buffer.from('%PDF-1.4 not an image') })
     await admin.fill('#office-name', 'Not saved')
     await admin.click('[data-test=office-save]')
-    await expect.poll(() => admin.locator('[role=alert]').textContent()).toContain('upload a PNG or JPEG image')
+    await poll(() => admin.locator('[role=alert]').textContent()).toContain('upload a PNG or JPEG image')
     expect(await admin.locator('[data-test=office-name]').textContent()).toContain('Harrow & Vane')
     await screenshot(admin, 'office-details')
 
@@ -150,7 +152,7 @@ describe('printing a revision', () => {
     await admin.fill('#office-name', 'Vane Partners')
     await admin.setInputFiles('#office-logo', [])
     await admin.click('[data-test=office-save]')
-    await expect.poll(() => admin.locator('[data-test=office-name]').textContent()).toContain('Vane Partners')
+    await poll(() => admin.locator('[data-test=office-name]').textContent()).toContain('Vane Partners')
     const recheck = await clerk.json('POST', `/api/revisions/${approved[0]}/reseal-check`)
     expect(recheck.status).toBe(200)
     expect(recheck.body.identical).toBe(true)
