@@ -1,20 +1,16 @@
 /**
- * Losses of prestress in post-tensioned tendons: friction (EN 1992-1-1 5.10.5.2), anchorage
- * draw-in (5.10.5.3, textbook method of the mirrored friction curve), elastic shortening
+ * Losses of prestress in post-tensioned tendons: friction (EN 1992-1-1 5.10.5.2, in friction.ts), anchorage
+ * draw-in (5.10.5.3, in draw-in.ts), elastic shortening
  * (5.10.5.1) and the time-dependent loss from creep, shrinkage and relaxation (5.10.6).
  * Forces in N, stresses in MPa, x in mm, k in rad/mm.
  */
 import { EngineInputError } from '../contract'
+import { forceAfterLockOff } from './draw-in'
 
-/** Force at x after friction: P(x) = Pmax·e^(−μ(θ + kx)), EN 1992-1-1 eq. (5.45). */
-export function frictionForce(Pmax: number, mu: number, theta: number, k: number, x: number): number {
-  if (!(Pmax >= 0) || !Number.isFinite(Pmax)) throw new EngineInputError('Pmax', 'the jacking force must be a non-negative number')
-  if (!(mu >= 0) || !Number.isFinite(mu)) throw new EngineInputError('mu', 'the friction coefficient must not be negative')
-  if (!(theta >= 0) || !Number.isFinite(theta)) throw new EngineInputError('theta', 'the angular deviation must not be negative')
-  if (!(k >= 0) || !Number.isFinite(k)) throw new EngineInputError('k', 'the wobble coefficient must not be negative')
-  if (!(x >= 0) || !Number.isFinite(x)) throw new EngineInputError('x', 'the distance must not be negative')
-  return Pmax * Math.exp(-mu * (theta + k * x)) // EN 1992-1-1 eq. (5.45): Pmax − ΔPμ(x)
-}
+export { cumulativeAngle, frictionCurves, frictionForce } from './friction'
+export type { FrictionCurves, FrictionCurvesInput } from './friction'
+export { forceAfterLockOff } from './draw-in'
+export type { LockOffInput, LockOffResult, LockOffStage, PerEnd, StressedEnds, StressingSequence } from './draw-in'
 
 export interface DrawInResult {
   /** force after lock-off at each station */
@@ -28,49 +24,23 @@ export interface DrawInResult {
 }
 
 /**
- * Draw-in at the live end (x[0]): the force after lock-off mirrors the friction curve about the
- * level Q where the reversed friction stops, min(P, 2Q − P); Q is found so that the strain lost,
- * ∫ΔP dx /(Ep·Ap), equals the slip (textbook method, e.g. Bhatt; l_set = √(Δ·Ep·Ap/p) for a
- * linear friction loss p per unit length).
+ * Draw-in at the live end x[0] against the friction curve P (the tendon stressed from that end
+ * only): forceAfterLockOff with ends = 'left' and the textbook mirror image of P for the reverse
+ * friction (P may be any friction curve, of eq. (5.45) or not). The slip fixes the affected length through
+ * ∫ΔP dx = Δ·Ep·Ap (textbook method; l_set = √(Δ·Ep·Ap/p) for a constant loss p per unit length).
  */
 export function drawInForces(x: number[], P: number[], slip: number, EpAp: number): DrawInResult {
   if (x.length !== P.length || x.length < 2) throw new EngineInputError('x', 'give at least two stations with their forces')
   if (!(slip >= 0) || !Number.isFinite(slip)) throw new EngineInputError('drawIn', 'the draw-in must not be negative')
   if (!(EpAp > 0)) throw new EngineInputError('Ap', 'Ep·Ap must be positive')
-  const target = slip * EpAp // area under the loss diagram, N·mm
-  const lost = (Q: number): number => {
-    let area = 0
-    for (let i = 1; i < x.length; i++) {
-      const a = Math.max(0, 2 * ((P[i - 1] as number) - Q))
-      const b = Math.max(0, 2 * ((P[i] as number) - Q))
-      area += ((a + b) / 2) * ((x[i] as number) - (x[i - 1] as number)) // trapezoidal rule
-    }
-    return area
+  let r: ReturnType<typeof forceAfterLockOff>
+  try {
+    r = forceAfterLockOff({ x, frictionFromLeft: P, ends: 'left', slip, EpAp, reverseFriction: 'mirror' })
+  } catch (e) {
+    if (e instanceof EngineInputError && e.field === 'slip') throw new EngineInputError('drawIn', e.message.replace(/^slip: /, '')) // this function's own name for it
+    throw e
   }
-  const P0 = P[0] as number
-  if (target === 0) return { P: [...P], lset: 0, lossAtAnchor: 0, wholeLength: false }
-  let lo = Math.min(...P) - target / ((x[x.length - 1] as number) - (x[0] as number)) - 1
-  let hi = P0
-  for (let it = 0; it < 100; it++) {
-    const mid = (lo + hi) / 2
-    if (lost(mid) > target) lo = mid
-    else hi = mid
-  }
-  const Q = (lo + hi) / 2
-  const after = P.map((p) => Math.min(p, 2 * Q - p))
-  let lset = (x[x.length - 1] as number) - (x[0] as number)
-  let wholeLength = true
-  for (let i = 1; i < x.length; i++) {
-    if ((P[i] as number) <= Q) {
-      const pa = P[i - 1] as number
-      const pb = P[i] as number
-      const f = pa === pb ? 0 : (pa - Q) / (pa - pb)
-      lset = (x[i - 1] as number) + f * ((x[i] as number) - (x[i - 1] as number)) - (x[0] as number)
-      wholeLength = false
-      break
-    }
-  }
-  return { P: after, lset, lossAtAnchor: P0 - (after[0] as number), wholeLength }
+  return { P: r.force, lset: r.setLength.left as number, lossAtAnchor: r.lossAtAnchor.left as number, wholeLength: r.wholeLength.left as boolean }
 }
 
 /** Draw-in length for a linear friction loss p (N/mm): l_set = √(Δ·Ep·Ap/p) (textbook, from memory). */

@@ -1,12 +1,16 @@
 /**
  * Stressing schedule: per tendon the jacking force, the stressing end(s), the calculated extension
  * ΔL = ∫P(x)dx/(Ep·Ap) from the force along the tendon after friction (EN 1992-1-1 eq. (5.45)) at
- * the jack, and after lock-off with the draw-in (5.10.5.3), the acceptance band on measured
+ * the jack, and after lock-off with the draw-in (5.10.5.3, forceAfterLockOff: for both ends the
+ * stressing sequence is an input, by default both jacks together as the extension split of each
+ * end up to the meeting point of the friction curves implies), the acceptance band on measured
  * extensions (±7 % is common practice; an input) and the flag of each measured value outside it.
  * Forces N, lengths mm (measured along the tendon), k in rad/mm.
  */
 import { EngineInputError } from '../contract'
-import { drawInForces, frictionForce } from '../prestress/losses'
+import { forceAfterLockOff } from '../prestress/draw-in'
+import type { StressingSequence } from '../prestress/draw-in'
+import { cumulativeAngle, frictionCurves } from '../prestress/friction'
 import { resolveProfile, slopeIn } from '../prestress/profile'
 import type { TendonProfile } from '../prestress/profile'
 import { requireNonNegative, requirePositive, requireRange } from '../common/guards'
@@ -40,6 +44,11 @@ export interface StressingInput {
   k: number
   /** draw-in (wedge set) at each stressed end, mm */
   drawIn: number
+  /**
+   * tendons stressed at both ends: 'simultaneous' (default; two jacks pull together, then both lock
+   * off), or one end jacked and locked off before the other ('left-first', 'right-first')
+   */
+  sequence?: StressingSequence
   /** relative acceptance band on measured extensions, default 0.07 (common practice) */
   tolerance?: number
   /** strand length between the anchorage and the jack's grips, mm; its extension is added at each stressed end */
@@ -67,7 +76,8 @@ export interface TendonSchedule {
   length: number
   /** total angular deviation, rad */
   theta: number
-  /** calculated extension at the jack, per stressed end (null when not stressed there) and total, mm */
+  /** calculated extension at the jack, per stressed end (null when not stressed there) and total, mm; in a
+   * sequence the second jack's extension is what it draws after the first lock-off */
   extension: { left: number | null; right: number | null; total: number }
   /** extension remaining after lock-off, ∫P dx/(Ep Ap) with the draw-in, mm */
   extensionAfterLockOff: number
@@ -88,44 +98,38 @@ export interface StressingSchedule {
 
 interface Path {
   s: number[]
-  thetaFromLeft: number[]
+  slopes: number[]
   length: number
   theta: number
 }
 
-/** Arc length and cumulative angle along the profile (kinks included by the doubled stations at the supports). */
+/** Arc length, slope and cumulative angle along the profile (kinks included by the doubled stations at the supports). */
 function tendonPath(profile: TendonProfile, stations: number): Path {
   const pieces = resolveProfile(profile)
   const s: number[] = []
-  const th: number[] = []
-  let prevAngle: number | null = null
+  const slopes: number[] = []
   let prevX = 0
-  let prevSlope = 0
   let sAcc = 0
-  let thAcc = 0
   profile.spans.forEach((L, span) => {
     for (let j = 0; j <= stations; j++) {
       const x = (L * j) / stations
       const slope = slopeIn(pieces[span] as NonNullable<(typeof pieces)[number]>, x)
-      const angle = Math.atan(slope)
-      if (prevAngle !== null) {
-        const dx = j === 0 ? 0 : x - prevX
-        sAcc += (dx * (Math.sqrt(1 + prevSlope * prevSlope) + Math.sqrt(1 + slope * slope))) / 2 // ds = √(1 + e'²) dx, trapezoidal
-        thAcc += Math.abs(angle - prevAngle) // θ: sum of the angular deviations (5.10.5.2(1))
+      const prevSlope = slopes[slopes.length - 1]
+      if (prevSlope !== undefined && j > 0) {
+        sAcc += ((x - prevX) * (Math.sqrt(1 + prevSlope * prevSlope) + Math.sqrt(1 + slope * slope))) / 2 // ds = √(1 + e'²) dx, trapezoidal
       }
       s.push(sAcc)
-      th.push(thAcc)
-      prevAngle = angle
+      slopes.push(slope)
       prevX = x
-      prevSlope = slope
     }
   })
-  return { s, thetaFromLeft: th, length: sAcc, theta: thAcc }
+  const theta = cumulativeAngle(slopes).at(-1) as number // θ: sum of the true angular deviations (5.10.5.2(1))
+  return { s, slopes, length: sAcc, theta }
 }
 
-function integral(s: number[], P: number[], from = 0, to = s.length - 1): number {
+function integral(s: number[], P: number[]): number {
   let sum = 0
-  for (let j = from + 1; j <= to; j++) sum += (((P[j - 1] as number) + (P[j] as number)) / 2) * ((s[j] as number) - (s[j - 1] as number)) // trapezoidal rule
+  for (let j = 1; j < s.length; j++) sum += (((P[j - 1] as number) + (P[j] as number)) / 2) * ((s[j] as number) - (s[j - 1] as number)) // trapezoidal rule
   return sum
 }
 
@@ -134,6 +138,9 @@ function validate(i: StressingInput): void {
   requireNonNegative('mu', i.mu)
   requireNonNegative('k', i.k)
   requireNonNegative('drawIn', i.drawIn)
+  if (i.sequence !== undefined && !['left-first', 'right-first', 'simultaneous'].includes(i.sequence)) {
+    throw new EngineInputError('sequence', 'left-first, right-first or simultaneous')
+  }
   requireRange('tolerance', i.tolerance ?? 0.07, 0, 0.5, 'the acceptance band must lie between 0 and 50 %')
   requireNonNegative('jackLength', i.jackLength ?? 0)
   if (i.tendons.length === 0) throw new EngineInputError('tendons', 'give at least one tendon')
@@ -154,41 +161,34 @@ function validate(i: StressingInput): void {
   })
 }
 
+/** A draw-in too large for the tendon is reported against this schedule's own field. */
+function asDrawIn<T>(f: () => T): T {
+  try {
+    return f()
+  } catch (e) {
+    if (e instanceof EngineInputError && e.field === 'slip') throw new EngineInputError('drawIn', e.message.replace(/^slip: /, ''))
+    throw e
+  }
+}
+
 export function stressingSchedule(i: StressingInput): StressingSchedule {
   validate(i)
   const tol = i.tolerance ?? 0.07
   const path = tendonPath(i.profile, Math.max(10, i.stations ?? 100))
-  const { s, thetaFromLeft, length, theta } = path
-  const last = s.length - 1
+  const { s, slopes, length, theta } = path
   const series = { s, force: [] as number[][] }
   const tendons = i.tendons.map((t) => {
     const EpAp = i.Ep * t.Ap
-    const fromLeft = s.map((x, j) => frictionForce(t.Pjack, i.mu, thetaFromLeft[j] as number, i.k, x)) // eq. (5.45)
-    const fromRight = s.map((x, j) => frictionForce(t.Pjack, i.mu, theta - (thetaFromLeft[j] as number), i.k, length - x)) // eq. (5.45)
+    const curves = frictionCurves({ x: s, slopes, Pjack: t.Pjack, mu: i.mu, k: i.k }) // eq. (5.45) from either end
     const jackPart = (t.Pjack * (i.jackLength ?? 0)) / EpAp // strand inside the jack
-    let left: number | null = null
-    let right: number | null = null
-    let atJack: number[]
-    if (t.ends === 'left') {
-      atJack = fromLeft
-      left = integral(s, fromLeft) / EpAp + jackPart // ΔL = ∫P dx/(Ep Ap)
-    } else if (t.ends === 'right') {
-      atJack = fromRight
-      right = integral(s, fromRight) / EpAp + jackPart
-    } else {
-      // both ends: each jack stretches the tendon up to the point where the two friction curves meet (common practice)
-      atJack = fromLeft.map((p, j) => Math.max(p, fromRight[j] as number))
-      let split = 0
-      while (split < last && (fromLeft[split + 1] as number) >= (fromRight[split + 1] as number)) split++
-      left = integral(s, fromLeft, 0, split) / EpAp + jackPart
-      right = integral(s, fromRight, split, last) / EpAp + jackPart
-    }
-    let lockOff = atJack
-    if (t.ends !== 'right') lockOff = drawInForces(s, lockOff, i.drawIn, EpAp).P
-    if (t.ends !== 'left') {
-      const rs = s.map((x) => length - x).reverse()
-      lockOff = drawInForces(rs, [...lockOff].reverse(), i.drawIn, EpAp).P.reverse()
-    }
+    const r = asDrawIn(() => forceAfterLockOff({
+      x: s, frictionFromLeft: curves.fromLeft, frictionFromRight: curves.fromRight, ends: t.ends, slip: i.drawIn, EpAp,
+      sequence: t.ends === 'both' ? i.sequence ?? 'simultaneous' : undefined,
+    }))
+    const lockOff = r.force
+    // ΔL = ∫ΔP dx/(Ep Ap) drawn by each jack, plus the strand inside the jack
+    const left = r.extensionAtJack.left === undefined ? null : r.extensionAtJack.left + jackPart
+    const right = r.extensionAtJack.right === undefined ? null : r.extensionAtJack.right + jackPart
     series.force.push(lockOff)
     const total = (left ?? 0) + (right ?? 0)
     const checks: MeasuredCheck[] = (i.measured ?? [])
