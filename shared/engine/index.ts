@@ -94,6 +94,11 @@ export { crackedSection } from './sls/cracked-section'
 export type { SteelLayer, CrackedSectionInput, CrackedSectionResult } from './sls/cracked-section'
 export { CRACK_EXPOSURE_CLASSES, crackRequirement, bondRatioStrand, crackWidth, decompressionCheck } from './sls/cracking'
 export type { CrackExposure, Combination, CrackRequirement, CrackWidthInput, CrackWidthResult, DecompressionInput, DecompressionResult } from './sls/cracking'
+export {
+  crackSizeFactor, kcWeb, kcFlange, tensileDepthAtCracking, bondRatioPostTensioned, tendonEquivalentDiameter, bondAdjustedRatio,
+  minimumCrackSteel, maxBarDiameterTable, maxBarSpacing, maxBarDiameter,
+} from './sls/crack-control-steel'
+export type { WebStressInput, TendonBondKind, CrackStressState, MinimumCrackSteelInput, MinimumCrackSteel, CrackWidthColumn } from './sls/crack-control-steel'
 export { tendonHeightSchedule } from './site/tendon-heights'
 export type { HeightPointKind, TendonHeightInput, HeightRow, TendonHeightSchedule } from './site/tendon-heights'
 export { stressingSchedule } from './site/stressing'

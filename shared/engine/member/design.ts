@@ -97,7 +97,7 @@ export function designMember(raw: unknown, options: DesignOptions = {}): Design 
   const proposal = proposalStage(service, magnel.result, { compute: options.proposal !== false, verify: memberChecks })
   const uls = ulsStage({ input, section, loads, profile, losses, analysis, stresses })
   const sls = slsStage({ input, section, loads, profile, losses, stresses })
-  const site = siteStage(input, section, profile)
+  const site = siteStage(input, section, profile, service.stations)
   const later = [magnel, proposal, uls, sls, site]
   return designRecord(service, {
     magnel: magnel.result,

@@ -3,6 +3,7 @@
  * time-dependent losses (creep, shrinkage, relaxation), giving the force at every station at
  * transfer and in service; then the strands the balanced load needs at the mean service force.
  */
+import { EngineInputError } from '../contract'
 import { fail } from '../common/guards'
 import { at, meanAlong } from '../common/numeric'
 import { ratioCheck } from '../common/check'
@@ -11,9 +12,10 @@ import type { MemberInput } from '../input/schema'
 import { creepCoefficient, shrinkageStrain } from '../materials/creep-shrinkage'
 import { RHO1000, relaxationLoss } from '../materials/strand'
 import { balancedLoad } from '../prestress/equivalent-loads'
-import { slopeIn } from '../prestress/profile'
-import type { ProfilePiece } from '../prestress/profile'
-import { drawInForces, elasticShorteningLoss, frictionForce, timeDependentParts } from '../prestress/losses'
+import { forceAfterLockOff } from '../prestress/draw-in'
+import { frictionCurves } from '../prestress/friction'
+import { elasticShorteningLoss, timeDependentParts } from '../prestress/losses'
+import { tendonPath } from '../prestress/path'
 import type { BalancingNeed } from './balancing'
 import type { MemberLoads } from './loads'
 import type { MemberProfile } from './profile'
@@ -86,6 +88,16 @@ interface LossesInput {
   stations: Station[]
 }
 
+/** A draw-in too large for the tendon is reported against the member's own field. */
+function asDrawIn<T>(f: () => T): T {
+  try {
+    return f()
+  } catch (e) {
+    if (e instanceof EngineInputError && e.field === 'slip') throw new EngineInputError('losses.drawIn', e.message.replace(/^slip: /, ''))
+    throw e
+  }
+}
+
 export function lossesStage({ input, section, loads, profile, balancing, stations }: LossesInput): StageOutcome<MemberLosses> {
   const warnings: string[] = []
   const { strand, Ap, Pjack, strands } = section
@@ -94,28 +106,20 @@ export function lossesStage({ input, section, loads, profile, balancing, station
   const m2Unit = profile.secondaryPerUnitForce
   const cases = loads.cases
 
-  // friction along the tendon from either end (EN 1992-1-1 eq. (5.45)) with the angle summed along the profile
+  // friction from either end (EN 1992-1-1 eq. (5.45)) with θ the true change of direction and x along the tendon,
+  // and the draw-in of every stressed anchor (5.10.5.3): the same routines, on the same path, as the stressing schedule
   const X = stations.map((s) => s.X)
-  const slopes = stations.map((s) => slopeIn(profile.pieces[s.span] as ProfilePiece[], s.x))
-  const thetaL: number[] = [0]
-  for (let k = 1; k < stations.length; k++) thetaL.push(at(thetaL, k - 1) + Math.abs(at(slopes, k) - at(slopes, k - 1)))
-  const thetaTotal = at(thetaL, thetaL.length - 1)
-  const Ltot = profile.length
-  const mu = input.losses.mu
-  const kw = input.losses.wobble
-  const fromLeft = X.map((x, k) => frictionForce(Pjack, mu, at(thetaL, k), kw, x))
-  const fromRight = X.map((x, k) => frictionForce(Pjack, mu, thetaTotal - at(thetaL, k), kw, Ltot - x))
-  // anchorage draw-in (EN 1992-1-1 5.10.5.3) over the length the slip reaches, from each stressed end
-  const EpAp = strand.Ep * Ap
-  const slip = input.losses.drawIn
-  const leftSet = drawInForces(X, fromLeft, slip, EpAp)
-  const rightRev = drawInForces([...X].reverse().map((x) => Ltot - x), [...fromRight].reverse(), slip, EpAp)
-  const rightSet = { ...rightRev, P: [...rightRev.P].reverse() }
+  const path = tendonPath(profile.pieces, input.geometry.spans, stations)
+  const curves = frictionCurves({ x: path.s, slopes: path.slopes, Pjack, mu: input.losses.mu, k: input.losses.wobble })
   const mode = input.tendon.stressing
-  const Pfr = mode === 'left' ? fromLeft : mode === 'right' ? fromRight : fromLeft.map((v, k) => Math.max(v, at(fromRight, k)))
-  const Pdi = mode === 'left' ? leftSet.P : mode === 'right' ? rightSet.P : leftSet.P.map((v, k) => Math.max(v, at(rightSet.P, k)))
-  const drawInLength = mode === 'right' ? rightSet.lset : leftSet.lset
-  if ((mode !== 'right' && leftSet.wholeLength) || (mode !== 'left' && rightSet.wholeLength)) {
+  const lockOff = asDrawIn(() => forceAfterLockOff({
+    x: path.s, frictionFromLeft: curves.fromLeft, frictionFromRight: curves.fromRight, ends: mode, slip: input.losses.drawIn,
+    EpAp: strand.Ep * Ap, sequence: mode === 'both' ? 'simultaneous' : undefined, // both jacks together, as the stressing schedule's default
+  }))
+  const Pfr = mode === 'left' ? curves.fromLeft : mode === 'right' ? curves.fromRight : curves.fromLeft.map((v, k) => Math.max(v, at(curves.fromRight, k)))
+  const Pdi = lockOff.force
+  const drawInLength = (mode === 'right' ? lockOff.setLength.right : lockOff.setLength.left) ?? 0
+  if (lockOff.wholeLength.left === true || lockOff.wholeLength.right === true) {
     warnings.push('The anchorage draw-in reaches the far end of the tendon: check the draw-in and the stressing sequence.')
   }
 

@@ -14,13 +14,15 @@ import { stressingSchedule } from '../site/stressing'
 import type { MeasuredExtension, StressingEnds, StressingSchedule, StressingTendon } from '../site/stressing'
 import type { MemberProfile } from './profile'
 import type { MemberSection } from './section'
+import type { Station } from './stations'
 
 export interface MemberSite {
   heights: TendonHeightSchedule
   stressing: StressingSchedule
 }
 
-export function siteStage(input: MemberInput, section: MemberSection, profile: MemberProfile): StageOutcome<MemberSite> {
+/** The stressing schedule integrates on the member's stations, so its forces after lock-off are the losses stage's. */
+export function siteStage(input: MemberInput, section: MemberSection, profile: MemberProfile, stations: readonly Station[]): StageOutcome<MemberSite> {
   const warnings: string[] = []
   const s = input.site
   // the strands sit off the duct centre by the offset the eccentricity limits allow for (towards the centre of curvature)
@@ -45,7 +47,7 @@ export function siteStage(input: MemberInput, section: MemberSection, profile: M
   const measured: MeasuredExtension[] = values.flatMap((v, i) => (v > 0 ? [{ id: `T${i + 1}`, extension: v }] : []))
   const stressing = stressingSchedule({
     profile: profile.profile, tendons, Ep: section.strand.Ep, mu: input.losses.mu, k: input.losses.wobble, drawIn: input.losses.drawIn,
-    tolerance: s.tolerance, jackLength: s.jackLength, measured,
+    tolerance: s.tolerance, jackLength: s.jackLength, measured, points: stations,
   })
   // common practice: the measured extension within a band about the calculated one; the schedule decides the pass
   const checks: CheckResult[] = stressing.tendons.flatMap((t) => t.checks.map((c) => ({

@@ -10,8 +10,10 @@
 import { EngineInputError } from '../contract'
 import { forceAfterLockOff } from '../prestress/draw-in'
 import type { StressingSequence } from '../prestress/draw-in'
-import { cumulativeAngle, frictionCurves } from '../prestress/friction'
-import { resolveProfile, slopeIn } from '../prestress/profile'
+import { frictionCurves } from '../prestress/friction'
+import { evenPoints, tendonPath } from '../prestress/path'
+import type { PathPoint } from '../prestress/path'
+import { resolveProfile } from '../prestress/profile'
 import type { TendonProfile } from '../prestress/profile'
 import { requireNonNegative, requirePositive, requireRange } from '../common/guards'
 
@@ -56,6 +58,8 @@ export interface StressingInput {
   measured?: MeasuredExtension[]
   /** stations per span for the integration */
   stations?: number
+  /** the points along the profile to integrate on instead (the member passes its own stations) */
+  points?: readonly PathPoint[]
 }
 
 export interface MeasuredCheck {
@@ -94,37 +98,6 @@ export interface StressingSchedule {
   tendons: TendonSchedule[]
   /** stations along the tendon (s along the profile) with the lock-off force of each tendon, for figures */
   series: { s: number[]; force: number[][] }
-}
-
-interface Path {
-  s: number[]
-  slopes: number[]
-  length: number
-  theta: number
-}
-
-/** Arc length, slope and cumulative angle along the profile (kinks included by the doubled stations at the supports). */
-function tendonPath(profile: TendonProfile, stations: number): Path {
-  const pieces = resolveProfile(profile)
-  const s: number[] = []
-  const slopes: number[] = []
-  let prevX = 0
-  let sAcc = 0
-  profile.spans.forEach((L, span) => {
-    for (let j = 0; j <= stations; j++) {
-      const x = (L * j) / stations
-      const slope = slopeIn(pieces[span] as NonNullable<(typeof pieces)[number]>, x)
-      const prevSlope = slopes[slopes.length - 1]
-      if (prevSlope !== undefined && j > 0) {
-        sAcc += ((x - prevX) * (Math.sqrt(1 + prevSlope * prevSlope) + Math.sqrt(1 + slope * slope))) / 2 // ds = √(1 + e'²) dx, trapezoidal
-      }
-      s.push(sAcc)
-      slopes.push(slope)
-      prevX = x
-    }
-  })
-  const theta = cumulativeAngle(slopes).at(-1) as number // θ: sum of the true angular deviations (5.10.5.2(1))
-  return { s, slopes, length: sAcc, theta }
 }
 
 function integral(s: number[], P: number[]): number {
@@ -174,7 +147,8 @@ function asDrawIn<T>(f: () => T): T {
 export function stressingSchedule(i: StressingInput): StressingSchedule {
   validate(i)
   const tol = i.tolerance ?? 0.07
-  const path = tendonPath(i.profile, Math.max(10, i.stations ?? 100))
+  const points = i.points ?? evenPoints(i.profile.spans, Math.max(10, i.stations ?? 100))
+  const path = tendonPath(resolveProfile(i.profile), i.profile.spans, points)
   const { s, slopes, length, theta } = path
   const series = { s, force: [] as number[][] }
   const tendons = i.tendons.map((t) => {

@@ -73,7 +73,7 @@ export interface SupportSteel {
 }
 
 /** The rule stated in the report beside the result. */
-export const SUPPORT_STEEL_RULE = 'As ≥ 0.00075·h·l2 over the column, within the column width plus 1.5h each side (common practice for post-tensioned flat slabs, as in ACI 318 8.6.2.3)'
+export const SUPPORT_STEEL_RULE = 'As ≥ 0.00075·h·l2 over the column, within the column width plus 1.5h each side (common practice for post-tensioned flat slabs; EN 1992-1-1 sets no amount)'
 
 /** Bonded top reinforcement over a column of a post-tensioned slab (common practice, see SUPPORT_STEEL_RULE). */
 export function supportBondedSteel(i: SupportSteelInput): SupportSteel {
@@ -87,8 +87,8 @@ export function supportBondedSteel(i: SupportSteelInput): SupportSteel {
 
 /**
  * Bonded steel for a tension zone of a post-tensioned member in service: As = Nc/(0.5 fyk), Nc the
- * resultant of the tensile stress block of the uncracked section (common practice, as in ACI 318
- * 8.6.2.3 for slabs whose tension exceeds about 0.17√fck).
+ * resultant of the tensile stress block of the uncracked section (common practice for slabs whose
+ * tension exceeds about 0.17√fck, from memory; EN 1992-1-1 sets no such amount).
  */
 export function tensionZoneSteel(i: { sigmaTension: number; sigmaCompression: number; h: number; b: number; fyk: number }): { Nc: number; As: number; depthInTension: number } {
   requirePositive('h', i.h)

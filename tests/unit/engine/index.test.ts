@@ -5,6 +5,7 @@
  */
 import { describe, expect, it } from 'vitest'
 import * as engine from '../../../shared/engine/index'
+import * as crackSteel from '../../../shared/engine/sls/crack-control-steel'
 // the type names: tsc (tsconfig.engine.json) rejects this import if one of them is missing
 import type {
   BalancingForce, BarLayer, BeamLoad, BendingInput, BendingResult, CementClass, CheckResult, ColumnPosition,
@@ -51,6 +52,11 @@ describe('public surface of shared/engine', () => {
   it('keeps every value name exported before the stages', () => {
     const missing = VALUES.filter((n) => !(n in engine))
     expect(missing).toEqual([])
+  })
+  it('exports the eq. (7.1) minimum crack steel and its helpers as the module\'s own functions', () => {
+    const names = ['crackSizeFactor', 'kcWeb', 'kcFlange', 'tensileDepthAtCracking', 'bondRatioPostTensioned', 'tendonEquivalentDiameter',
+      'bondAdjustedRatio', 'minimumCrackSteel', 'maxBarDiameterTable', 'maxBarSpacing', 'maxBarDiameter'] as const
+    for (const n of names) expect((engine as Record<string, unknown>)[n], n).toBe((crackSteel as Record<string, unknown>)[n])
   })
   it('exports designMember and every stage as a function', () => {
     for (const n of STAGE_FUNCTIONS) expect(typeof (engine as Record<string, unknown>)[n], n).toBe('function')

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest'
-import { reinforcementLimits, supportBondedSteel, tensionZoneSteel } from '../../../../shared/engine/uls/reinforcement'
+import { readFileSync } from 'node:fs'
+import { SUPPORT_STEEL_RULE, reinforcementLimits, supportBondedSteel, tensionZoneSteel } from '../../../../shared/engine/uls/reinforcement'
 
 describe('minimum and maximum reinforcement (EN 1992-1-1 9.2.1.1, 9.3.1.1)', () => {
   it('eq. (9.1N) for C32/40 and B500: 0.26·fctm/fyk governs over 0.0013', () => {
@@ -30,5 +31,19 @@ describe('minimum and maximum reinforcement (EN 1992-1-1 9.2.1.1, 9.3.1.1)', () 
     expect(r.depthInTension).toBeCloseTo(65, 9)
     expect(r.Nc).toBeCloseTo(0.5 * 2 * 65 * 1000, 6)
     expect(r.As).toBeCloseTo(65000 / 250, 6)
+  })
+})
+
+describe('sources of the reinforcement rules', () => {
+  // Tendonbook designs to EN 1992-1-1: a rule it does not set is common practice, never another country's code
+  const foreign = /\b(ACI|AS ?3600|BS ?8110|CSA|IS ?456|NZS|GB ?50010|AASHTO|PTI)\b/
+  it('the support-steel rule cites common practice and no foreign code', () => {
+    expect(SUPPORT_STEEL_RULE).toContain('common practice')
+    expect(SUPPORT_STEEL_RULE).not.toMatch(foreign)
+    expect(supportBondedSteel({ h: 250, panelWidth: 8000, columnWidth: 400 }).rule).toBe(SUPPORT_STEEL_RULE)
+  })
+  it('the module names no foreign code anywhere', () => {
+    const source = readFileSync(new URL('../../../../shared/engine/uls/reinforcement.ts', import.meta.url), 'utf8')
+    expect(source).not.toMatch(foreign)
   })
 })
