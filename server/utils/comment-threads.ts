@@ -50,8 +50,17 @@ export interface CommentThread {
 
 /** The replies a revision row carries, each checked against the shared schema; anything else is not a reply. */
 export function repliesIn(value: unknown): CommentReply[] {
-  if (!Array.isArray(value)) return []
-  return value.flatMap((r) => {
+  let list = value
+  if (typeof value === 'string') {
+    try {
+      list = JSON.parse(value)
+    }
+    catch {
+      return []
+    }
+  }
+  if (!Array.isArray(list)) return []
+  return list.flatMap((r) => {
     const parsed = commentReply.safeParse(r)
     return parsed.success ? [parsed.data] : []
   })

@@ -61,8 +61,10 @@ export interface RevisionDiff {
   inputs: InputChange[]
   sections: SectionChanges[]
   counts: { nowFails: number, nowPasses: number, governingMoved: number }
-  /** every result value that changed beyond a tiny tolerance, for the "show all" list */
+  /** every catalogued result value that changed beyond a tiny tolerance, for the "show all" list */
   all: ValueChange[]
+  /** changed values the catalogue does not describe (figure samples, intermediate lists), counted only */
+  uncatalogued: number
   /** governing values and utilisations are listed when they move by more than this share */
   threshold: number
 }
@@ -236,7 +238,8 @@ export function diffRevisions(model: ReportModel, before: DiffSide, after: DiffS
   const threshold = options.threshold ?? 0.01
   const leavesBefore = resultLeaves(before.results)
   const leavesAfter = resultLeaves(after.results)
-  const all = changedLeaves(leavesBefore, leavesAfter, NOISE.relative, NOISE.absolute)
+  const changed = changedLeaves(leavesBefore, leavesAfter, NOISE.relative, NOISE.absolute)
+  const all = changed.filter(path => specOf(model, path) !== undefined)
   const governing = governingValues(model, leavesBefore, leavesAfter)
     .filter(g => differsBeyond(g.before, g.after, threshold, NOISE.absolute))
 
@@ -269,6 +272,7 @@ export function diffRevisions(model: ReportModel, before: DiffSide, after: DiffS
       governingMoved: governing.length,
     },
     all: all.map(path => valueChange(model, path, leavesBefore.get(path), leavesAfter.get(path))),
+    uncatalogued: changed.length - all.length,
     threshold,
   }
 }

@@ -126,13 +126,13 @@ describe('printing a revision', () => {
     const clerk = await session('records')
     const sealed = await clerk.json('POST', `/api/revisions/${approved[0]}/seal`)
     expect(sealed.status, JSON.stringify(sealed.body).slice(0, 300)).toBe(201)
+    const detail = sealed.body as { sections: Array<{ id: string, title: string, level: number }> }
     const pdf = new Uint8Array(await (await clerk.fetch(`/api/revisions/${approved[0]}/pdf`)).arrayBuffer())
     const { pages, numPages } = await pdfText(pdf)
     expect(numPages).toBe(sealed.body.seal.pages)
     for (const page of pages) expect(page).toContain('Harrow & Vane Structural Engineers')
     const contents = pages[0]!.replace(/\s+/g, ' ')
     expect(contents).toContain('Contents')
-    const detail = (await clerk.json('GET', `/api/revisions/${approved[0]}`)).body as { sections: Array<{ id: string, title: string, level: number }> }
     let checked = 0
     for (const s of detail.sections.filter(x => x.level === 1)) {
       const listed = new RegExp(`${s.title.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')} (\\d+)`).exec(contents)
@@ -144,7 +144,7 @@ describe('printing a revision', () => {
     }
     expect(checked).toBeGreaterThan(10)
     // the front page refers to sections by page too
-    expect(pages.join(' ').replace(/\s+/g, ' ')).toMatch(/Load balancing, p\. \d+/)
+    expect(pages.join(' ').replace(/\s+/g, ' ')).toMatch(/Load balancing ?, p\. \d+/)
 
     // the office renames itself: the sealed revision still re-renders to the same bytes, with the old name
     await admin.goto('/admin/office')

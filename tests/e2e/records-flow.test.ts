@@ -63,7 +63,7 @@ describe('issue → check → return → issue → approve → seal → verify, 
     // checker approves P02 as C01
     await checker.goto(p02.href)
     await checker.waitForLoadState('networkidle')
-    await expect.poll(() => checker.locator('[data-test=diff-inputs]').textContent()).toContain('section.h')
+    await expect.poll(() => checker.locator('[data-test=diff-inputs]').textContent()).toContain('Overall depth')
     await checker.click('[data-test=review-approve]')
     await expect.poll(() => checker.locator('[data-test=revision-status]').getAttribute('data-status'), { timeout: 15_000 }).toBe('approved')
     await screenshot(checker, 'records-approved')

@@ -169,7 +169,9 @@ describe('check and sign-off', () => {
     const diff = await checker.json('GET', `/api/revisions/${second.id}/diff`)
     expect(diff.body.against.code).toBe('P01')
     expect(diff.body.diff.inputs.map((c: { path: string }) => c.path)).toContain('section.h')
-    expect(diff.body.diff.results.length).toBeGreaterThan(0)
+    expect(diff.body.diff.inputs.find((c: { path: string }) => c.path === 'section.h')).toMatchObject({ label: 'Overall depth', group: 'section' })
+    expect(diff.body.diff.all.length).toBeGreaterThan(0)
+    expect(diff.body.diff.sections.length).toBeGreaterThan(0)
     const firstAfter = await checker.json('GET', `/api/revisions/${first.id}`)
     expect(firstAfter.body.status.status).toBe('superseded')
 

@@ -27,6 +27,8 @@ describe('comment threads', () => {
 
   it('reads only replies of the shared shape', () => {
     expect(repliesIn(null)).toEqual([])
+    expect(repliesIn('not json')).toEqual([])
+    expect(repliesIn('[{"reviewId":3,"index":1,"text":"Done"}]')).toEqual([{ reviewId: 3, index: 1, text: 'Done' }])
     expect(repliesIn([{ reviewId: 1, index: 0, text: '  ok ' }, { reviewId: 1, index: -1, text: 'x' }, 'text'])).toEqual([{ reviewId: 1, index: 0, text: 'ok' }])
   })
 

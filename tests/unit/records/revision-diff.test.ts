@@ -23,6 +23,7 @@ const model: ReportModel = {
     'deflection[].long': { label: 'Long-term deflection', unit: 'mm', precision: 1 },
     'other': { label: 'Some other result', unit: 'mm', precision: 1 },
   },
+  resultSpec: pattern => (/^sections\[\]\.r\d+$/.test(pattern) ? { label: pattern, unit: '', precision: 3 } : undefined),
   resultShape: new Map(),
   checkGroups: ['service'],
   figures: {},
@@ -101,8 +102,11 @@ describe('revision diff', () => {
     expect(diff.sections[1]!.values[0]!.label).toBe('Long-term deflection, greatest of 2')
     expect(diff.sections[1]!.values[0]!.after.replace(/\s/g, ' ')).toBe('5.2 mm')
     expect(diff.counts).toEqual({ nowFails: 1, nowPasses: 1, governingMoved: 1 })
-    // a 0.6 % move of the force is in the full list only; the other result is not governing
+    // a 0.6 % move of the force is in the full list only; the other result is not governing; a value the catalogue does not describe is counted
     expect(diff.all.map(c => c.path)).toEqual(['deflection.1.long', 'force.service', 'other'])
+    expect(diff.uncatalogued).toBe(0)
+    const samples = diffRevisions(model, side({}, { samples: [1, 2] }), side({}, { samples: [1, 3] }))
+    expect([samples.all.length, samples.uncatalogued]).toEqual([0, 1])
   })
 
   it('applies |a − b| > abs + rel·max(|a|,|b|)', () => {
