@@ -1,3 +1,4 @@
+import { fieldOf } from '../../../helpers/engine'
 import { describe, expect, it } from 'vitest'
 import { forceAfterLockOff } from '../../../../shared/engine/prestress/draw-in'
 import { drawInForces } from '../../../../shared/engine/prestress/losses'
@@ -10,15 +11,6 @@ const area = (x: readonly number[], v: readonly number[]): number => {
   return a
 }
 const mean = (x: readonly number[], v: readonly number[]): number => area(x, v) / ((x[x.length - 1] as number) - (x[0] as number))
-const fieldOf = (f: () => unknown): string => {
-  try {
-    f()
-  } catch (e) {
-    if (e instanceof EngineInputError) return e.field
-    throw e
-  }
-  return 'no error'
-}
 
 // straight tendon with wobble only: F(x) = Pj·e^(−μ·k·x), EN 1992-1-1 eq. (5.45) with θ = 0
 const straight = (x: readonly number[], L: number, Pj: number, mu: number, k: number) => ({

@@ -1,19 +1,10 @@
+import { fieldOf } from '../../../helpers/engine'
 import { describe, expect, it } from 'vitest'
 import {
   bondAdjustedRatio, bondRatioPostTensioned, crackSizeFactor, kcFlange, kcWeb, maxBarDiameter, maxBarDiameterTable, maxBarSpacing,
   minimumCrackSteel, tendonEquivalentDiameter, tensileDepthAtCracking,
 } from '../../../../shared/engine/sls/crack-control-steel'
 import { EngineInputError } from '../../../../shared/engine/contract'
-
-const fieldOf = (f: () => unknown): string => {
-  try {
-    f()
-  } catch (e) {
-    if (e instanceof EngineInputError) return e.field
-    throw e
-  }
-  return 'no error'
-}
 
 describe('factors of EN 1992-1-1 7.3.2(2)', () => {
   it('k = 1.0 up to 300 mm, 0.65 from 800 mm, interpolated between', () => {

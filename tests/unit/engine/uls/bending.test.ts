@@ -1,3 +1,4 @@
+import { fieldOf } from '../../../helpers/engine'
 import { describe, expect, it } from 'vitest'
 import { bendingResistance, stressBlock, tendonDesignStress, type BendingInput } from '../../../../shared/engine/uls/bending'
 import { EngineInputError } from '../../../../shared/engine/contract'
@@ -139,20 +140,11 @@ describe('strain compatibility on random sections (seeded)', () => {
 
 describe('bad input names the field', () => {
   const ok: BendingInput = { section: { kind: 'rectangle', b: 1000, h: 260 }, face: 'sagging', fck: 32, tendons: [{ Ap: 500, d: 200, fpk: 1860, fp01k: 1640, Ep: 195000, sigmaPmInf: 1000, bonded: true }] }
-  const field = (f: () => unknown): string => {
-    try {
-      f()
-    } catch (e) {
-      if (e instanceof EngineInputError) return e.field
-      throw e
-    }
-    return 'no error'
-  }
   it('each bad value', () => {
-    expect(field(() => bendingResistance({ ...ok, fck: 100 }))).toBe('fck')
-    expect(field(() => bendingResistance({ ...ok, section: { kind: 'rectangle', b: -1, h: 260 } }))).toBe('section.b')
-    expect(field(() => bendingResistance({ ...ok, tendons: [{ ...ok.tendons[0]!, d: 300 }] }))).toBe('tendons.0.d')
-    expect(field(() => bendingResistance({ ...ok, bars: [{ As: Number.NaN, d: 200 }] }))).toBe('bars.0.As')
-    expect(field(() => bendingResistance({ ...ok, section: { kind: 'flanged', bw: 300, h: 260, bf: 1000, hf: 300 } }))).toBe('section.hf')
+    expect(fieldOf(() => bendingResistance({ ...ok, fck: 100 }))).toBe('fck')
+    expect(fieldOf(() => bendingResistance({ ...ok, section: { kind: 'rectangle', b: -1, h: 260 } }))).toBe('section.b')
+    expect(fieldOf(() => bendingResistance({ ...ok, tendons: [{ ...ok.tendons[0]!, d: 300 }] }))).toBe('tendons.0.d')
+    expect(fieldOf(() => bendingResistance({ ...ok, bars: [{ As: Number.NaN, d: 200 }] }))).toBe('bars.0.As')
+    expect(fieldOf(() => bendingResistance({ ...ok, section: { kind: 'flanged', bw: 300, h: 260, bf: 1000, hf: 300 } }))).toBe('section.hf')
   })
 })
