@@ -108,7 +108,7 @@ export const useSheetStore = defineStore('sheet', () => {
 
   const checks = computed(() => shownRun.value?.design.checks ?? [])
 
-  // Replies to the checker's comments on a returned revision, keyed "reviewId:comment"; they go with
+  // Replies to the checker's comments on a returned revision, keyed "reviewId:index"; they go with
   // the next issue. Kept in the browser per revision, so a reload does not lose what is written.
   const replies = ref<Record<string, string>>({})
   const repliesTo = ref<number | null>(null)
@@ -118,13 +118,13 @@ export const useSheetStore = defineStore('sheet', () => {
     repliesTo.value = revisionId
     replies.value = revisionId === null ? {} : JSON.parse(localStorage.getItem(replyStoreKey(revisionId)) ?? '{}')
   }
-  function setReply(reviewId: number, comment: number, text: string) {
-    replies.value = { ...replies.value, [`${reviewId}:${comment}`]: text }
+  function setReply(reviewId: number, index: number, text: string) {
+    replies.value = { ...replies.value, [`${reviewId}:${index}`]: text }
     if (repliesTo.value !== null) localStorage.setItem(replyStoreKey(repliesTo.value), JSON.stringify(replies.value))
   }
   const replyList = computed(() => Object.entries(replies.value).filter(([, text]) => text.trim()).map(([key, text]) => {
-    const [reviewId, comment] = key.split(':').map(Number) as [number, number]
-    return { reviewId, comment, text: text.trim() }
+    const [reviewId, index] = key.split(':').map(Number) as [number, number]
+    return { reviewId, index, text: text.trim() }
   }))
   /** The replies went with an issue: forget them. */
   function clearReplies() {

@@ -4,6 +4,7 @@ import { asc, eq, getTableColumns, inArray } from 'drizzle-orm'
 import type { MySql2Database } from 'drizzle-orm/mysql2'
 import type { MySqlTable } from 'drizzle-orm/mysql-core'
 import { entryLeafHash, LOG_KINDS, logEntry, type LogKind } from '../../shared/log/entry'
+import { ROW_FORM } from '../../shared/log/row-form'
 import * as schema from './schema'
 
 type Database = MySql2Database<typeof schema>
@@ -71,8 +72,8 @@ export async function appendToLog(tx: Runner, items: Array<{ kind: LogKind, id: 
   for (const { kind, id } of items) {
     const row = (await rowsOf(tx, kind, [id])).get(id)
     if (!row) throw new Error(`${rowLabel(kind, id)} cannot be read back to be logged`)
-    const leafHash = entryLeafHash(logEntry(kind, row))
-    await tx.insert(schema.logLeaves).values({ leafIndex: next, kind, rowId: id, batch, leafHash, createdAt: new Date() })
+    const leafHash = entryLeafHash(logEntry(kind, row, ROW_FORM))
+    await tx.insert(schema.logLeaves).values({ leafIndex: next, kind, rowId: id, batch, leafHash, form: ROW_FORM, createdAt: new Date() })
     out.push({ leafIndex: next, row })
     next += 1
   }

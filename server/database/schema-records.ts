@@ -24,7 +24,8 @@ export const revisions = mysqlTable('revisions', {
   note: varchar('note', { length: 500 }).notNull().default(''),
   // why the author issued although checks fail (required then); frozen with the run
   failingChecksReason: varchar('failing_checks_reason', { length: 2000 }).notNull().default(''),
-  // the author's replies to the checker's comments on the revision before: [{ reviewId, comment, anchor, commentText, text }]
+  // the author's replies to the checker's comments on the revision before, as FrozenReply of
+  // shared/schemas/review.ts: [{ reviewId, index, text, anchor, commentText }]; null when none
   replies: json('replies'),
   inputs: json('inputs').notNull(),
   results: json('results').notNull(),
@@ -185,6 +186,8 @@ export const logLeaves = mysqlTable('log_leaves', {
   batch: bigint('batch', { mode: 'number' }).notNull(),
   leafHash: sha256('leaf_hash').notNull(),
   createdAt: ms('created_at').notNull(),
+  // the row form (shared/log/row-form.ts) the leaf's entry was written in; part of the entry too
+  form: int('form').notNull().default(1),
 }, t => [
   uniqueIndex('log_leaves_kind_row_unique').on(t.kind, t.rowId),
   index('log_leaves_batch_idx').on(t.batch),

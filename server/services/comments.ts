@@ -1,5 +1,5 @@
 import type { H3Event } from 'h3'
-import { and, asc, desc, eq, getTableColumns, lte } from 'drizzle-orm'
+import { and, asc, desc, eq, lte } from 'drizzle-orm'
 import { alias } from 'drizzle-orm/mysql-core'
 import type { CommentStateBody } from '../../shared/schemas/review'
 import type { Db } from '../utils/db'
@@ -10,8 +10,8 @@ type SessionUser = { id: number, name: string, email: string, role: import('../.
 
 /**
  * Every comment on the sheet's revisions up to `uptoSeq`, with the engineer's replies and its state.
- * Replies travel with the revision that answers them, in a `replies` column of the revisions table
- * when the schema has one (see shared/schemas/review.ts for their shape).
+ * Replies travel with the revision that answers them, in the `replies` column of the revisions table
+ * (FrozenReply of shared/schemas/review.ts, read back with its `commentReply` schema).
  */
 export async function sheetCommentThreads(db: Db | Tx, sheetId: number, uptoSeq: number): Promise<CommentThread[]> {
   const r = tables.revisions
@@ -27,12 +27,9 @@ export async function sheetCommentThreads(db: Db | Tx, sheetId: number, uptoSeq:
   const actor = alias(tables.users, 'actor')
   const states = await db.select({ reviewId: cs.reviewId, commentIndex: cs.commentIndex, state: cs.state, actorName: actor.name, createdAt: cs.createdAt })
     .from(cs).innerJoin(v, eq(v.id, cs.reviewId)).innerJoin(actor, eq(actor.id, cs.actorId)).where(eq(v.sheetId, sheetId)).orderBy(asc(cs.id))
-  const repliesColumn = (getTableColumns(r) as Record<string, unknown>).replies as typeof r.note | undefined
   const author = alias(tables.users, 'author')
-  const replySources = repliesColumn
-    ? await db.select({ revisionCode: r.code, authorName: author.name, issuedAt: r.issuedAt, replies: repliesColumn }).from(r).innerJoin(author, eq(author.id, r.authorId))
-      .where(and(eq(r.sheetId, sheetId), lte(r.seq, uptoSeq))).orderBy(asc(r.seq))
-    : []
+  const replySources = await db.select({ revisionCode: r.code, authorName: author.name, issuedAt: r.issuedAt, replies: r.replies }).from(r).innerJoin(author, eq(author.id, r.authorId))
+    .where(and(eq(r.sheetId, sheetId), lte(r.seq, uptoSeq))).orderBy(asc(r.seq))
   return commentThreads(reviews, (revisionId, anchor) => titles.get(revisionId)?.get(anchor) ?? anchor, states, replySources)
 }
 

@@ -9,7 +9,8 @@ import type { Tx } from '../utils/audit'
 import { plainJson, revisionHash } from '../utils/hashing'
 import { deriveStatus, revisionCode, type DerivedStatus } from '../utils/revision-status'
 import { diffRevisions } from '../utils/revision-diff'
-import type { CommentReply, IssueRevisionBody } from '../../shared/schemas/issue'
+import type { IssueRevisionBody } from '../../shared/schemas/issue'
+import type { CommentReply, FrozenReply } from '../../shared/schemas/review'
 import { describeInputError } from '../../shared/sheet/labels'
 import { MODELS } from '../../shared/report/models'
 
@@ -56,8 +57,7 @@ function mailLink(event: H3Event, path: string) {
   return `${getRequestURL(event).origin}${path}`
 }
 
-/** A reply as frozen with the revision: the comment it answers is quoted, so the record reads on its own. */
-export interface FrozenReply extends CommentReply { anchor: string, commentText: string }
+export type { FrozenReply }
 
 /**
  * The replies, checked against the comments of the sheet's latest revision (the one they answer).
@@ -71,7 +71,7 @@ async function frozenReplies(tx: Tx, sheetId: number, latestRevisionId: number |
       .where(and(eq(tables.reviews.revisionId, latestRevisionId), eq(tables.reviews.sheetId, sheetId)))
   return replies.map((reply) => {
     const comments = reviews.find(v => v.id === reply.reviewId)?.comments as Array<{ anchor?: string, text: string }> | undefined
-    const comment = comments?.[reply.comment]
+    const comment = comments?.[reply.index]
     if (!comment) {
       const message = 'A reply answers a comment that the latest revision does not have; reload the sheet'
       throw createError({ statusCode: 400, message: `Replies to the comments: ${message}`, data: { fields: { replies: message } } })

@@ -1,6 +1,7 @@
 // Content hashes of the records side: SHA-256 over RFC 8785 canonical JSON (package `canonicalize`).
 // Pure functions (no Nitro auto-imports) so unit tests can check them against independent values.
 import { assertPlainJson, canonicalJson, sha256Hex } from '../../shared/log/canonical'
+import { laterFields } from '../../shared/log/row-form'
 
 export { canonicalJson, sha256Hex }
 
@@ -23,7 +24,7 @@ export interface RevisionHashFields {
   seq: number
   code: string
   note: string
-  /** added later: covered only when given, so revisions issued before it keep their hash */
+  /** added later (shared/log/row-form.ts LATER_COLUMNS): covered unless absent, so revisions issued before it keep their hash */
   failingChecksReason?: string | null
   replies?: unknown
   inputs: unknown
@@ -49,8 +50,7 @@ export function revisionHash(r: RevisionHashFields): string {
     seq: r.seq,
     code: r.code,
     note: r.note,
-    ...(r.failingChecksReason ? { failingChecksReason: r.failingChecksReason } : {}),
-    ...(Array.isArray(r.replies) && r.replies.length ? { replies: r.replies } : {}),
+    ...laterFields('revision', { failingChecksReason: r.failingChecksReason, replies: r.replies }),
     inputs: r.inputs,
     results: r.results,
     template: { id: r.templateId, slug: r.templateSlug, version: r.templateVersion, title: r.templateTitle, model: r.model, body: r.templateBody },
@@ -70,7 +70,7 @@ export interface ReviewHashFields {
   comments: unknown
   reviewerId: number
   createdAt: Date
-  /** the office details frozen by an approval; absent from the hash when null, so older rows keep theirs */
+  /** the office details frozen by an approval; added later (LATER_COLUMNS): absent from the hash when null, so older rows keep theirs */
   officeVersion?: number | null
 }
 
@@ -84,7 +84,7 @@ export function reviewHash(r: ReviewHashFields): string {
     comments: r.comments,
     reviewerId: r.reviewerId,
     createdAt: r.createdAt.toISOString(),
-    ...(r.officeVersion == null ? {} : { officeVersion: r.officeVersion }),
+    ...laterFields('review', { officeVersion: r.officeVersion }),
   })
 }
 

@@ -3,6 +3,7 @@
 // deleted, reordered, inserted or edited behind the application's back no longer gives the root
 // of a head signed before. Pure: rows, leaves and heads in, breaks out.
 import { entryLeafHash, LOG_KINDS, logEntry, type LogKind } from '../../shared/log/entry'
+import { KNOWN_ROW_FORMS } from '../../shared/log/row-form'
 import { leafHash, MerkleTree } from '../../shared/log/merkle'
 import { keyIdOf, verifyTreeHead } from '../../shared/log/tree-head'
 import { rowLabel } from '../database/history-log'
@@ -18,7 +19,8 @@ export interface LogBreak {
 type Row = Record<string, unknown>
 export interface LogCheckInput {
   rows: Record<LogKind, Map<number, Row>>
-  leaves: Array<{ leafIndex: number, kind: LogKind, rowId: number, batch: number, leafHash: string }>
+  /** `form`: the row form the leaf was written in (1 when not given) */
+  leaves: Array<{ leafIndex: number, kind: LogKind, rowId: number, batch: number, leafHash: string, form?: number }>
   heads: Array<{ id: number, treeSize: number, rootHash: string, signedAt: Date, signature: string, keyId: string }>
   publicKeyPem: string
 }
@@ -53,7 +55,13 @@ export function checkLog(input: LogCheckInput): { breaks: LogBreak[], tree: Merk
       recomputed.push(leafHash(`missing ${leaf.kind} ${leaf.rowId}`))
       continue
     }
-    const hash = entryLeafHash(logEntry(leaf.kind, row))
+    const form = leaf.form ?? 1
+    if (!KNOWN_ROW_FORMS.includes(form)) {
+      breaks.push({ chain: 'log', id: leaf.leafIndex, label, problem: 'changed', reason: `the leaf names row form ${form}, which this version of Tendonbook does not know` })
+      recomputed.push(Buffer.from(leaf.leafHash, 'hex'))
+      continue
+    }
+    const hash = entryLeafHash(logEntry(leaf.kind, row, form))
     if (hash !== leaf.leafHash) breaks.push({ chain: 'log', id: leaf.leafIndex, label, problem: 'changed', reason: 'the row no longer matches the leaf it was logged as (changed after it was written)' })
     recomputed.push(Buffer.from(hash, 'hex'))
     if (leaf.kind === 'audit') auditByBatch.set(leaf.batch, [...(auditByBatch.get(leaf.batch) ?? []), row])

@@ -1,13 +1,6 @@
 import { z } from 'zod'
+import { commentReply } from './review'
 import { textField } from './text'
-
-/** A reply to one comment of the checker's, sent with the next issue of the sheet. */
-export const commentReplySchema = z.object({
-  reviewId: z.number({ message: 'Reply: the review is missing' }).int().positive(),
-  /** the comment's place in its review, from 0 */
-  comment: z.number({ message: 'Reply: the comment is missing' }).int().min(0),
-  text: textField('Reply').trim().min(1, 'Write the reply or leave the comment without one').max(4000, 'A reply is at most 4000 characters'),
-})
 
 /**
  * Issue revision: one schema for the Issue dialog and the route. A reason is required when checks
@@ -16,13 +9,13 @@ export const commentReplySchema = z.object({
 export const issueRevisionSchema = z.object({
   note: textField('Note for the checker').trim().max(500, 'The note is at most 500 characters').default(''),
   failingChecksReason: textField('Reason for issuing with failing checks').trim().max(2000, 'The reason is at most 2000 characters').default(''),
-  replies: z.array(commentReplySchema).max(200, 'At most 200 replies at once').default([]),
+  replies: z.array(commentReply).max(200, 'At most 200 replies at once').default([]),
   // the draft the engineer is looking at: a newer one saved meanwhile must not be frozen unseen
   draftVersion: z.number({ message: 'Reload the sheet: the issue must name the draft version on your screen' }).int().positive('Reload the sheet: the issue must name the draft version on your screen'),
 })
 
 export type IssueRevisionBody = z.infer<typeof issueRevisionSchema>
-export type CommentReply = z.infer<typeof commentReplySchema>
+export type { CommentReply } from './review'
 
 /** Field labels of the Issue dialog, for messages in people's words. */
 export const ISSUE_FIELD_LABELS: Record<string, string> = {

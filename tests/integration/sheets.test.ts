@@ -168,11 +168,11 @@ describe('office templates', () => {
     const checker = await signedIn('checker')
     const returned = (await checker.post(`/api/revisions/${p01.id}/reviews`, { decision: 'return', comments: [{ anchor: '', text: 'Check the cover.' }] })).body as { reviews: Array<{ id: number }> }
     const review = returned.reviews.at(-1)!
-    const wrong = await client.issue(created.id, { replies: [{ reviewId: review.id, comment: 3, text: 'Done' }] })
+    const wrong = await client.issue(created.id, { replies: [{ reviewId: review.id, index: 3, text: 'Done' }] })
     expect(wrong.status).toBe(400)
     expect(wrong.body.data.fields).toHaveProperty('replies')
-    const p02 = await client.issue(created.id, { replies: [{ reviewId: review.id, comment: 0, text: 'Cover raised to 30 mm.' }] })
+    const p02 = await client.issue(created.id, { replies: [{ reviewId: review.id, index: 0, text: 'Cover raised to 30 mm.' }] })
     expect(p02.status).toBe(201)
-    expect(p02.body.replies).toEqual([{ reviewId: review.id, comment: 0, text: 'Cover raised to 30 mm.', anchor: '', commentText: 'Check the cover.' }])
+    expect(p02.body.replies).toEqual([{ reviewId: review.id, index: 0, text: 'Cover raised to 30 mm.', anchor: '', commentText: 'Check the cover.' }])
   })
 })

@@ -61,7 +61,7 @@ describe('revision and audit hashes', () => {
     // a row read back after the columns were added: '' and null stand for "not given"
     expect(revisionHash({ ...revision(), failingChecksReason: '', replies: null })).toBe(before)
     const reason = revisionHash({ ...revision(), failingChecksReason: 'for the layout meeting' })
-    const replies = revisionHash({ ...revision(), replies: [{ reviewId: 1, comment: 0, anchor: '', commentText: 'Check cover', text: 'Raised' }] })
+    const replies = revisionHash({ ...revision(), replies: [{ reviewId: 1, index: 0, anchor: '', commentText: 'Check cover', text: 'Raised' }] })
     expect(new Set([before, reason, replies]).size).toBe(3)
   })
 

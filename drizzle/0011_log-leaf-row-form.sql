@@ -1,0 +1,1 @@
+ALTER TABLE `log_leaves` ADD `form` int DEFAULT 1 NOT NULL;
