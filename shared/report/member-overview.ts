@@ -62,12 +62,16 @@ export function memberOverview(d: Design): ModelOverview {
   }
   const spans = d.deflection.spans
   if (spans.length > 0) {
+    // one sign as in the deflection section: downward positive, an upward long-term deflection
+    // (camber) negative and held to its own limit, span / ratioCamber (common practice)
     const worst = spans.reduce((a, s) => (s.utilisation > a.utilisation ? s : a))
-    const down = worst.longTerm.down
+    const { value } = worst.longTerm
+    const camber = value < 0
+    const size = Math.abs(value)
     rows.push({
       label: 'Largest long-term deflection',
-      value: `${formatQuantity(down, 'mm', 1)} in span ${worst.span + 1} = L/${down > 0 ? Math.round(worst.L / down) : '∞'} (limit ${formatQuantity(worst.limitTotal, 'mm', 1)})`,
-      key: `deflection.spans.${worst.span}.longTerm.down`,
+      value: `${formatQuantity(value, 'mm', 1)} ${camber ? 'upward (camber)' : 'downward'} in span ${worst.span + 1} = L/${size > 0 ? Math.round(worst.L / size) : '∞'} (limit ${formatQuantity(camber ? worst.limitCamber : worst.limitTotal, 'mm', 1)})`,
+      key: `deflection.spans.${worst.span}.longTerm.value`,
     })
   }
   return { member: memberLine(d), rows }

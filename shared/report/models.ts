@@ -191,7 +191,7 @@ const GOVERNING_KEYS = [
   'jacking.strands', 'jacking.Pjack', 'force.meanTransfer', 'force.meanService', 'force.eta', 'force.drawInLength',
   'losses.phi', 'losses.epsCs', 'precompression.transfer', 'precompression.service',
   'prestressMoments.service.secondary[]', 'uls.sections[].MEdMax', 'uls.sections[].MEdMin', 'uls.shear[].VEd', 'uls.shear[].VRd',
-  'deflection.spans[].longTerm.down', 'cracking.sections[].wk',
+  'deflection.spans[].longTerm.value', 'cracking.sections[].wk',
 ] as const
 
 /** The model with its input schema (zod), for the editor's form and for parsing uploaded inputs. */

@@ -28,7 +28,7 @@ describe('issuing from the editor', () => {
     await page.locator('[data-test=issue-confirm]').click()
     await expect.poll(() => page.locator('[data-test=issue-ok]').textContent(), { timeout: 20_000 }).toContain('P01 issued for check')
     // the revisions table shows the date as the office reads it
-    expect((await page.locator('[data-test=revisions-table] tbody tr td').nth(2).innerText()).trim()).toMatch(/^\d\d\/\d\d\/\d{4}, \d\d:\d\d$/)
+    expect((await page.locator('[data-test=revisions-table] tbody tr [data-test=revision-issued]').first().innerText()).trim()).toMatch(/^\d\d\/\d\d\/\d{4}, \d\d:\d\d$/)
 
     const revisionId = ((await client.get(`/api/sheets/${id}/revisions`)).body as Array<{ id: number }>)[0]!.id
     const checker = await newPage(browser)
@@ -70,10 +70,13 @@ describe('issuing from the editor', () => {
     const checkerPage = await newPage(browser)
     await signInAs(checkerPage, 'checker')
     await checkerPage.goto(`/revisions/${p02.id}`)
-    const replies = checkerPage.locator('[data-test=comment-replies]')
+    // the reply is shown once, under the comment it answers (strict: exactly one thread has replies)
+    const replies = checkerPage.locator('[data-test=comment-thread]').filter({ has: checkerPage.locator('[data-test=comment-replies]') })
     await expect.poll(() => replies.innerText()).toContain('Added 1.0 kN/m² for partitions')
     expect(await replies.innerText()).toContain('State the partition allowance')
     expect(await replies.innerText()).not.toContain('fire resistance')
+    expect(await replies.getAttribute('data-state')).toBe('answered')
+    expect(await checkerPage.locator('[data-test=comment-replies]').count()).toBe(1)
     await screenshot(checkerPage, 'revision-replies')
   })
 })

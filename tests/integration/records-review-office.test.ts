@@ -3,7 +3,7 @@
 // office details in force (its review hash still verifies).
 import { describe, expect, it } from 'vitest'
 import { countRows, withDb } from '../helpers/db'
-import { makeSheet, session, withRoot } from './records-fixtures'
+import { issue, makeSheet, session, withRoot } from './records-fixtures'
 
 /** A 1×1 PNG. */
 const PNG = Buffer.from('iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAIAAACQd1PeAAAADElEQVR4nGNgYGAAAAAEAAH2FzhVAAAAAElFTkSuQmCC', 'base64')
@@ -21,7 +21,7 @@ describe('comment states', () => {
     const { sheetId } = await makeSheet()
     const engineer = await session('engineer')
     const checker = await session('checker')
-    const issued = (await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, { note: '' })).body
+    const issued = (await issue(engineer, sheetId, { note: '' })).body
     const anchor = issued.sections.find((s: { title: string }) => s.title === 'Load balancing').id
     const returned = await checker.json('POST', `/api/revisions/${issued.id}/reviews`, { decision: 'return', comments: [{ anchor, text: 'Justify the balanced share' }] })
     expect(returned.status).toBe(201)
@@ -74,7 +74,7 @@ describe('office details', () => {
     expect(Buffer.from(await logo.arrayBuffer()).equals(PNG)).toBe(true)
 
     const { sheetId } = await makeSheet()
-    const issued = (await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, { note: '' })).body
+    const issued = (await issue(engineer, sheetId, { note: '' })).body
     const approved = await checker.json('POST', `/api/revisions/${issued.id}/reviews`, { decision: 'approve', comments: [] })
     expect(approved.body.approvedBy.officeVersion).toBe(saved.body.version)
 
