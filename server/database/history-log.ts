@@ -19,11 +19,14 @@ export const LOG_TABLES = {
   seal: schema.seals,
   attachment: schema.attachments,
   audit: schema.auditEvents,
+  'office-details': schema.officeDetails,
+  'comment-state': schema.commentStates,
 } satisfies Record<LogKind, MySqlTable>
 
-/** The name of a kind's row for people: "revision 12", "audit event 40". */
+/** The name of a kind's row for people: "revision 12", "audit event 40", "office details version 2". */
 export function rowLabel(kind: LogKind, id: number) {
-  return `${kind === 'audit' ? 'audit event' : kind} ${id}`
+  const words: Partial<Record<LogKind, string>> = { 'audit': 'audit event', 'office-details': 'office details version', 'comment-state': 'comment state' }
+  return `${words[kind] ?? kind} ${id}`
 }
 
 /** JSON columns as values whatever the driver hands back (MariaDB stores JSON as text). */

@@ -38,7 +38,7 @@ export async function sheetCommentThreads(db: Db | Tx, sheetId: number, uptoSeq:
  * @throws 404 unknown review, 400 no such comment, 409 when the comment is already in that state.
  */
 export async function setCommentState(event: H3Event, reviewId: number, body: CommentStateBody, user: SessionUser) {
-  return useDb().transaction(async (tx) => {
+  return historyTransaction(async (tx) => {
     const [review] = await tx.select({ id: tables.reviews.id, sheetId: tables.reviews.sheetId, revisionId: tables.reviews.revisionId, comments: tables.reviews.comments, code: tables.revisions.code, seq: tables.revisions.seq })
       .from(tables.reviews).innerJoin(tables.revisions, eq(tables.revisions.id, tables.reviews.revisionId)).where(eq(tables.reviews.id, reviewId))
     if (!review) throw createError({ statusCode: 404, message: `No review with id ${reviewId}` })
@@ -52,7 +52,8 @@ export async function setCommentState(event: H3Event, reviewId: number, body: Co
     const [newest] = await tx.select({ state: cs.state }).from(cs).where(and(eq(cs.reviewId, reviewId), eq(cs.commentIndex, body.index))).orderBy(desc(cs.id)).limit(1)
     const current = newest?.state ?? 'open'
     if (current === body.state) throw createError({ statusCode: 409, message: `That comment on ${sheet!.reference} ${review.code} is already ${body.state}` })
-    await tx.insert(cs).values({ reviewId, commentIndex: body.index, state: body.state, actorId: user.id, createdAt: new Date() })
+    const [{ id }] = await tx.insert(cs).values({ reviewId, commentIndex: body.index, state: body.state, actorId: user.id, createdAt: new Date() }).$returningId()
+    await logWrittenRow(tx, 'comment-state', id)
     await recordAudit(event, { action: body.state === 'closed' ? 'comment.closed' : 'comment.reopened', subject: `${sheet!.reference} ${review.code}`, actorId: user.id, detail: { reviewId, index: body.index } }, tx)
     return { reviewId, index: body.index, state: body.state }
   })

@@ -66,12 +66,13 @@ export async function saveOfficeDetails(event: H3Event, user: SessionUser) {
     await writeStored(logoStorageKey, file.bytes)
     logo = { logoStorageKey, logoMime: file.mime, logoBytes: file.bytes.length, logoSha256: sha256Hex(file.bytes) }
   }
-  await useDb().transaction(async (tx) => {
+  await historyTransaction(async (tx) => {
     if (!file && body.logo === 'keep') {
       const [previous] = await tx.select().from(tables.officeDetails).orderBy(desc(tables.officeDetails.id)).limit(1).for('update')
       if (previous) logo = { logoStorageKey: previous.logoStorageKey, logoMime: previous.logoMime, logoBytes: previous.logoBytes, logoSha256: previous.logoSha256 }
     }
     const [{ id }] = await tx.insert(tables.officeDetails).values({ name: body.name, ...logo, createdBy: user.id, createdAt: new Date() }).$returningId()
+    await logWrittenRow(tx, 'office-details', id)
     await recordAudit(event, { action: 'office.details', subject: body.name, actorId: user.id, detail: { version: id, logoSha256: logo.logoSha256 } }, tx)
   })
   return currentOfficeDetails()

@@ -5,7 +5,7 @@ import { canonicalJson } from './canonical'
 import { leafHash } from './merkle'
 import { ROW_FORM, rowForm } from './row-form'
 
-export const LOG_KINDS = ['template', 'revision', 'review', 'seal', 'attachment', 'audit'] as const
+export const LOG_KINDS = ['template', 'revision', 'review', 'seal', 'attachment', 'audit', 'office-details', 'comment-state'] as const
 export type LogKind = (typeof LOG_KINDS)[number]
 
 export function logEntry(kind: LogKind, row: Record<string, unknown>, form: number = ROW_FORM): string {

@@ -9,8 +9,8 @@ export const commentRef = z.object({
 
 /** The checker closes a comment, or opens it again. One schema for the button and the route. */
 export const commentStateSchema = z.object({
-  index: z.number({ message: 'Comment: which comment is missing' }).int().min(0, 'Comment: comments count from the first'),
-  state: z.enum(['open', 'closed'], { message: 'State: choose open or closed' }),
+  index: z.number({ message: 'index must be a number' }).int().min(0, 'index counts from 0'),
+  state: z.enum(['open', 'closed'], { message: 'state is open or closed' }),
 })
 
 export type CommentStateBody = z.infer<typeof commentStateSchema>

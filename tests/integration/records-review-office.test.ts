@@ -42,6 +42,8 @@ describe('comment states', () => {
     expect((await checker.json('POST', `/api/reviews/${reviewId}/comment-state`, { index: 0, state: 'open' })).status).toBe(201)
     expect((await checker.json('POST', `/api/reviews/${reviewId}/comment-state`, { index: 0, state: 'closed' })).status).toBe(201)
     expect(await countRows('comment_states', 'review_id = ?', [reviewId])).toBe(3)
+    // each state is a leaf of the history log, like every other history row
+    expect(await countRows('log_leaves', 'kind = \'comment-state\' AND row_id IN (SELECT id FROM comment_states WHERE review_id = ?)', [reviewId])).toBe(3)
     const detail = await checker.json('GET', `/api/revisions/${issued.id}`)
     expect(detail.body.threads[0]).toMatchObject({ state: 'closed', closedBy: { name: expect.any(String) } })
 
@@ -88,6 +90,7 @@ describe('office details', () => {
     expect(without.body.logoSha256).toBeNull()
 
     // the approval's hash covers the version, and the whole chain still verifies
+    for (const version of [saved.body.version, renamed.body.version, without.body.version]) expect(await countRows('log_leaves', 'kind = \'office-details\' AND row_id = ?', [version])).toBe(1)
     const verify = await (await session('records')).json('POST', '/api/chain/verify')
     expect(verify.body.ok, JSON.stringify(verify.body.firstBreak)).toBe(true)
     await expect(withRoot(c => c.query('UPDATE office_details SET name = ? WHERE id = ?', ['x', saved.body.version]))).rejects.toThrow('append-only')

@@ -1,1 +1,0 @@
-ALTER TABLE `log_leaves` ADD `form` int DEFAULT 1 NOT NULL;
