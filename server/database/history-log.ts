@@ -64,11 +64,22 @@ const batches = new WeakMap<object, number>()
 /**
  * Reads each row back as the database stores it and appends it to the log, inside `tx`. The `log`
  * row of chain_heads is held FOR UPDATE until the transaction ends, so leaf indexes are consecutive
- * in commit order. @returns the row as read back and its leaf index, in the order given.
+ * in commit order. @returns the row as read back and its leaf index of each item, in the order given
+ * (history adopted by the first append is not among them).
  */
 export async function appendToLog(tx: Runner, items: Array<{ kind: LogKind, id: number }>) {
   const heads = schema.chainHeads
   let next = await holdLog(tx)
+  let adopted = 0
+  if (next === 0) {
+    // the first append, whoever makes it (the server or the seed of an upgraded database): history
+    // written before the log existed joins it first, in the same batch, so none of it is left out
+    const fresh = new Set(items.map(i => `${i.kind}:${i.id}`))
+    const earlier: Array<{ kind: LogKind, id: number }> = []
+    for (const kind of LOG_KINDS) for (const id of (await rowsOf(tx, kind)).keys()) if (!fresh.has(`${kind}:${id}`)) earlier.push({ kind, id })
+    items = [...earlier, ...items]
+    adopted = earlier.length
+  }
   const batch = batches.get(tx) ?? next
   batches.set(tx, batch)
   const out: Array<{ leafIndex: number, row: Row }> = []
@@ -81,7 +92,7 @@ export async function appendToLog(tx: Runner, items: Array<{ kind: LogKind, id: 
     next += 1
   }
   await tx.update(heads).set({ seq: next }).where(eq(heads.name, 'log'))
-  return out
+  return out.slice(adopted)
 }
 
 /**
@@ -91,8 +102,6 @@ export async function appendToLog(tx: Runner, items: Array<{ kind: LogKind, id: 
  */
 export async function adoptHistoryBeforeLog(tx: Runner) {
   if (await holdLog(tx) > 0) return 0
-  const items: Array<{ kind: LogKind, id: number }> = []
-  for (const kind of LOG_KINDS) for (const id of (await rowsOf(tx, kind)).keys()) items.push({ kind, id })
-  if (items.length) await appendToLog(tx, items)
-  return items.length
+  await appendToLog(tx, [])
+  return holdLog(tx)
 }
