@@ -96,9 +96,10 @@ export { CRACK_EXPOSURE_CLASSES, crackRequirement, bondRatioStrand, crackWidth, 
 export type { CrackExposure, Combination, CrackRequirement, CrackWidthInput, CrackWidthResult, DecompressionInput, DecompressionResult } from './sls/cracking'
 export {
   crackSizeFactor, kcWeb, kcFlange, tensileDepthAtCracking, bondRatioPostTensioned, tendonEquivalentDiameter, bondAdjustedRatio,
-  minimumCrackSteel, maxBarDiameterTable, maxBarSpacing, maxBarDiameter,
+  minimumCrackSteel, maxBarDiameterTable, maxBarSpacing, maxBarDiameter, steelStressForBarSize,
 } from './sls/crack-control-steel'
 export type { WebStressInput, TendonBondKind, CrackStressState, MinimumCrackSteelInput, MinimumCrackSteel, CrackWidthColumn } from './sls/crack-control-steel'
+export type { CrackSteelFace } from './member/crack-steel'
 export { tendonHeightSchedule } from './site/tendon-heights'
 export type { HeightPointKind, TendonHeightInput, HeightRow, TendonHeightSchedule } from './site/tendon-heights'
 export { stressingSchedule } from './site/stressing'

@@ -38,6 +38,6 @@ export const DEMO_BB1: MemberInputDraft = {
     balanceSelfWeight: 0.9, balanceSuperimposed: 0, balanceImposed: 0,
   },
   limits: { exposure: 'XC1' },
-  // 12 H16 top over the supports within the band (invented demo detailing)
-  uls: { barsTop: { area: 2413, diameter: 16, cover: 30 } },
+  // 16 H16 top over the supports and 16 H12 bottom within the band (invented demo detailing)
+  uls: { barsTop: { area: 3217, diameter: 16, cover: 30 }, barsBottom: { area: 1810, diameter: 12, cover: 30 } },
 }

@@ -76,7 +76,7 @@ interface Arrangement { found: StressFound; patch: InputPatch; barsBottom: numbe
 
 /**
  * The bars an arrangement needs: the extra bars ULS bending asks for (6.1) and any shortfall on the
- * least steel (eq. (9.1N)) or the top steel over the supports, added to the input's own bars, run
+ * least steel (eq. (9.1N)), the crack-control steel (eq. (7.1)) or the top steel over the supports, added to the input's own bars, run
  * again until nothing more is asked for (at most three rounds: the bars move the neutral axis).
  */
 function withBars(input: MemberInput, found: StressFound, patchOf: (f: StressFound) => InputPatch, verify: VerifyMember): Arrangement | { failing: CheckResult[] } {
@@ -107,13 +107,19 @@ function withBars(input: MemberInput, found: StressFound, patchOf: (f: StressFou
     const minBottom = r.AsMinBottom - (r.providedBottom + r.bondedTendon)
     const minTop = r.AsMinTop - (r.providedTop + r.bondedTendon)
     const supportTop = r.supportSteel && input.geometry.spans.length > 1 ? r.supportSteel.As - r.providedTop : 0
-    const moreBottom = Math.max(0, needBottom, minBottom)
-    const moreTop = Math.max(0, needTop, minTop, supportTop)
+    const moreBottom = Math.max(0, needBottom, minBottom, crackSteelShortfall(run.checks, 'bottom'))
+    const moreTop = Math.max(0, needTop, minTop, supportTop, crackSteelShortfall(run.checks, 'top'))
     if (moreBottom <= 0 && moreTop <= 0) return { failing: last } // bars would not help what fails
     addBottom += roundUp10(moreBottom)
     addTop += roundUp10(moreTop)
   }
   return { failing: last }
+}
+
+/** Bars short of the least crack-control steel of eq. (7.1) on a face, mm² (0 where the check passes). */
+function crackSteelShortfall(checks: CheckResult[], face: 'bottom' | 'top'): number {
+  const c = checks.find((k) => k.id === `sls.crackSteel.${face}`)
+  return c && !c.pass ? c.limit - c.actual : 0
 }
 
 /** The least-cost arrangement passing every claimed check, or why none does. */

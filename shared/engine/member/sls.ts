@@ -22,6 +22,8 @@ import type { MemberLosses } from './losses'
 import type { MemberProfile } from './profile'
 import type { MemberSection } from './section'
 import type { ServiceStresses } from './stress-limits'
+import { crackSteelFaces } from './crack-steel'
+import type { CrackSteelFace } from './crack-steel'
 
 /** One sign throughout: deflection positive downward, an upward deflection (camber) negative, mm. */
 export interface SignedExtreme {
@@ -81,6 +83,8 @@ export interface MemberCracking {
   fctEff: number
   sections: CrackSection[]
   decompressionSections: DecompressionSection[]
+  /** least steel for crack control of each face in tension, eq. (7.1) */
+  minSteel: CrackSteelFace[]
 }
 
 export interface SlsResult {
@@ -269,10 +273,12 @@ export function slsStage({ input, section, loads, profile, losses, stresses }: S
       note: 'the duct and 25 mm beyond it towards the tension face stay in compression',
     })
   }
+  const minSteel = crackSteelFaces({ input, section, stresses, Pmean: P, wmax })
+  checks.push(...minSteel.checks)
   return {
     result: {
       deflection,
-      cracking: { exposure: input.limits.exposure, wmax, combination: req.combination, decompression: req.decompression, note: req.note, fctEff, sections: crackSections, decompressionSections },
+      cracking: { exposure: input.limits.exposure, wmax, combination: req.combination, decompression: req.decompression, note: req.note, fctEff, sections: crackSections, decompressionSections, minSteel: minSteel.faces },
     },
     checks, warnings,
   }

@@ -218,6 +218,25 @@ export function maxBarDiameterTable(i: { sigmaS: number; wk: number }): number |
   return lookUp(STRESS_7_2, TABLE_7_2N[column(i.wk)], i.sigmaS) // EN 1992-1-1 Table 7.2N
 }
 
+/**
+ * Table 7.2N read the other way: the greatest steel stress at which bars of φ*s are allowed (linear
+ * between rows, common practice); beyondTable where the bars are larger than even its least stress allows.
+ */
+export function steelStressForBarSize(i: { phiStar: number; wk: number }): { sigmaS: number; beyondTable: boolean } {
+  requirePositive('phiStar', i.phiStar)
+  const values = TABLE_7_2N[column(i.wk)] // EN 1992-1-1 Table 7.2N
+  if (i.phiStar > (values[0] as number)) return { sigmaS: STRESS_7_2[0] as number, beyondTable: true }
+  for (let j = 1; j < STRESS_7_2.length; j++) {
+    const a = values[j - 1] as number
+    const b = values[j]
+    const lo = STRESS_7_2[j - 1] as number
+    if (b === null || b === undefined) return { sigmaS: lo, beyondTable: false }
+    const hi = STRESS_7_2[j] as number
+    if (i.phiStar >= b) return { sigmaS: a === b ? hi : lo + ((a - i.phiStar) * (hi - lo)) / (a - b), beyondTable: false }
+  }
+  return { sigmaS: STRESS_7_2[STRESS_7_2.length - 1] as number, beyondTable: false }
+}
+
 /** Largest bar spacing of Table 7.3N (cracks mainly due to loading); null where the table has no entry. */
 export function maxBarSpacing(i: { sigmaS: number; wk: number }): number | null {
   requirePositive('sigmaS', i.sigmaS)
