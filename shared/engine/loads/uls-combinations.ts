@@ -56,20 +56,33 @@ export function validateUlsFactors(f: UlsFactors): void {
   requireRange('uls.gammaP', f.gammaP, 0.8, 1.2, 'γP must lie between 0.8 and 1.2')
 }
 
+/** One expression of the fundamental combination: γG on the permanent load of every span, γQ on the loaded spans' imposed load. */
+export interface UlsExpression { key: string; gG: number; gQ: number; clause: string }
+
+/** The expressions of the chosen rule: eq. (6.10), or eqs. (6.10a) and (6.10b). */
+export function ulsExpressions(rule: UlsRule, f: UlsFactors = ULS_FACTORS): UlsExpression[] {
+  if (rule !== '6.10' && rule !== '6.10a/b') throw new EngineInputError('uls.combination', "the rule is '6.10' or '6.10a/b'")
+  validateUlsFactors(f)
+  return rule === '6.10'
+    ? [{ key: '6.10', gG: f.gammaGsup, gQ: f.gammaQ, clause: 'EN 1990 eq. (6.10)' }] // γG Gk + γQ Qk
+    : [
+        { key: '6.10a', gG: f.gammaGsup, gQ: f.gammaQ * f.psi0, clause: 'EN 1990 eq. (6.10a)' }, // γG Gk + γQ ψ0 Qk
+        { key: '6.10b', gG: f.xi * f.gammaGsup, gQ: f.gammaQ, clause: 'EN 1990 eq. (6.10b)' }, // ξ γG Gk + γQ Qk
+      ]
+}
+
+/** The case list without its span factors: what each case is called and which clause it follows. */
+export function ulsCaseNames(nSpans: number, rule: UlsRule, f: UlsFactors = ULS_FACTORS): Array<{ id: string; label: string; clause: string }> {
+  if (!Number.isInteger(nSpans) || nSpans < 1) throw new EngineInputError('spans', 'at least one span is needed')
+  const list = patterns(nSpans)
+  return ulsExpressions(rule, f).flatMap((e) => list.map((p) => ({ id: `${e.key}.${p.id}`, label: `${e.key}, ${p.label}`, clause: `${e.clause}; EN 1992-1-1 5.1.3(1)` })))
+}
+
 /** Every ULS load case of the chosen rule with its pattern of imposed load. */
 export function ulsLoadCases(nSpans: number, rule: UlsRule, f: UlsFactors = ULS_FACTORS): UlsCase[] {
   if (!Number.isInteger(nSpans) || nSpans < 1) throw new EngineInputError('spans', 'at least one span is needed')
-  if (rule !== '6.10' && rule !== '6.10a/b') throw new EngineInputError('uls.combination', "the rule is '6.10' or '6.10a/b'")
-  validateUlsFactors(f)
-  const expressions =
-    rule === '6.10'
-      ? [{ key: '6.10', gG: f.gammaGsup, gQ: f.gammaQ, clause: 'EN 1990 eq. (6.10)' }] // γG Gk + γQ Qk
-      : [
-          { key: '6.10a', gG: f.gammaGsup, gQ: f.gammaQ * f.psi0, clause: 'EN 1990 eq. (6.10a)' }, // γG Gk + γQ ψ0 Qk
-          { key: '6.10b', gG: f.xi * f.gammaGsup, gQ: f.gammaQ, clause: 'EN 1990 eq. (6.10b)' }, // ξ γG Gk + γQ Qk
-        ]
   const cases: UlsCase[] = []
-  for (const e of expressions) {
+  for (const e of ulsExpressions(rule, f)) {
     for (const p of patterns(nSpans)) {
       cases.push({
         id: `${e.key}.${p.id}`,

@@ -15,6 +15,7 @@ import type { JackingLimits, Strand, StrandType } from '../materials/strand'
 import type { PrestressMomentLine } from './analysis'
 import type { BalancingNeed } from './balancing'
 import type { LoadPattern } from './loads'
+import type { ResponseQuantity } from '../analysis/pattern-loading'
 import type { BalancingProvided, ForceSummary, LossSummary } from './losses'
 import { magnelStage } from './magnel'
 import { proposalStage } from './proposal'
@@ -135,6 +136,8 @@ interface LaterResults {
 function designRecord(d: ServiceDesign, later: LaterResults): Design {
   const { input, section, loads, profile, balancing, losses, analysis, stresses } = d
   const supportMoments = (m: number[]): number[] => analysis.supportStations.map((k) => m[k] as number)
+  const spans = input.geometry.spans
+  const supportLine: ResponseQuantity[] = spans.map((_, j) => ({ kind: 'moment' as const, span: j, x: 0 })).concat({ kind: 'moment', span: spans.length - 1, x: spans[spans.length - 1] as number })
   return {
     engineVersion: ENGINE_VERSION,
     input,
@@ -160,7 +163,7 @@ function designRecord(d: ServiceDesign, later: LaterResults): Design {
       supportMoments: {
         selfWeight: supportMoments(loads.cases.selfWeight),
         superimposed: supportMoments(loads.cases.superimposed),
-        imposed: loads.cases.imposedByPattern.map(supportMoments),
+        imposed: loads.patterns.map((_, p) => supportLine.map((q) => loads.imposed * loads.patternLoading.value(q, p))),
       },
     },
     limits: stresses.limits,

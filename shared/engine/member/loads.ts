@@ -1,12 +1,15 @@
 /**
  * Loads stage: line loads from the section and the loaded width, the imposed-load arrangements,
- * and the moments of each load case at the stations: the beam is factored once and each case is one
- * O(n) solve with its loads on every span together (superposition of the unit-span responses).
+ * and the moments of the load cases at the stations: the beam is factored once, a load on every
+ * span is one O(n) solve, and the arrangements' envelope at each station comes from the pattern
+ * loading (analysis/pattern-loading.ts), linear in the spans.
  */
 import type { StageOutcome } from '../common/stage'
 import type { MemberInput } from '../input/schema'
 import { spanUnitResponses } from '../analysis/continuous-beam'
 import type { SpanUnitResponses, SupportKind } from '../analysis/continuous-beam'
+import { patternLoading } from '../analysis/pattern-loading'
+import type { PatternLoading } from '../analysis/pattern-loading'
 import type { MemberSection } from './section'
 import type { Station } from './stations'
 
@@ -16,8 +19,10 @@ export interface CaseMoments {
   /** N·mm at each station */
   selfWeight: number[]
   superimposed: number[]
-  /** one row of station moments per imposed-load arrangement */
-  imposedByPattern: number[][]
+  /** the imposed load on every span */
+  imposedAll: number[]
+  /** least and greatest moment of the imposed load over the arrangements (an unloaded one not counted) */
+  imposedRange: { min: number[]; max: number[] }
 }
 
 export interface MemberLoads {
@@ -29,6 +34,8 @@ export interface MemberLoads {
   patterns: LoadPattern[]
   /** the member factored once: its response to 1 N/mm on one span, or to any set of span loads in one O(n) solve */
   responses: SpanUnitResponses
+  /** the arrangements of the imposed load on that beam, per N/mm on the loaded spans */
+  patternLoading: PatternLoading
   cases: CaseMoments
 }
 
@@ -68,19 +75,18 @@ export function loadsStage(input: MemberInput, section: MemberSection, stations:
 
   const responses = spanUnitResponses({ spans, EI: section.EI, supports })
   const patterns = loadPatterns(input)
+  const arrangements = patternLoading(responses, patterns.map((p) => p.loadedSpans))
   // linear elastic analysis (EN 1992-1-1 5.4): each case is the sum of the unit-span cases, found in one solve
-  const along = (w: number[]): number[] => {
-    const r = responses.combine(w)
+  const along = (w: number): number[] => {
+    const r = responses.combine(spans.map(() => w))
     return stations.map((st) => r.momentAt(st.span, st.x))
   }
+  const ranges = stations.map((st) => arrangements.range({ kind: 'moment', span: st.span, x: st.x }))
   const cases: CaseMoments = {
-    selfWeight: along(spans.map(() => selfWeight)),
-    superimposed: along(spans.map(() => superimposed)),
-    imposedByPattern: patterns.map((pt) => {
-      const w = spans.map(() => 0)
-      for (const i of pt.loadedSpans) w[i] = imposed
-      return along(w)
-    }),
+    selfWeight: along(selfWeight),
+    superimposed: along(superimposed),
+    imposedAll: along(imposed),
+    imposedRange: { min: ranges.map((r) => imposed * r.min), max: ranges.map((r) => imposed * r.max) },
   }
-  return { result: { supports, selfWeight, superimposed, imposed, patterns, responses, cases }, checks: [], warnings: [] }
+  return { result: { supports, selfWeight, superimposed, imposed, patterns, responses, patternLoading: arrangements, cases }, checks: [], warnings: [] }
 }

@@ -56,8 +56,8 @@ export function noProposal(reason: string): Proposal {
 /** The checks of the whole sheet for an input, and its ULS result (for the bars it asks for). */
 export type VerifyMember = (input: MemberInput) => { checks: CheckResult[]; uls: MemberUls }
 
-/** Checks the proposal does not change: the covers and the jacking stress are the engineer's, the site records are measured. */
-const OUTSIDE_REACH = new Set(['tendon.jacking', 'tendon.coverBond'])
+/** Checks the proposal does not change: the covers and the jacking stress (and so the stress after lock-off) are the engineer's, the site records are measured. */
+const OUTSIDE_REACH = new Set(['tendon.jacking', 'tendon.lockOff', 'tendon.coverBond'])
 const claimed = (c: CheckResult): boolean => c.group !== 'site' && !OUTSIDE_REACH.has(c.id)
 
 /**

@@ -33,9 +33,8 @@ export interface StressesInput {
 /** External moment at a station for each stage: [min, max]; transfer carries self-weight only. */
 export function stageMoments(input: MemberInput, loads: MemberLoads, k: number): Record<Stage, MomentRange> {
   const G = at(loads.cases.selfWeight, k) + at(loads.cases.superimposed, k)
-  const qs = loads.cases.imposedByPattern.map((m) => at(m, k))
-  const qMax = Math.max(0, ...qs) // an unloaded arrangement is always possible (imposed load absent)
-  const qMin = Math.min(0, ...qs)
+  const qMax = Math.max(0, at(loads.cases.imposedRange.max, k)) // an unloaded arrangement is always possible (imposed load absent)
+  const qMin = Math.min(0, at(loads.cases.imposedRange.min, k))
   const psi = { characteristic: 1, frequent: input.loads.psi1, quasiPermanent: input.loads.psi2 } // EN 1990 6.5.3
   const t = at(loads.cases.selfWeight, k)
   return {
@@ -163,7 +162,6 @@ export function stressesStage(i: StressesInput): StageOutcome<ServiceStresses> {
     stressBySection.push(s)
     momentsBySection.push(M)
     const u = Math.max(...STAGES.flatMap((stage) => Object.values(s[stage].utilisation)))
-    const qs = loads.cases.imposedByPattern.map((m) => at(m, k))
     const P0 = at(atSections.transfer, k)
     const Pi = at(atSections.service, k)
     const stress = {} as Record<Stage, FibrePair>
@@ -178,7 +176,7 @@ export function stressesStage(i: StressesInput): StageOutcome<ServiceStresses> {
       moments: {
         selfWeight: at(loads.cases.selfWeight, k),
         superimposed: at(loads.cases.superimposed, k),
-        imposed: { min: Math.min(0, ...qs), max: Math.max(0, ...qs) },
+        imposed: { min: Math.min(0, at(loads.cases.imposedRange.min, k)), max: Math.max(0, at(loads.cases.imposedRange.max, k)) },
         transfer: M.transfer.min,
         characteristic: M.characteristic,
         frequent: M.frequent,

@@ -1,19 +1,21 @@
 /**
  * Design actions at the ultimate limit state shared by the bending, shear and punching checks: the
- * EN 1990 fundamental combinations with pattern loading, each solved once on the factored beam, and the secondary effects of prestress at γP (EN 1992-1-1 2.4.2.2(1), 5.10.8(1)).
+ * EN 1990 fundamental combinations with pattern loading as envelopes of any moment, shear or
+ * reaction, from the beam factored once (analysis/pattern-loading.ts, linear in the spans), and the
+ * secondary effects of prestress at γP (EN 1992-1-1 2.4.2.2(1), 5.10.8(1)).
  */
 import type { MemberInput } from '../input/schema'
-import { ulsLoadCases } from '../loads/uls-combinations'
-import type { UlsCase } from '../loads/uls-combinations'
-import type { ContinuousBeamResult } from '../analysis/continuous-beam'
+import { ulsCaseNames, ulsExpressions } from '../loads/uls-combinations'
+import { quantityOf } from '../analysis/pattern-loading'
+import type { ResponseQuantity } from '../analysis/pattern-loading'
 import type { PrestressAnalysis } from './analysis'
 import type { MemberLoads } from './loads'
 import type { MemberSection } from './section'
 
 export interface UlsActions {
-  cases: UlsCase[]
-  /** a value f of the member's response to a case (one O(n) solve per case, made once) */
-  caseValue: (c: UlsCase, f: (response: ContinuousBeamResult) => number) => number
+  cases: Array<{ id: string; label: string; clause: string }>
+  /** least and greatest design value of a response quantity over the cases, secondary effects not included */
+  envelope: (q: ResponseQuantity) => { min: number; max: number }
   /** secondary moments at the supports, transfer and service (they vary linearly along each span, 5.10.7) */
   secondaryTransfer: number[]
   secondaryService: number[]
@@ -28,18 +30,30 @@ export function ulsActions(input: MemberInput, section: MemberSection, loads: Me
   const spans = input.geometry.spans
   const n = spans.length
   const u = input.uls
-  const cases = ulsLoadCases(n, u.combination, { gammaGsup: u.gammaG, gammaQ: u.gammaQ, psi0: input.loads.psi0, xi: u.xi, gammaP: u.gammaP })
-    .filter((c) => input.loads.pattern !== 'all-spans' || c.id.endsWith('.all'))
+  const factors = { gammaGsup: u.gammaG, gammaQ: u.gammaQ, psi0: input.loads.psi0, xi: u.xi, gammaP: u.gammaP }
+  const cases = ulsCaseNames(n, u.combination, factors).filter((c) => input.loads.pattern !== 'all-spans' || c.id.endsWith('.all'))
+  const expressions = ulsExpressions(u.combination, factors)
   const G = loads.selfWeight + loads.superimposed
   const Q = loads.imposed
-  // each case: γG·G on every span and γQ·Q on the loaded ones, solved once by superposition of the unit-span cases
-  const responses = new Map(cases.map((c) => [c, loads.responses.combine(spans.map((_, i) => (c.g[i] as number) * G + (c.q[i] as number) * Q))]))
-  const caseValue = (c: UlsCase, f: (response: ContinuousBeamResult) => number): number => f(responses.get(c) as ContinuousBeamResult)
+  const permanent = loads.responses.combine(spans.map(() => G)) // G on every span, one solve
+  // each case: γG·G on every span and γQ·Q on the loaded ones; γQ ≥ 0, so the extremes over the
+  // arrangements of the imposed load give the extremes over the cases (superposition)
+  const envelope = (q: ResponseQuantity): { min: number; max: number } => {
+    const g = quantityOf(permanent, q)
+    const r = loads.patternLoading.range(q)
+    let min = Infinity
+    let max = -Infinity
+    for (const e of expressions) {
+      min = Math.min(min, e.gG * g + e.gQ * Q * r.min)
+      max = Math.max(max, e.gG * g + e.gQ * Q * r.max)
+    }
+    return { min, max }
+  }
   const secondaryAt = (m: number[], span: number, x: number): number =>
     (m[span] as number) * (1 - x / (spans[span] as number)) + ((m[span + 1] as number) * x) / (spans[span] as number)
   const h = section.properties.h
   return {
-    cases, caseValue,
+    cases, envelope,
     secondaryTransfer: analysis.atSupports.transfer.secondary,
     secondaryService: analysis.atSupports.service.secondary,
     secondaryAt,

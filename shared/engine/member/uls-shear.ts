@@ -13,7 +13,6 @@ import { shearResistance } from '../uls/shear'
 import type { DuctKind } from '../uls/shear'
 import { punchingCheck } from '../uls/punching'
 import type { ColumnPosition } from '../uls/punching'
-import type { UlsCase } from '../loads/uls-combinations'
 import type { MemberLosses } from './losses'
 import type { MemberProfile } from './profile'
 import type { MemberSection } from './section'
@@ -88,7 +87,7 @@ export function shearAtSupports({ input, section, profile, losses, sections, act
   const bonded = section.bonded
   const bb = u.barsBottom
   const bt = u.barsTop
-  const { cases, caseValue, secondaryTransfer: M2t, secondaryService: M2s, secondaryAt, dBottomBars, dTopBars } = actions
+  const { envelope, secondaryTransfer: M2t, secondaryService: M2s, secondaryAt, dBottomBars, dTopBars } = actions
   const shearG = shearGeometry(section.outline, yt)
   const fctd = c28.fctk005 / u.gammaC // 3.1.6(2), αct = 1.0
   const t = input.tendon
@@ -107,12 +106,11 @@ export function shearAtSupports({ input, section, profile, losses, sections, act
     for (const sd of sides) {
       const L = spans[sd.span] as number
       const V2 = [M2t, M2s].map((m) => (u.gammaP * ((m[sd.span + 1] as number) - (m[sd.span] as number))) / L) // secondary shear ΔM2/L
-      const Vcases = cases.map((c) => caseValue(c, (b) => b.shearAt(sd.span, sd.x)))
-      const candidates = Vcases.flatMap((v) => V2.map((w) => v + w))
+      const V = envelope({ kind: 'shear', span: sd.span, x: sd.x })
+      const candidates = [V.min, V.max].flatMap((v) => V2.map((w) => v + w)) // |v + w| is greatest at an end of the range
       const VEd = Math.max(...candidates.map(Math.abs))
       const Vsecondary = V2.reduce((a, b) => (Math.abs(b) > Math.abs(a) ? b : a))
-      const Mcases = cases.map((c) => caseValue(c, (b) => b.momentAt(sd.span, sd.x)))
-      const Mext = Math.min(...Mcases) + u.gammaP * secondaryAt(M2s, sd.span, sd.x)
+      const Mext = envelope({ kind: 'moment', span: sd.span, x: sd.x }).min + u.gammaP * secondaryAt(M2s, sd.span, sd.x)
       const hog = Mext < 0
       const dp = hog ? h - (yt + e) : yt + e
       const dBars = hog ? (bt.area > 0 ? dTopBars : 0) : bb.area > 0 ? dBottomBars : 0
@@ -149,16 +147,15 @@ export function punchingAtColumn({ input, section, profile, losses, sections, ac
   const u = input.uls
   const { h, yt } = section.properties
   const bt = u.barsTop
-  const { cases, caseValue, secondaryTransfer: M2t, secondaryService: M2s, dTopBars } = actions
+  const { envelope, secondaryTransfer: M2t, secondaryService: M2s, dTopBars } = actions
   const j = p.support - 1
   if (j > n) throw new EngineInputError('punching.support', `the member has ${n + 1} supports`)
-  const reactionCase = (c: UlsCase): number => caseValue(c, (b) => b.reactions[j] as number)
   const R2 = [M2t, M2s].map((m) => {
     const right = j < n ? ((m[j + 1] as number) - (m[j] as number)) / (spans[j] as number) : 0
     const left = j > 0 ? ((m[j] as number) - (m[j - 1] as number)) / (spans[j - 1] as number) : 0
     return u.gammaP * (right - left) // secondary reaction: jump of the secondary shear
   })
-  const perWidth = Math.max(...cases.flatMap((c) => R2.map((r) => reactionCase(c) + r))) / 1000 // N per mm of strip width
+  const perWidth = (envelope({ kind: 'reaction', support: j }).max + Math.max(...R2)) / 1000 // N per mm of strip width
   const VEd = perWidth * p.panelWidth // the strip reaction over the panel width (common practice)
   const s = sections.find((x) => x.id === `support-${j + 1}`)
   const e = s?.e ?? (profile.profile.supportEcc[j] as number)

@@ -99,7 +99,7 @@ export function ulsStage({ input, section, loads, profile, losses, analysis, str
   const u = input.uls
   const factors = { gammaG: u.gammaG, gammaQ: u.gammaQ, psi0: input.loads.psi0, xi: u.xi, gammaP: u.gammaP }
   const actions = ulsActions(input, section, loads, analysis)
-  const { cases, caseValue, dBottomBars, dTopBars } = actions
+  const { cases, envelope, dBottomBars, dTopBars } = actions
 
   // the bar layers, depths from the compression face
   const bb = u.barsBottom
@@ -133,10 +133,10 @@ export function ulsStage({ input, section, loads, profile, losses, analysis, str
   }
 
   const envelopes = stresses.sections.map((s) => {
-    const values = cases.map((c) => caseValue(c, (b) => b.momentAt(s.span, s.x)))
+    const values = envelope({ kind: 'moment', span: s.span, x: s.x })
     const m2 = [s.moments.secondaryTransfer, s.moments.secondaryService].map((v) => u.gammaP * v) // γP M2 (2.4.2.2(1), 5.10.8(1))
     const secondary = { min: Math.min(...m2), max: Math.max(...m2) }
-    return { secondary, max: Math.max(...values) + secondary.max, min: Math.min(...values) + secondary.min }
+    return { secondary, max: values.max + secondary.max, min: values.min + secondary.min }
   })
   // a pinned end carries no moment, yet the sums of unit-span cases leave ±1e-8 N·mm there whose sign
   // would pick the face; below a millionth of the member's largest design moment a moment is zero

@@ -6,7 +6,7 @@
  */
 import { EngineInputError } from '../contract'
 import type { BeamLoad } from '../analysis/continuous-beam'
-import { drapes, resolveProfile, slopeIn } from './profile'
+import { drapes, resolveProfile, slopeIn, spanPieces } from './profile'
 import type { ProfilePiece, TendonProfile } from './profile'
 
 export interface BalancingForce {
@@ -31,28 +31,48 @@ export function balancingForce(profile: TendonProfile, w: number | number[]): Ba
 export function equivalentLoads(profile: TendonProfile, P: number): BeamLoad[] {
   if (!Number.isFinite(P)) throw new EngineInputError('P', 'the force must be a finite number')
   const all = resolveProfile(profile)
+  return loadsOf(profile, P, all.map((pieces, span) => [span, pieces] as const))
+}
+
+/**
+ * The equivalent loads of some spans' curvature, with the kinks and anchorages that touch them: for
+ * a profile whose other spans lie on the centroid (e = 0), the same loads as equivalentLoads, at a
+ * cost that does not grow with the number of spans (the unit profiles of the proposal).
+ */
+export function equivalentLoadsOfSpans(profile: TendonProfile, P: number, spans: number[]): BeamLoad[] {
+  if (!Number.isFinite(P)) throw new EngineInputError('P', 'the force must be a finite number')
+  return loadsOf(profile, P, [...new Set(spans)].sort((a, b) => a - b).map((span) => [span, spanPieces(profile, span)] as const))
+}
+
+function loadsOf(profile: TendonProfile, P: number, bySpan: ReadonlyArray<readonly [number, ProfilePiece[]]>): BeamLoad[] {
   const n = profile.spans.length
+  const pieces = new Map(bySpan)
   const loads: BeamLoad[] = []
-  all.forEach((pieces, span) => {
-    for (const p of pieces) {
+  for (const [span, ps] of bySpan) {
+    for (const p of ps) {
       if (p.c !== 0 && p.x1 > p.x0) loads.push({ kind: 'patch', span, from: p.x0, to: p.x1, w: 2 * p.c * P }) // w = P·e'' (curvature load)
     }
-  })
-  // kinks at interior supports: downward force P·(e'right − e'left)
-  for (let j = 1; j < n; j++) {
-    const left = slopeIn(all[j - 1] as ProfilePiece[], profile.spans[j - 1] as number)
-    const right = slopeIn(all[j] as ProfilePiece[], 0)
-    const kink = P * (right - left)
+  }
+  // kinks at interior supports: downward force P·(e'right − e'left); a span not given lies on the centroid (slope 0)
+  const slopeAt = (span: number, x: number): number => {
+    const ps = pieces.get(span)
+    return ps ? slopeIn(ps, x) : 0
+  }
+  const kinkAt = [...new Set(bySpan.flatMap(([span]) => [span, span + 1]))].filter((j) => j >= 1 && j < n).sort((a, b) => a - b)
+  for (const j of kinkAt) {
+    const kink = P * (slopeAt(j, 0) - slopeAt(j - 1, profile.spans[j - 1] as number))
     if (Math.abs(kink) > 0) loads.push({ kind: 'point', span: j, at: 0, P: kink })
   }
   const Llast = profile.spans[n - 1] as number
-  const e0 = profile.supportEcc[0] as number
-  const eN = profile.supportEcc[n] as number
   // anchorages: vertical component of P along the tendon, and the couple of the horizontal force at e
-  loads.push({ kind: 'point', span: 0, at: 0, P: P * slopeIn(all[0] as ProfilePiece[], 0) })
-  loads.push({ kind: 'couple', span: 0, at: 0, M: P * e0 })
-  loads.push({ kind: 'point', span: n - 1, at: Llast, P: -P * slopeIn(all[n - 1] as ProfilePiece[], Llast) })
-  loads.push({ kind: 'couple', span: n - 1, at: Llast, M: -P * eN })
+  if (pieces.has(0)) {
+    loads.push({ kind: 'point', span: 0, at: 0, P: P * slopeAt(0, 0) })
+    loads.push({ kind: 'couple', span: 0, at: 0, M: P * (profile.supportEcc[0] as number) })
+  }
+  if (pieces.has(n - 1)) {
+    loads.push({ kind: 'point', span: n - 1, at: Llast, P: -P * slopeAt(n - 1, Llast) })
+    loads.push({ kind: 'couple', span: n - 1, at: Llast, M: -P * (profile.supportEcc[n] as number) })
+  }
   return loads
 }
 
