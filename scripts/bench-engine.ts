@@ -1,8 +1,9 @@
 /**
- * Rough speed of designMember (run with `npx tsx scripts/bench-engine.ts`): the demo inputs against
- * a 5 ms budget per keystroke, then a slab strip of 10, 100 and 1,000 equal spans without the
- * proposal, as ratios of CPU time to the 10-span member — a cost linear in the spans gives ratios
- * near 10 and 100. Never used by tests: speed is measured, not asserted.
+ * Rough speed of designMember (run with `npx tsx scripts/bench-engine.ts [sizes] [proposal]`): the
+ * demo inputs against a 5 ms budget per keystroke, then a slab strip of 10, 100 and 1,000 equal spans
+ * (with the proposal when the second argument is `proposal`), as ratios of CPU time to the first
+ * size — a cost linear in the spans gives ratios near 10 and 100. Never used by tests: speed is
+ * measured, not asserted.
  */
 import { DEMO_BB1, DEMO_PS2, designMember } from '../shared/engine/index'
 import type { MemberInputDraft } from '../shared/engine/index'
@@ -33,9 +34,11 @@ const strip = (n: number): MemberInputDraft => ({
 })
 
 const sizes = (process.argv[2] ?? '10,100,1000').split(',').map(Number)
+const proposal = process.argv[3] === 'proposal'
 let base = 0
 for (const n of sizes) {
-  const ms = cpuMs(() => designMember(strip(n), { proposal: false }), n >= 1000 ? 1 : 3, n >= 1000 ? 0 : 1)
+  const ms = cpuMs(() => designMember(strip(n), { proposal }), n >= 1000 ? 1 : 3, n >= 1000 ? 0 : 1)
   if (base === 0) base = ms
-  console.log(`${n} spans: ${ms.toFixed(0)} ms without the proposal, ratio to ${sizes[0]} spans ${(ms / base).toFixed(1)} (linear: ${(n / (sizes[0] as number)).toFixed(0)})`)
+  const heap = process.memoryUsage().heapUsed / 1e6
+  console.log(`${n} spans: ${ms.toFixed(0)} ms ${proposal ? 'with' : 'without'} the proposal, ratio to ${sizes[0]} spans ${(ms / base).toFixed(1)} (linear: ${(n / (sizes[0] as number)).toFixed(0)}); heap after ${heap.toFixed(0)} MB`)
 }

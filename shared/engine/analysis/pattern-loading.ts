@@ -34,8 +34,15 @@ export function quantityOf(r: ContinuousBeamResult, q: ResponseQuantity): number
   return r.reactions[q.support] as number
 }
 
+/**
+ * The response to 1 N/mm on one span, kept only where it is not nil: the end moments of spans
+ * lo…hi and the reactions of supports lo…hi + 1 (elsewhere below FAR_SHARE of its largest value).
+ */
+interface UnitTrace { span: number; lo: number; hi: number; MA: Float64Array; MB: Float64Array; R: Float64Array }
+
 export function patternLoading(responses: SpanUnitResponses, patterns: ReadonlyArray<readonly number[]>): PatternLoading {
-  const n = responses.model.spans.length
+  const spans = responses.model.spans
+  const n = spans.length
   // patterns of one or two spans are local; the others are solved once each
   const local = patterns.map((p) => p.length <= 2 && p.length > 0)
   const solved = patterns.map((p, i) => (local[i] ? null : responses.combine(Array.from({ length: n }, (_, s) => (p.includes(s) ? 1 : 0)))))
@@ -47,10 +54,45 @@ export function patternLoading(responses: SpanUnitResponses, patterns: ReadonlyA
     const first = Math.min(...p)
     byFirst.set(first, [...(byFirst.get(first) ?? []), i])
   })
+  const traces = new Map<number, UnitTrace>()
+  const trace = (span: number): UnitTrace => {
+    const known = traces.get(span)
+    if (known) return known
+    const r = responses.model.analyse([{ kind: 'udl', span, w: 1 }])
+    const MA = new Float64Array(n)
+    const MB = new Float64Array(n)
+    let peak = 0
+    for (let t = 0; t < n; t++) {
+      MA[t] = r.momentAt(t, 0)
+      MB[t] = r.momentAt(t, spans[t] as number)
+      peak = Math.max(peak, Math.abs(MA[t] as number), Math.abs(MB[t] as number))
+    }
+    for (const v of r.reactions) peak = Math.max(peak, Math.abs(v))
+    const alive = (t: number): boolean => t === span || Math.max(Math.abs(MA[t] as number), Math.abs(MB[t] as number), Math.abs(r.reactions[t] as number), Math.abs(r.reactions[t + 1] as number)) > FAR_SHARE * peak
+    let lo = span
+    let hi = span
+    while (lo > 0 && alive(lo - 1)) lo--
+    while (hi < n - 1 && alive(hi + 1)) hi++
+    const t: UnitTrace = { span, lo, hi, MA: MA.slice(lo, hi + 1), MB: MB.slice(lo, hi + 1), R: Float64Array.from(r.reactions.slice(lo, hi + 2)) }
+    traces.set(span, t)
+    return t
+  }
+  // q of the unit response of a span: end moments between the supports plus the loaded span's own
+  // simple-span moment w·x(L − x)/2 and shear w(L/2 − x) (statics), 0 beyond the trace
+  const unitValue = (s: number, q: ResponseQuantity): number => {
+    const t = trace(s)
+    if (q.kind === 'reaction') return q.support >= t.lo && q.support <= t.hi + 1 ? (t.R[q.support - t.lo] as number) : 0
+    if (q.span < t.lo || q.span > t.hi) return 0
+    const L = spans[q.span] as number
+    const a = t.MA[q.span - t.lo] as number
+    const b = t.MB[q.span - t.lo] as number
+    if (q.kind === 'moment') return a * (1 - q.x / L) + (b * q.x) / L + (q.span === s ? (q.x * (L - q.x)) / 2 : 0)
+    return (b - a) / L + (q.span === s ? L / 2 - q.x : 0)
+  }
   const value = (q: ResponseQuantity, p: number): number => {
     const r = solved[p]
     if (r) return quantityOf(r, q)
-    return (patterns[p] as readonly number[]).reduce((sum, s) => sum + quantityOf(responses.unit(s), q), 0) // superposition
+    return (patterns[p] as readonly number[]).reduce((sum, s) => sum + unitValue(s, q), 0) // superposition
   }
   const range = (q: ResponseQuantity): { min: number; max: number } => {
     let min = Infinity
@@ -69,7 +111,7 @@ export function patternLoading(responses: SpanUnitResponses, patterns: ReadonlyA
         let quiet = 0
         let s = from
         for (; s >= 0 && s < n; s += step) {
-          const v = quantityOf(responses.unit(s), q)
+          const v = unitValue(s, q)
           unit.set(s, v)
           peak = Math.max(peak, Math.abs(v))
           quiet = Math.abs(v) <= FAR_SHARE * peak ? quiet + 1 : 0
@@ -82,9 +124,9 @@ export function patternLoading(responses: SpanUnitResponses, patterns: ReadonlyA
       let counted = 0
       for (let first = lo; first <= hi; first++) {
         for (const p of byFirst.get(first) ?? []) {
-          const spans = patterns[p] as readonly number[]
-          if (spans.every((s) => unit.has(s))) {
-            take(spans.reduce((sum, s) => sum + (unit.get(s) as number), 0)) // superposition of the unit responses
+          const ps = patterns[p] as readonly number[]
+          if (ps.every((s) => unit.has(s))) {
+            take(ps.reduce((sum, s) => sum + (unit.get(s) as number), 0)) // superposition of the unit responses
             counted++
           }
         }

@@ -98,7 +98,7 @@ export function stressSearch(first: ServiceDesign, magnel: MagnelResult[]): Stre
   // a linearisation about another force misjudges the force per strand (elastic shortening, creep) by
   // about this much (MPa): a rejection by less is tried by a run at the candidate's own force
   const MISJUDGED = 0.1
-  const modelCache = new Map<ServiceDesign, Map<number, LinearModel>>()
+  const modelCache = new WeakMap<ServiceDesign, Map<number, LinearModel>>() // a design no longer in use is freed with its models
   const modelOf = (d: ServiceDesign, margin: number): LinearModel => {
     const byMargin = modelCache.get(d) ?? new Map<number, LinearModel>()
     const mdl = byMargin.get(margin) ?? linearModel(d, basis, margin)
