@@ -5,7 +5,6 @@ import type { MemberLosses } from './losses'
 import type { MemberProfile } from './profile'
 import type { MemberSection } from './section'
 import type { Station } from './stations'
-import { SERVICE } from './stress-limits'
 import type { ServiceStresses } from './stress-limits'
 
 export interface MemberSeries {
@@ -55,7 +54,7 @@ export interface SeriesInput {
 
 export function memberSeries({ stations, section, profile, losses, analysis, stresses }: SeriesInput): MemberSeries {
   const X = stations.map((s) => s.X)
-  const all = stresses.byStation
+  const lines = stresses.lines
   const limits = stresses.limits
   const serviceTensionLimit = limits.frequent.tension ?? limits.quasiPermanent.tension ?? 0
   const { top: eTop, bottom: eBot } = section.eccentricity
@@ -78,17 +77,17 @@ export function memberSeries({ stations, section, profile, losses, analysis, str
     primaryService: analysis.service.primary,
     secondaryService: analysis.service.secondary,
     totalService: analysis.service.primary.map((v, k) => v + at(analysis.service.secondary, k)),
-    momentTransfer: all.map((r) => r.moments.transfer.min),
-    momentServiceMax: all.map((r) => r.moments.characteristic.max),
-    momentServiceMin: all.map((r) => r.moments.characteristic.min),
-    stressTransferTopMin: all.map((r) => r.stress.transfer.envelope.topMin),
-    stressTransferTopMax: all.map((r) => r.stress.transfer.envelope.topMax),
-    stressTransferBottomMin: all.map((r) => r.stress.transfer.envelope.bottomMin),
-    stressTransferBottomMax: all.map((r) => r.stress.transfer.envelope.bottomMax),
-    stressServiceTopMin: all.map((r) => Math.min(...SERVICE.map((s) => r.stress[s].envelope.topMin))),
-    stressServiceTopMax: all.map((r) => Math.max(...SERVICE.map((s) => r.stress[s].envelope.topMax))),
-    stressServiceBottomMin: all.map((r) => Math.min(...SERVICE.map((s) => r.stress[s].envelope.bottomMin))),
-    stressServiceBottomMax: all.map((r) => Math.max(...SERVICE.map((s) => r.stress[s].envelope.bottomMax))),
+    momentTransfer: lines.momentTransfer,
+    momentServiceMax: lines.momentServiceMax,
+    momentServiceMin: lines.momentServiceMin,
+    stressTransferTopMin: lines.transfer.topMin,
+    stressTransferTopMax: lines.transfer.topMax,
+    stressTransferBottomMin: lines.transfer.bottomMin,
+    stressTransferBottomMax: lines.transfer.bottomMax,
+    stressServiceTopMin: lines.service.topMin,
+    stressServiceTopMax: lines.service.topMax,
+    stressServiceBottomMin: lines.service.bottomMin,
+    stressServiceBottomMax: lines.service.bottomMax,
     limitTransferCompression: X.map(() => limits.transfer.compression as number),
     limitTransferTension: X.map(() => -(limits.transfer.tension as number)),
     limitServiceCompression: X.map(() => limits.characteristic.compression as number),

@@ -56,6 +56,16 @@ export interface CriticalSection extends ServiceSection { magnel: MagnelResult }
 export type UtilisationKey = 'topC' | 'topT' | 'botC' | 'botT'
 export interface StageStress { envelope: StressEnvelope; governing: FibrePair; utilisation: Record<UtilisationKey, number> }
 
+/** The figures' lines along the member: the transfer and characteristic moments, and the stress envelopes at transfer and over the service combinations. */
+export interface StressLines {
+  momentTransfer: number[]
+  momentServiceMax: number[]
+  momentServiceMin: number[]
+  transfer: StressEnvelopeLines
+  service: StressEnvelopeLines
+}
+export interface StressEnvelopeLines { topMin: number[]; topMax: number[]; bottomMin: number[]; bottomMax: number[] }
+
 export interface ServiceStresses {
   limits: StressLimits
   /** characteristic values of the prestress, EN 1992-1-1 5.10.9(1) */
@@ -66,8 +76,8 @@ export interface ServiceStresses {
   sectionStations: number[]
   stressBySection: Array<Record<Stage, StageStress>>
   momentsBySection: Array<Record<Stage, MomentRange>>
-  /** external moments and stresses at every station (for the figures) */
-  byStation: Array<{ moments: Record<Stage, MomentRange>; stress: Record<Stage, StageStress> }>
+  /** external moments and stress envelopes at every station, one value per station (for the figures) */
+  lines: StressLines
 }
 
 /** Stress limits of each stage from the exposure class, the bond and the national-annex factors. */

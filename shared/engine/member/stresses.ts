@@ -17,8 +17,8 @@ import type { MemberSection } from './section'
 import { stationFinder } from './stations'
 import type { Station } from './stations'
 import { stressChecks } from './stress-checks'
-import { STAGES, forceFactors, stressLimits } from './stress-limits'
-import type { FibrePair, MomentRange, ServiceSection, ServiceStresses, Stage, StageStress, StressEnvelope, StressLimits } from './stress-limits'
+import { SERVICE, STAGES, forceFactors, stressLimits } from './stress-limits'
+import type { FibrePair, MomentRange, ServiceSection, ServiceStresses, Stage, StageStress, StressEnvelope, StressEnvelopeLines, StressLimits, StressLines } from './stress-limits'
 
 export interface StressesInput {
   input: MemberInput
@@ -191,12 +191,27 @@ export function stressesStage(i: StressesInput): StageOutcome<ServiceStresses> {
       stress, envelope, utilisation: u,
     }
   })
-  const byStation = stations.map((_, k) => {
+  // the lines of the figures, station by station, kept as plain numbers
+  const envelopeLines = (): StressEnvelopeLines => ({ topMin: [], topMax: [], bottomMin: [], bottomMax: [] })
+  const lines: StressLines = { momentTransfer: [], momentServiceMax: [], momentServiceMin: [], transfer: envelopeLines(), service: envelopeLines() }
+  stations.forEach((_, k) => {
     const moments = stageMoments(input, loads, k)
-    return { moments, stress: stressAll(k, moments) }
+    const stress = stressAll(k, moments)
+    lines.momentTransfer.push(moments.transfer.min)
+    lines.momentServiceMax.push(moments.characteristic.max)
+    lines.momentServiceMin.push(moments.characteristic.min)
+    const t = stress.transfer.envelope
+    lines.transfer.topMin.push(t.topMin)
+    lines.transfer.topMax.push(t.topMax)
+    lines.transfer.bottomMin.push(t.bottomMin)
+    lines.transfer.bottomMax.push(t.bottomMax)
+    lines.service.topMin.push(Math.min(...SERVICE.map((st) => stress[st].envelope.topMin)))
+    lines.service.topMax.push(Math.max(...SERVICE.map((st) => stress[st].envelope.topMax)))
+    lines.service.bottomMin.push(Math.min(...SERVICE.map((st) => stress[st].envelope.bottomMin)))
+    lines.service.bottomMax.push(Math.max(...SERVICE.map((st) => stress[st].envelope.bottomMax)))
   })
   const result: ServiceStresses = {
-    limits, rsup, rinf, sections, sectionStations: sites.map((s) => s.k), stressBySection, momentsBySection, byStation,
+    limits, rsup, rinf, sections, sectionStations: sites.map((s) => s.k), stressBySection, momentsBySection, lines,
   }
   return { result, checks: stressChecks({ input, section, losses, stresses: result }), warnings: [] }
 }
