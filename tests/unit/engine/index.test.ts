@@ -53,6 +53,9 @@ describe('public surface of shared/engine', () => {
     const missing = VALUES.filter((n) => !(n in engine))
     expect(missing).toEqual([])
   })
+  it('adds the pattern loading, the local equivalent loads and the ULS expressions', () => {
+    for (const n of ['patternLoading', 'quantityOf', 'equivalentLoadsOfSpans', 'ulsExpressions', 'ulsCaseNames', 'steelStressForBarSize']) expect(n in engine, n).toBe(true)
+  })
   it('exports the eq. (7.1) minimum crack steel and its helpers as the module\'s own functions', () => {
     const names = ['crackSizeFactor', 'kcWeb', 'kcFlange', 'tensileDepthAtCracking', 'bondRatioPostTensioned', 'tendonEquivalentDiameter',
       'bondAdjustedRatio', 'minimumCrackSteel', 'maxBarDiameterTable', 'maxBarSpacing', 'maxBarDiameter'] as const
