@@ -40,4 +40,6 @@ export const DEMO_BB1: MemberInputDraft = {
   limits: { exposure: 'XC1' },
   // 16 H16 top over the supports and 16 H12 bottom within the band (invented demo detailing)
   uls: { barsTop: { area: 3217, diameter: 16, cover: 30 }, barsBottom: { area: 1810, diameter: 12, cover: 30 } },
+  // the podium's transfer level: two hours (invented demo requirement)
+  fire: { rating: 'R120' },
 }

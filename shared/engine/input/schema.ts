@@ -14,7 +14,7 @@ import { CONCRETE_CLASSES } from '../materials/concrete'
 import type { ConcreteClass } from '../materials/concrete'
 import { EXPOSURE_CLASSES } from '../checks/stresses'
 
-export const INPUT_GROUPS = ['geometry', 'section', 'materials', 'loads', 'tendon', 'profile', 'losses', 'limits', 'annex', 'uls', 'sls', 'site'] as const
+export const INPUT_GROUPS = ['geometry', 'section', 'materials', 'loads', 'tendon', 'profile', 'losses', 'limits', 'annex', 'uls', 'sls', 'fire', 'site'] as const
 export type InputGroup = (typeof INPUT_GROUPS)[number]
 
 export type FieldMeta = {
@@ -250,6 +250,17 @@ export const memberInputShape = {
     duration: z.enum(['long', 'short']).default('long')
       .meta({ label: 'Duration of the load for kt', unit: '', precision: 0, group: 'sls', clause: 'EN 1992-1-1 7.3.4(2)' }),
     wmax: bounded({ label: 'Crack width limit (override)', unit: 'mm', precision: 2, group: 'sls', symbol: 'w_{max}', clause: 'EN 1992-1-1 Table 7.1N', help: 'leave out for Table 7.1N' }, 0.05, 0.5).optional(),
+  }).prefault({}),
+  fire: z.object({
+    rating: z.enum(['none', 'R60', 'R90', 'R120', 'R180', 'R240']).default('none')
+      .meta({ label: 'Fire resistance required', unit: '', precision: 0, group: 'fire', clause: 'EN 1992-1-2 5', help: 'standard fire exposure from below; none skips the check' }),
+    slab: z.enum(['flat-slab', 'one-way', 'two-way']).default('flat-slab')
+      .meta({ label: 'Slab kind for the fire tables (slab strips)', unit: '', precision: 0, group: 'fire', clause: 'EN 1992-1-2 5.7', help: 'flat slab on columns, or a slab spanning one or two ways onto beams or walls' }),
+    spanRatio: bounded({ label: 'Ratio of the spans ly/lx (two-way slabs)', unit: '', precision: 2, group: 'fire', symbol: 'l_y/l_x', clause: 'EN 1992-1-2 Table 5.8' }, 1, 10).default(1),
+  }).prefault({}),
+  anchorage: z.object({
+    plateWidth: length({ label: 'Anchor plate width (across the member)', precision: 0, group: 'tendon', symbol: 'a_1', help: "the supplier's data govern; left out: 250 mm for a flat duct, 180 mm for a round one (common practice)" }, 50, 1000).optional(),
+    plateHeight: length({ label: 'Anchor plate height', precision: 0, group: 'tendon', symbol: 'a_2', help: "left out: 90 mm for a flat duct, 180 mm for a round one (common practice)" }, 30, 1000).optional(),
   }).prefault({}),
   site: z.object({
     spacing: bounded({ label: 'Station spacing of the height schedule', unit: 'mm', precision: 0, group: 'site', help: 'commonly 500 or 1000 mm' }, 100, 5000).default(1000),

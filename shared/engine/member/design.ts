@@ -25,6 +25,10 @@ import type { MemberSeries } from './series'
 import { designForService } from './service-design'
 import type { ServiceDesign } from './service-design'
 import { siteStage } from './site'
+import { fireStage } from './fire'
+import type { MemberFire } from './fire'
+import { anchorageStage } from './anchorage-zone'
+import type { AnchorageEnd } from './anchorage-zone'
 import type { MemberSite } from './site'
 import { slsStage } from './sls'
 import type { MemberCracking, MemberDeflection } from './sls'
@@ -82,6 +86,10 @@ export interface Design {
   cracking: MemberCracking
   /** tendon height schedule and stressing schedule */
   site: MemberSite
+  /** fire resistance by tabulated data (EN 1992-1-2 5), null where none is asked for */
+  fire: MemberFire | null
+  /** anchorage zones at the two ends of the tendon (EN 1992-1-1 8.10.3, 6.7) */
+  anchorages: AnchorageEnd[]
 }
 
 export interface DesignOptions {
@@ -99,7 +107,9 @@ export function designMember(raw: unknown, options: DesignOptions = {}): Design 
   const uls = ulsStage({ input, section, loads, profile, losses, analysis, stresses })
   const sls = slsStage({ input, section, loads, profile, losses, stresses })
   const site = siteStage(input, section, profile, service.stations)
-  const later = [magnel, proposal, uls, sls, site]
+  const fire = fireStage(input, section)
+  const anchorages = anchorageStage(input, section, profile)
+  const later = [magnel, proposal, uls, sls, fire, anchorages, site]
   return designRecord(service, {
     magnel: magnel.result,
     proposal: proposal.result,
@@ -107,6 +117,8 @@ export function designMember(raw: unknown, options: DesignOptions = {}): Design 
     deflection: sls.result.deflection,
     cracking: sls.result.cracking,
     site: site.result,
+    fire: fire.result,
+    anchorages: anchorages.result,
     checks: [...service.checks, ...later.flatMap((s) => s.checks)],
     warnings: [...service.warnings, ...later.flatMap((s) => s.warnings)],
   })
@@ -128,6 +140,8 @@ interface LaterResults {
   deflection: MemberDeflection
   cracking: MemberCracking
   site: MemberSite
+  fire: MemberFire | null
+  anchorages: AnchorageEnd[]
   checks: CheckResult[]
   warnings: string[]
 }
@@ -180,5 +194,7 @@ function designRecord(d: ServiceDesign, later: LaterResults): Design {
     deflection: later.deflection,
     cracking: later.cracking,
     site: later.site,
+    fire: later.fire,
+    anchorages: later.anchorages,
   }
 }
