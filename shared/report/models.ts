@@ -149,12 +149,14 @@ const figures: Record<string, ModelFigure> = {
   },
 }
 
-// The shape of a Design does not depend on the numbers: two demo runs show every key.
+// The shape of a Design does not depend on the numbers: the demo runs, and one with every optional part, show every key.
 let shape: Map<string, ShapeKind> | null = null
 function resultShape(): Map<string, ShapeKind> {
   if (!shape) {
     const s = shapeOf(designMember(DEMO_PS2))
     shapeOf(designMember(DEMO_BB1), s)
+    // the optional parts (columns, fire) have their keys whether or not a demo sheet uses them
+    shapeOf(designMember({ ...DEMO_PS2, columns: { where: 'all' }, fire: { rating: 'R60' } }, { proposal: false }), s)
     shape = s
   }
   return shape

@@ -25,6 +25,7 @@ export const DISPLAY_UNITS = {
   '%': { factor: 0.01, label: '%' },
   '‰': { factor: 0.001, label: '‰' },
   'rad': { factor: 1, label: 'rad' },
+  'kNm/rad': { factor: 1e6, label: 'kNm/rad' },
   '°': { factor: Math.PI / 180, label: '°' },
   'rad/m': { factor: 1e-3, label: 'rad/m' },
   '1/MN': { factor: 1e-6, label: '1/MN' },

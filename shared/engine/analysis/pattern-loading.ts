@@ -8,11 +8,12 @@
  */
 import type { ContinuousBeamResult, SpanUnitResponses } from './continuous-beam'
 
-/** A response quantity linear in the loads: a moment or shear at x in a span, or a support's reaction. */
+/** A response quantity linear in the loads: a moment or shear at x in a span, a support's reaction or its couple (the columns' moment). */
 export type ResponseQuantity =
   | { kind: 'moment'; span: number; x: number }
   | { kind: 'shear'; span: number; x: number }
   | { kind: 'reaction'; support: number }
+  | { kind: 'couple'; support: number }
 
 export interface PatternLoading {
   /** the loaded spans of each pattern, as given */
@@ -31,6 +32,7 @@ const QUIET_SPANS = 3
 export function quantityOf(r: ContinuousBeamResult, q: ResponseQuantity): number {
   if (q.kind === 'moment') return r.momentAt(q.span, q.x)
   if (q.kind === 'shear') return r.shearAt(q.span, q.x)
+  if (q.kind === 'couple') return r.reactionCouples[q.support] as number
   return r.reactions[q.support] as number
 }
 
@@ -38,7 +40,7 @@ export function quantityOf(r: ContinuousBeamResult, q: ResponseQuantity): number
  * The response to 1 N/mm on one span, kept only where it is not nil: the end moments of spans
  * lo…hi and the reactions of supports lo…hi + 1 (elsewhere below FAR_SHARE of its largest value).
  */
-interface UnitTrace { span: number; lo: number; hi: number; MA: Float64Array; MB: Float64Array; R: Float64Array }
+interface UnitTrace { span: number; lo: number; hi: number; MA: Float64Array; MB: Float64Array; R: Float64Array; C: Float64Array }
 
 export function patternLoading(responses: SpanUnitResponses, patterns: ReadonlyArray<readonly number[]>): PatternLoading {
   const spans = responses.model.spans
@@ -68,12 +70,13 @@ export function patternLoading(responses: SpanUnitResponses, patterns: ReadonlyA
       peak = Math.max(peak, Math.abs(MA[t] as number), Math.abs(MB[t] as number))
     }
     for (const v of r.reactions) peak = Math.max(peak, Math.abs(v))
-    const alive = (t: number): boolean => t === span || Math.max(Math.abs(MA[t] as number), Math.abs(MB[t] as number), Math.abs(r.reactions[t] as number), Math.abs(r.reactions[t + 1] as number)) > FAR_SHARE * peak
+    const C = r.reactionCouples
+    const alive = (t: number): boolean => t === span || Math.max(Math.abs(MA[t] as number), Math.abs(MB[t] as number), Math.abs(r.reactions[t] as number), Math.abs(r.reactions[t + 1] as number), Math.abs(C[t] as number), Math.abs(C[t + 1] as number)) > FAR_SHARE * peak
     let lo = span
     let hi = span
     while (lo > 0 && alive(lo - 1)) lo--
     while (hi < n - 1 && alive(hi + 1)) hi++
-    const t: UnitTrace = { span, lo, hi, MA: MA.slice(lo, hi + 1), MB: MB.slice(lo, hi + 1), R: Float64Array.from(r.reactions.slice(lo, hi + 2)) }
+    const t: UnitTrace = { span, lo, hi, MA: MA.slice(lo, hi + 1), MB: MB.slice(lo, hi + 1), R: Float64Array.from(r.reactions.slice(lo, hi + 2)), C: Float64Array.from(C.slice(lo, hi + 2)) }
     traces.set(span, t)
     return t
   }
@@ -82,6 +85,7 @@ export function patternLoading(responses: SpanUnitResponses, patterns: ReadonlyA
   const unitValue = (s: number, q: ResponseQuantity): number => {
     const t = trace(s)
     if (q.kind === 'reaction') return q.support >= t.lo && q.support <= t.hi + 1 ? (t.R[q.support - t.lo] as number) : 0
+    if (q.kind === 'couple') return q.support >= t.lo && q.support <= t.hi + 1 ? (t.C[q.support - t.lo] as number) : 0
     if (q.span < t.lo || q.span > t.hi) return 0
     const L = spans[q.span] as number
     const a = t.MA[q.span - t.lo] as number
@@ -104,7 +108,7 @@ export function patternLoading(responses: SpanUnitResponses, patterns: ReadonlyA
     solved.forEach((r) => r && take(quantityOf(r, q)))
     if (localCount > 0) {
       // unit responses outward from the point's span until they die away
-      const home = q.kind === 'reaction' ? Math.min(q.support, n - 1) : q.span
+      const home = q.kind === 'reaction' || q.kind === 'couple' ? Math.min(q.support, n - 1) : q.span
       const unit = new Map<number, number>()
       let peak = 0
       const scan = (from: number, step: number): number => {

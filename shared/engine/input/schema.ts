@@ -92,6 +92,19 @@ export const memberInputShape = {
       .optional()
       .meta(meta({ label: 'Supports (left to right)', unit: '', precision: 0, group: 'geometry', help: 'one more than the spans; all pinned when left out' })),
   }),
+  columns: z.object({
+    where: z.enum(['none', 'interior', 'all']).default('none')
+      .meta(meta({ label: 'Columns at the supports', unit: '', precision: 0, group: 'geometry', clause: 'EN 1992-1-1 5.3, Annex I', help: 'none: knife-edge supports; interior: at the interior supports; all: at every support (frame action)' })),
+    c1: length({ label: 'Column size along the member', precision: 0, group: 'geometry', symbol: 'c_1' }, 150, 3000).default(400),
+    c2: length({ label: 'Column size across the member', precision: 0, group: 'geometry', symbol: 'c_2' }, 150, 3000).default(400),
+    heightBelow: length({ label: 'Height of the columns below (0 = none)', unit: 'm', precision: 2, group: 'geometry', symbol: 'H_b' }, 0, 30000).default(3500),
+    farEndBelow: z.enum(['fixed', 'pinned']).default('fixed')
+      .meta(meta({ label: 'Far end of the columns below', unit: '', precision: 0, group: 'geometry', help: 'fixed: 4EI/H; pinned: 3EI/H' })),
+    heightAbove: length({ label: 'Height of the columns above (0 = none)', unit: 'm', precision: 2, group: 'geometry', symbol: 'H_a' }, 0, 30000).default(0),
+    farEndAbove: z.enum(['fixed', 'pinned']).default('fixed')
+      .meta(meta({ label: 'Far end of the columns above', unit: '', precision: 0, group: 'geometry', help: 'fixed: 4EI/H; pinned: 3EI/H' })),
+    panelWidth: length({ label: 'Slab width per column line (slab strips)', unit: 'm', precision: 2, group: 'geometry', symbol: 'l_2', clause: 'EN 1992-1-1 Annex I.1.2', help: 'the strip is 1 m wide: it takes the columns\' stiffness per metre of this width' }, 1000, 40000).default(8000),
+  }).prefault({}),
   section: z.object({
     kind: z.enum(['slab-strip', 'tee-beam', 'ell-beam', 'rectangle', 'flanged'])
       .meta(meta({ label: 'Section', unit: '', precision: 0, group: 'section', help: 'slab strip per metre width; T or L band beam; general rectangle or flanged section' })),
@@ -283,6 +296,12 @@ function refineMember(v: z.output<z.ZodObject<typeof memberInputShape>>, ctx: Ct
   const issue = (path: Array<string | number>, message: string): void => ctx.addIssue({ code: 'custom', path, message })
   if (v.geometry.supports && v.geometry.supports.length !== n + 1) {
     issue(['geometry', 'supports'], `Give ${n + 1} supports for ${n} span${n === 1 ? '' : 's'}`)
+  }
+  if (v.columns.where !== 'none' && v.columns.heightBelow === 0 && v.columns.heightAbove === 0) {
+    issue(['columns', 'heightBelow'], 'Give the height of the columns below or above the member')
+  }
+  if (v.columns.where !== 'none' && v.geometry.supports?.some((k, j) => k === 'fixed' && (v.columns.where === 'all' || (j > 0 && j < n)))) {
+    issue(['columns', 'where'], 'A fixed support already stops rotation: give columns only at pinned supports')
   }
   const s = v.section
   if (s.kind === 'rectangle' && s.b === undefined) issue(['section', 'b'], 'Give the width of the rectangle')

@@ -20,12 +20,18 @@ export interface PrestressAnalysis {
   atSupports: Record<'transfer' | 'service', PrestressMomentLine>
   /** station index of each support */
   supportStations: number[]
+  /** station indices at the two ends of each span (0⁺ and L⁻): with columns the secondary moment steps at a support */
+  spanEndStations: Array<[number, number]>
 }
 
 export function analysisStage(stations: Station[], profile: MemberProfile, losses: MemberLosses): StageOutcome<PrestressAnalysis> {
   const n = stations.length === 0 ? 0 : (stations[stations.length - 1] as Station).span + 1
   const find = stationFinder(stations)
   const supportStations = Array.from({ length: n + 1 }, (_, j) => (j < n ? find(j, 0) : stations.length - 1))
+  const spanEndStations = Array.from({ length: n }, (_, i): [number, number] => {
+    const ks = stations.flatMap((st, k) => (st.span === i ? [k] : []))
+    return [ks[0] as number, ks[ks.length - 1] as number]
+  })
   const line = (P: number[], Pmean: number): PrestressMomentLine => {
     const primary = stations.map((_, k) => -at(P, k) * at(profile.e, k)) // primary moment −P·e
     const secondary = profile.secondaryPerUnitForce.map((m) => m * Pmean)
@@ -39,7 +45,7 @@ export function analysisStage(stations: Station[], profile: MemberProfile, losse
     total: supportStations.map((k) => at(l.primary, k) + at(l.secondary, k)),
   })
   return {
-    result: { transfer, service, atSupports: { transfer: pick(transfer), service: pick(service) }, supportStations },
+    result: { transfer, service, atSupports: { transfer: pick(transfer), service: pick(service) }, supportStations, spanEndStations },
     checks: [],
     warnings: [],
   }

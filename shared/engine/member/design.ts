@@ -28,6 +28,8 @@ import { siteStage } from './site'
 import { fireStage } from './fire'
 import type { MemberFire } from './fire'
 import { anchorageStage } from './anchorage-zone'
+import { columnMoments } from './column-moments'
+import type { ColumnMoments } from './column-moments'
 import type { AnchorageEnd } from './anchorage-zone'
 import type { MemberSite } from './site'
 import { slsStage } from './sls'
@@ -90,6 +92,8 @@ export interface Design {
   fire: MemberFire | null
   /** anchorage zones at the two ends of the tendon (EN 1992-1-1 8.10.3, 6.7) */
   anchorages: AnchorageEnd[]
+  /** the columns at the supports: their stiffness and the moments the member passes into them, or null */
+  columns: { Ecm: number; I: number; joints: ColumnMoments[] } | null
 }
 
 export interface DesignOptions {
@@ -196,5 +200,6 @@ function designRecord(d: ServiceDesign, later: LaterResults): Design {
     site: later.site,
     fire: later.fire,
     anchorages: later.anchorages,
+    columns: loads.columns ? { Ecm: loads.columns.Ecm, I: loads.columns.I, joints: columnMoments(loads, profile, losses) } : null,
   }
 }

@@ -11,6 +11,8 @@ import type { SpanUnitResponses, SupportKind } from '../analysis/continuous-beam
 import { patternLoading } from '../analysis/pattern-loading'
 import type { PatternLoading } from '../analysis/pattern-loading'
 import type { MemberSection } from './section'
+import { memberColumns } from './columns'
+import type { MemberColumns } from './columns'
 import type { Station } from './stations'
 
 export interface LoadPattern { id: string; label: string; loadedSpans: number[] }
@@ -27,6 +29,10 @@ export interface CaseMoments {
 
 export interface MemberLoads {
   supports: SupportKind[]
+  /** the columns at the supports and their rotational springs (EN 1992-1-1 5.3, Annex I), or null */
+  columns: MemberColumns | null
+  /** rotational spring at each support, N·mm/rad (0 = none) */
+  springs: number[] | undefined
   /** line loads, N/mm */
   selfWeight: number
   superimposed: number
@@ -73,7 +79,9 @@ export function loadsStage(input: MemberInput, section: MemberSection, stations:
   const superimposed = input.loads.superimposed * trib
   const imposed = input.loads.imposed * trib
 
-  const responses = spanUnitResponses({ spans, EI: section.EI, supports })
+  const columns = memberColumns(input, section)
+  const springs = columns?.springs
+  const responses = spanUnitResponses({ spans, EI: section.EI, supports, ...(springs ? { springs } : {}) })
   const patterns = loadPatterns(input)
   const arrangements = patternLoading(responses, patterns.map((p) => p.loadedSpans))
   // linear elastic analysis (EN 1992-1-1 5.4): each case is the sum of the unit-span cases, found in one solve
@@ -88,5 +96,5 @@ export function loadsStage(input: MemberInput, section: MemberSection, stations:
     imposedAll: along(imposed),
     imposedRange: { min: ranges.map((r) => imposed * r.min), max: ranges.map((r) => imposed * r.max) },
   }
-  return { result: { supports, selfWeight, superimposed, imposed, patterns, responses, patternLoading: arrangements, cases }, checks: [], warnings: [] }
+  return { result: { supports, columns, springs, selfWeight, superimposed, imposed, patterns, responses, patternLoading: arrangements, cases }, checks: [], warnings: [] }
 }

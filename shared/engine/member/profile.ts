@@ -24,6 +24,8 @@ export interface MemberProfile {
   e: number[]
   /** secondary moment of prestress at each station under P = 1 N (EN 1992-1-1 5.10.7), N·mm/N */
   secondaryPerUnitForce: number[]
+  /** couple reaction of each support per unit force (the columns' share of the prestress), N·mm per N */
+  couplesPerUnitForce: number[]
   drapes: number[]
   /** low points along the member, mm */
   lowPointX: number[]
@@ -65,8 +67,9 @@ export function profileStage(input: MemberInput, section: MemberSection, loads: 
   })
 
   // secondary moment per unit force (EN 1992-1-1 5.10.7), scaled later by the mean force of each stage
-  const unitPs = prestressMoments({ spans, EI: section.EI, supports: loads.supports, profile, P: 1 })
+  const unitPs = prestressMoments({ spans, EI: section.EI, supports: loads.supports, ...(loads.springs ? { springs: loads.springs } : {}), profile, P: 1 })
   const secondaryPerUnitForce = stations.map((s) => unitPs.secondaryAt(s.span, s.x))
+  const couplesPerUnitForce = unitPs.reactionCouples // the columns' share of the prestress, per unit force
 
   let offset = 0
   const lowPointX = spans.map((L, i) => {
@@ -75,7 +78,7 @@ export function profileStage(input: MemberInput, section: MemberSection, loads: 
     return x
   })
   return {
-    result: { profile, pieces, lowAt, e, secondaryPerUnitForce, drapes: drapes(profile), lowPointX, length: sum(spans) },
+    result: { profile, pieces, lowAt, e, secondaryPerUnitForce, couplesPerUnitForce, drapes: drapes(profile), lowPointX, length: sum(spans) },
     checks: [],
     warnings: [],
   }

@@ -30,7 +30,7 @@ export function profileBasis(d: ServiceDesign, ks: number[]): ProfileBasis {
   const spans = d.input.geometry.spans
   const n = spans.length
   const m = 2 * n + 1
-  const model = continuousBeamModel({ spans, EI: d.section.EI, supports: d.loads.supports }) // factored once for every unit profile
+  const model = continuousBeamModel({ spans, EI: d.section.EI, supports: d.loads.supports, ...(d.loads.springs ? { springs: d.loads.springs } : {}) }) // factored once for every unit profile
   const rowsOfSpan: number[][] = spans.map(() => [])
   ks.forEach((k, r) => (rowsOfSpan[(d.stations[k] as Station).span] as number[]).push(r))
   const entries: Array<{ j: number[]; phi: number[]; psi: number[] }> = ks.map(() => ({ j: [], phi: [], psi: [] }))

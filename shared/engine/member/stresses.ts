@@ -104,8 +104,12 @@ export function forceAtSections(P: number[], stations: Station[]): number[] {
 
 interface SectionSite { id: string; label: string; kind: ServiceSection['kind']; k: number }
 
-/** Supports, then per span its low point and tenth points in order along the span. */
-function criticalSites(spans: number[], lowAt: number[], stations: Station[]): SectionSite[] {
+/**
+ * Supports, then per span its low point and tenth points in order along the span. Where columns
+ * meet an interior support its moment steps by the columns' moment, so the support is checked on
+ * both sides: the left side as a section of its own.
+ */
+function criticalSites(spans: number[], lowAt: number[], stations: Station[], framed: (support: number) => boolean): SectionSite[] {
   const n = spans.length
   const out: SectionSite[] = []
   const find = stationFinder(stations)
@@ -117,7 +121,8 @@ function criticalSites(spans: number[], lowAt: number[], stations: Station[]): S
   }
   for (let i = 0; i < n; i++) {
     const L = at(spans, i)
-    add({ id: `support-${i + 1}`, label: `Support ${i + 1}`, kind: 'support', k: find(i, 0) })
+    if (i > 0 && framed(i)) add({ id: `support-${i + 1}-left`, label: `Support ${i + 1}, left side`, kind: 'support', k: find(i - 1, at(spans, i - 1)) })
+    add({ id: `support-${i + 1}`, label: framed(i) && i > 0 ? `Support ${i + 1}, right side` : `Support ${i + 1}`, kind: 'support', k: find(i, 0) })
     const lowX = at(lowAt, i) * L
     const tenths = [1, 2, 3, 4, 5, 6, 7, 8, 9].map((t) => ({ t, x: (t * L) / 10 }))
     const items: SectionSite[] = [{ id: `span-${i + 1}-low`, label: `Span ${i + 1}, low point`, kind: 'lowPoint', k: find(i, lowX) }]
@@ -151,7 +156,7 @@ export function stressesStage(i: StressesInput): StageOutcome<ServiceStresses> {
     for (const stage of STAGES) s[stage] = stressAt(c, k, stage, M[stage])
     return s
   }
-  const sites = criticalSites(input.geometry.spans, profile.lowAt, stations)
+  const sites = criticalSites(input.geometry.spans, profile.lowAt, stations, (j) => (loads.springs?.[j] ?? 0) > 0)
   const stressBySection: Array<Record<Stage, StageStress>> = []
   const momentsBySection: Array<Record<Stage, MomentRange>> = []
   const sections: ServiceSection[] = sites.map((site) => {

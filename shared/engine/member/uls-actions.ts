@@ -16,11 +16,10 @@ export interface UlsActions {
   cases: Array<{ id: string; label: string; clause: string }>
   /** least and greatest design value of a response quantity over the cases, secondary effects not included */
   envelope: (q: ResponseQuantity) => { min: number; max: number }
-  /** secondary moments at the supports, transfer and service (they vary linearly along each span, 5.10.7) */
-  secondaryTransfer: number[]
-  secondaryService: number[]
-  /** the secondary moment of a support line m at x in a span */
-  secondaryAt: (m: number[], span: number, x: number) => number
+  /** secondary moments at the two ends of each span, transfer and service (linear along each span, 5.10.7; with columns they step at a support) */
+  secondaryEnds: Record<'transfer' | 'service', Array<{ start: number; end: number }>>
+  /** the secondary moment of a stage at x in a span */
+  secondaryAt: (stage: 'transfer' | 'service', span: number, x: number) => number
   /** depths of the bottom and top bar layers from the top and bottom faces, mm */
   dBottomBars: number
   dTopBars: number
@@ -49,13 +48,18 @@ export function ulsActions(input: MemberInput, section: MemberSection, loads: Me
     }
     return { min, max }
   }
-  const secondaryAt = (m: number[], span: number, x: number): number =>
-    (m[span] as number) * (1 - x / (spans[span] as number)) + ((m[span + 1] as number) * x) / (spans[span] as number)
+  const ends = (stage: 'transfer' | 'service'): Array<{ start: number; end: number }> =>
+    analysis.spanEndStations.map(([k0, k1]) => ({ start: analysis[stage].secondary[k0] as number, end: analysis[stage].secondary[k1] as number }))
+  const secondaryEnds = { transfer: ends('transfer'), service: ends('service') }
+  const secondaryAt = (stage: 'transfer' | 'service', span: number, x: number): number => {
+    const e = secondaryEnds[stage][span] as { start: number; end: number }
+    const L = spans[span] as number
+    return e.start * (1 - x / L) + (e.end * x) / L
+  }
   const h = section.properties.h
   return {
     cases, envelope,
-    secondaryTransfer: analysis.atSupports.transfer.secondary,
-    secondaryService: analysis.atSupports.service.secondary,
+    secondaryEnds,
     secondaryAt,
     dBottomBars: h - u.barsBottom.cover - u.barsBottom.diameter / 2,
     dTopBars: h - u.barsTop.cover - u.barsTop.diameter / 2,

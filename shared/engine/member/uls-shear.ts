@@ -87,7 +87,11 @@ export function shearAtSupports({ input, section, profile, losses, sections, act
   const bonded = section.bonded
   const bb = u.barsBottom
   const bt = u.barsTop
-  const { envelope, secondaryTransfer: M2t, secondaryService: M2s, secondaryAt, dBottomBars, dTopBars } = actions
+  const { envelope, secondaryEnds, secondaryAt, dBottomBars, dTopBars } = actions
+  const slope2 = (stage: 'transfer' | 'service', span: number): number => {
+    const e = secondaryEnds[stage][span] as { start: number; end: number }
+    return (e.end - e.start) / (spans[span] as number) // secondary shear ΔM2/L
+  }
   const shearG = shearGeometry(section.outline, yt)
   const fctd = c28.fctk005 / u.gammaC // 3.1.6(2), αct = 1.0
   const t = input.tendon
@@ -104,13 +108,12 @@ export function shearAtSupports({ input, section, profile, losses, sections, act
     const e = s?.e ?? (profile.profile.supportEcc[j] as number)
     const P = s?.force.service ?? losses.service.Pmean
     for (const sd of sides) {
-      const L = spans[sd.span] as number
-      const V2 = [M2t, M2s].map((m) => (u.gammaP * ((m[sd.span + 1] as number) - (m[sd.span] as number))) / L) // secondary shear ΔM2/L
+      const V2 = (['transfer', 'service'] as const).map((stage) => u.gammaP * slope2(stage, sd.span))
       const V = envelope({ kind: 'shear', span: sd.span, x: sd.x })
       const candidates = [V.min, V.max].flatMap((v) => V2.map((w) => v + w)) // |v + w| is greatest at an end of the range
       const VEd = Math.max(...candidates.map(Math.abs))
       const Vsecondary = V2.reduce((a, b) => (Math.abs(b) > Math.abs(a) ? b : a))
-      const Mext = envelope({ kind: 'moment', span: sd.span, x: sd.x }).min + u.gammaP * secondaryAt(M2s, sd.span, sd.x)
+      const Mext = envelope({ kind: 'moment', span: sd.span, x: sd.x }).min + u.gammaP * secondaryAt('service', sd.span, sd.x)
       const hog = Mext < 0
       const dp = hog ? h - (yt + e) : yt + e
       const dBars = hog ? (bt.area > 0 ? dTopBars : 0) : bb.area > 0 ? dBottomBars : 0
@@ -147,13 +150,15 @@ export function punchingAtColumn({ input, section, profile, losses, sections, ac
   const u = input.uls
   const { h, yt } = section.properties
   const bt = u.barsTop
-  const { envelope, secondaryTransfer: M2t, secondaryService: M2s, dTopBars } = actions
+  const { envelope, secondaryEnds, dTopBars } = actions
   const j = p.support - 1
   if (j > n) throw new EngineInputError('punching.support', `the member has ${n + 1} supports`)
-  const R2 = [M2t, M2s].map((m) => {
-    const right = j < n ? ((m[j + 1] as number) - (m[j] as number)) / (spans[j] as number) : 0
-    const left = j > 0 ? ((m[j] as number) - (m[j - 1] as number)) / (spans[j - 1] as number) : 0
-    return u.gammaP * (right - left) // secondary reaction: jump of the secondary shear
+  const R2 = (['transfer', 'service'] as const).map((stage) => {
+    const slope = (span: number): number => {
+      const e = secondaryEnds[stage][span] as { start: number; end: number }
+      return (e.end - e.start) / (spans[span] as number)
+    }
+    return u.gammaP * ((j < n ? slope(j) : 0) - (j > 0 ? slope(j - 1) : 0)) // secondary reaction: jump of the secondary shear
   })
   const perWidth = (envelope({ kind: 'reaction', support: j }).max + Math.max(...R2)) / 1000 // N per mm of strip width
   const VEd = perWidth * p.panelWidth // the strip reaction over the panel width (common practice)

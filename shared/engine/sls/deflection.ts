@@ -24,6 +24,8 @@ export interface SpanCracking {
 export interface DeflectionInput {
   spans: number[]
   supports?: SupportKind[]
+  /** rotational springs at the supports divided by the modulus (k/E, mm⁴/rad·mm⁻¹), as the member's I is: the columns creep as the member does */
+  springs?: number[]
   /** unbalanced quasi-permanent loads, gravity positive */
   loads: BeamLoad[]
   Ecm: number
@@ -118,7 +120,7 @@ export function memberDeflection(i: DeflectionInput): DeflectionResult {
   const stations = Math.max(20, Math.round((i.stations ?? 100) / 2) * 2)
   const EcEff = i.Ecm / (1 + i.phi) // EN 1992-1-1 eq. (7.20)
   // moments do not depend on a uniform modulus, only on the relative stiffness of the spans
-  const beam = analyseContinuousBeam({ spans: i.spans, EI: Is, ...(i.supports ? { supports: i.supports } : {}), loads: i.loads })
+  const beam = analyseContinuousBeam({ spans: i.spans, EI: Is, ...(i.supports ? { supports: i.supports } : {}), ...(i.springs ? { springs: i.springs } : {}), loads: i.loads })
   const series = { x: [] as number[], span: [] as number[], shortTerm: [] as number[], longTerm: [] as number[] }
   let x0 = 0
   const spans = i.spans.map((L, s) => {
