@@ -23,12 +23,21 @@ const RULES: Record<string, Rule> = {
   'losses.longTermShare': i => getPath(i, 'losses.model') === 'percentage',
   'uls.xi': i => getPath(i, 'uls.combination') === '6.10a/b',
   'uls.deltaSigmaUnbonded': i => getPath(i, 'tendon.bond') === 'unbonded',
+  'columns.farEndBelow': i => Number(getPath(i, 'columns.heightBelow') ?? 3500) > 0,
+  'columns.farEndAbove': i => Number(getPath(i, 'columns.heightAbove') ?? 0) > 0,
+  'columns.panelWidth': i => kind(i) === 'slab-strip',
+  'fire.slab': i => kind(i) === 'slab-strip',
+  'fire.spanRatio': i => kind(i) === 'slab-strip' && getPath(i, 'fire.slab') === 'two-way',
 }
 
 const PUNCHING_DETAIL = /^punching\.(?!column$)/
+const COLUMN_DETAIL = /^columns\.(?!where$)/
+const FIRE_DETAIL = /^fire\.(?!rating$)/
 
 export function isRelevant(path: string, inputs: unknown): boolean {
   if (PUNCHING_DETAIL.test(path)) return getPath(inputs, 'punching.column') !== 'none' && getPath(inputs, 'punching.column') !== undefined
+  if (COLUMN_DETAIL.test(path) && (getPath(inputs, 'columns.where') ?? 'none') === 'none') return false
+  if (FIRE_DETAIL.test(path) && (getPath(inputs, 'fire.rating') ?? 'none') === 'none') return false
   const rule = RULES[path]
   return rule ? rule(inputs) : true
 }
