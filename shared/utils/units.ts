@@ -30,6 +30,9 @@ export const DISPLAY_UNITS = {
   'rad/m': { factor: 1e-3, label: 'rad/m' },
   '1/MN': { factor: 1e-6, label: '1/MN' },
   days: { factor: 1, label: 'days' },
+  kg: { factor: 1, label: 'kg' },
+  'kg/m': { factor: 1, label: 'kg/m' },
+  'kg/m²': { factor: 1, label: 'kg/m²' },
   h: { factor: 1, label: 'h' },
 } as const
 

@@ -29,6 +29,8 @@ import { fireStage } from './fire'
 import type { MemberFire } from './fire'
 import { anchorageStage } from './anchorage-zone'
 import { columnMoments } from './column-moments'
+import { quantitiesStage } from './quantities'
+import type { MemberQuantities } from './quantities'
 import type { ColumnMoments } from './column-moments'
 import type { AnchorageEnd } from './anchorage-zone'
 import type { MemberSite } from './site'
@@ -92,6 +94,8 @@ export interface Design {
   fire: MemberFire | null
   /** anchorage zones at the two ends of the tendon (EN 1992-1-1 8.10.3, 6.7) */
   anchorages: AnchorageEnd[]
+  /** post-tensioning quantities for the cost plan */
+  quantities: MemberQuantities
   /** the columns at the supports: their stiffness and the moments the member passes into them, or null */
   columns: { Ecm: number; I: number; joints: ColumnMoments[] } | null
 }
@@ -113,7 +117,8 @@ export function designMember(raw: unknown, options: DesignOptions = {}): Design 
   const site = siteStage(input, section, profile, service.stations)
   const fire = fireStage(input, section)
   const anchorages = anchorageStage(input, section, profile)
-  const later = [magnel, proposal, uls, sls, fire, anchorages, site]
+  const quantities = quantitiesStage(input, section, profile)
+  const later = [magnel, proposal, uls, sls, fire, anchorages, quantities, site]
   return designRecord(service, {
     magnel: magnel.result,
     proposal: proposal.result,
@@ -123,6 +128,7 @@ export function designMember(raw: unknown, options: DesignOptions = {}): Design 
     site: site.result,
     fire: fire.result,
     anchorages: anchorages.result,
+    quantities: quantities.result,
     checks: [...service.checks, ...later.flatMap((s) => s.checks)],
     warnings: [...service.warnings, ...later.flatMap((s) => s.warnings)],
   })
@@ -146,6 +152,7 @@ interface LaterResults {
   site: MemberSite
   fire: MemberFire | null
   anchorages: AnchorageEnd[]
+  quantities: MemberQuantities
   checks: CheckResult[]
   warnings: string[]
 }
@@ -200,6 +207,7 @@ function designRecord(d: ServiceDesign, later: LaterResults): Design {
     site: later.site,
     fire: later.fire,
     anchorages: later.anchorages,
+    quantities: later.quantities,
     columns: loads.columns ? { Ecm: loads.columns.Ecm, I: loads.columns.I, joints: columnMoments(loads, profile, losses) } : null,
   }
 }

@@ -396,6 +396,13 @@ export const RESULT_SPECS: Record<string, QuantitySpec> = {
   'columns.joints[].prestressTransfer': spec('Column moment from prestress at transfer', 'kNm', 1, 'M_{c,P0}', 'EN 1992-1-1 5.10.7'),
   'columns.joints[].prestressService': spec('Column moment from prestress in service', 'kNm', 1, 'M_{c,P}', 'EN 1992-1-1 5.10.7'),
 
+  'quantities.tendonLength': spec('Length of one tendon', 'm', 2, 'L_t'),
+  'quantities.strandPerTendon': spec('Strand in one tendon', 'kg', 1, 'm_t', 'EN 1991-1-1 Table A.4: 78.5 kN/m³'),
+  'quantities.strandRate': spec('Strand per m² of floor', 'kg/m²', 2, 'm_p'),
+  'quantities.anchorages': spec('Anchorages (live and dead) in the width designed', '', 2, 'n_a'),
+  'quantities.barRate': spec('Passive bars, each layer over the whole length (upper estimate)', 'kg/m²', 1, 'm_s'),
+  'quantities.ductFill': spec('Strands across the flat duct (mm), or duct to strand area (round)', '', 1),
+
   'site.heights.spacing': spec('Station spacing', 'mm', 0, 's'),
   'site.heights.roundTo': spec('Chair heights rounded to', 'mm', 0),
   'site.heights.outside': spec('Stations where the duct leaves the section', '', 0),

@@ -63,3 +63,18 @@ describe('anchorage zones (EN 1992-1-1 8.10.3, 6.5.3, 6.7) by hand', () => {
     expect(d.warnings.some((w) => w.includes('anchor plate is larger'))).toBe(true)
   })
 })
+
+describe('quantities and the strands in their duct (common practice)', () => {
+  it('strand mass = strands · Ap · length · 7850 kg/m³ (EN 1991-1-1 Table A.4); a flat duct holds its strands side by side', () => {
+    const d = designMember(ONE_SPAN_SLAB, { proposal: false })
+    const q = d.quantities
+    // 3 strands of 12.9 mm (Ap 100 mm², prEN 10138-3) over 8 m: 3 × 100e-6 m² × 8 m × 7850 kg/m³ = 18.84 kg
+    expect(q.strandPerTendon).toBeCloseTo(3 * 100e-6 * 8 * 7850, 6)
+    // at 600 mm centres the 1 m strip holds 1000/600 tendons: 18.84 × 1.667 / 8 m² = 3.925 kg/m²
+    expect(q.strandRate).toBeCloseTo((18.84 * (1000 / 600)) / 8, 6)
+    expect(q.anchorages).toBeCloseTo(2 * (1000 / 600), 12)
+    const fit = d.checks.find((c) => c.id === 'tendon.ductFit')!
+    expect(fit.actual).toBeCloseTo(3 * 12.9, 9)
+    expect(designMember({ ...ONE_SPAN_SLAB, tendon: { ...ONE_SPAN_SLAB.tendon, strandsPerTendon: 5, ductWidth: 60 } }, { proposal: false }).checks.find((c) => c.id === 'tendon.ductFit')!.pass).toBe(false) // 64.5 mm > 60 mm
+  })
+})
