@@ -30,6 +30,8 @@ import type { MemberFire } from './fire'
 import { anchorageStage } from './anchorage-zone'
 import { columnMoments } from './column-moments'
 import { quantitiesStage } from './quantities'
+import { designLoads } from './design-loads'
+import type { DesignLoad } from './design-loads'
 import type { MemberQuantities } from './quantities'
 import type { ColumnMoments } from './column-moments'
 import type { AnchorageEnd } from './anchorage-zone'
@@ -94,6 +96,8 @@ export interface Design {
   fire: MemberFire | null
   /** anchorage zones at the two ends of the tendon (EN 1992-1-1 8.10.3, 6.7) */
   anchorages: AnchorageEnd[]
+  /** each load with its combination factors and values (EN 1990 6.4.3, 6.5.3) */
+  designLoads: DesignLoad[]
   /** post-tensioning quantities for the cost plan */
   quantities: MemberQuantities
   /** the columns at the supports: their stiffness and the moments the member passes into them, or null */
@@ -208,6 +212,7 @@ function designRecord(d: ServiceDesign, later: LaterResults): Design {
     fire: later.fire,
     anchorages: later.anchorages,
     quantities: later.quantities,
+    designLoads: designLoads(input, loads),
     columns: loads.columns ? { Ecm: loads.columns.Ecm, I: loads.columns.I, joints: columnMoments(loads, profile, losses) } : null,
   }
 }

@@ -403,6 +403,15 @@ export const RESULT_SPECS: Record<string, QuantitySpec> = {
   'quantities.barRate': spec('Passive bars, each layer over the whole length (upper estimate)', 'kg/m²', 1, 'm_s'),
   'quantities.ductFill': spec('Strands across the flat duct (mm), or duct to strand area (round)', '', 1),
 
+  'designLoads[].value': spec('Characteristic line load', 'kN/m', 2, 'g_k, q_k', 'EN 1991-1-1'),
+  'designLoads[].gammaUls': spec('Partial factor at ULS', '', 2, '\\gamma', 'EN 1990 Table A1.2(B)'),
+  'designLoads[].uls': spec('Design line load at ULS', 'kN/m', 2, '\\gamma F_k', 'EN 1990 eq. (6.10), (6.10a/b)'),
+  'designLoads[].psiFrequent': spec('ψ1 (frequent)', '', 2, '\\psi_1', 'EN 1990 Table A1.1'),
+  'designLoads[].psiQuasiPermanent': spec('ψ2 (quasi-permanent)', '', 2, '\\psi_2', 'EN 1990 Table A1.1'),
+  'designLoads[].characteristic': spec('Line load, characteristic combination', 'kN/m', 2, 'F_{k}', 'EN 1990 eq. (6.14b)'),
+  'designLoads[].frequent': spec('Line load, frequent combination', 'kN/m', 2, '\\psi_1 F_k', 'EN 1990 eq. (6.15b)'),
+  'designLoads[].quasiPermanent': spec('Line load, quasi-permanent combination', 'kN/m', 2, '\\psi_2 F_k', 'EN 1990 eq. (6.16b)'),
+
   'site.heights.spacing': spec('Station spacing', 'mm', 0, 's'),
   'site.heights.roundTo': spec('Chair heights rounded to', 'mm', 0),
   'site.heights.outside': spec('Stations where the duct leaves the section', '', 0),
