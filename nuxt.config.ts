@@ -37,6 +37,8 @@ export default defineNuxtConfig({
       user: 'tendonbook',
       password: '',
       name: 'tendonbook',
+      // "host:port,host:port…" (NUXT_DATABASE_HOSTS): several servers, e.g. Galera nodes, preferred first
+      hosts: '',
     },
     mail: {
       host: '127.0.0.1',
@@ -49,9 +51,13 @@ export default defineNuxtConfig({
     // driver 'fs' (base folder) locally; 's3' in production with the settings below (NUXT_STORAGE_*)
     storage: { driver: 'fs', base: '.data/files', endpoint: '', bucket: '', region: '', accessKeyId: '', secretAccessKey: '' },
     chromiumPath: '/usr/bin/chromium',
+    // the Ed25519 key that signs the history log's tree heads, outside the database (NUXT_LOG_SIGNING_KEY_PATH)
+    log: { signingKeyPath: '' },
     mailboxDir: '',
     public: {
       devMailbox: false,
+      // how dates read on screen (NUXT_PUBLIC_OFFICE_LOCALE); records keep ISO 8601
+      officeLocale: 'en-GB',
     },
   },
   nitro: {

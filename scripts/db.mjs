@@ -8,7 +8,7 @@
 // so tests never touch the demo data. Both are settings (see `settings` below), so several
 // instances and test runs can live on one machine side by side.
 import { spawn, spawnSync, execFileSync } from 'node:child_process'
-import { randomBytes } from 'node:crypto'
+import { generateKeyPairSync, randomBytes } from 'node:crypto'
 import { existsSync, mkdirSync, readFileSync, writeFileSync, openSync } from 'node:fs'
 import { dirname, join, resolve } from 'node:path'
 import { fileURLToPath } from 'node:url'
@@ -16,7 +16,7 @@ import { fileURLToPath } from 'node:url'
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '..')
 
 /** Tables whose rows may never change once written: the app user gets SELECT and INSERT only. */
-export const APPEND_ONLY_TABLES = ['revisions', 'reviews', 'seals', 'audit_events', 'attachments', 'templates']
+export const APPEND_ONLY_TABLES = ['revisions', 'reviews', 'seals', 'audit_events', 'attachments', 'templates', 'log_leaves', 'log_heads', 'office_details', 'comment_states']
 
 /**
  * Every port and folder of a run, from the environment with today's values as defaults:
@@ -25,16 +25,22 @@ export const APPEND_ONLY_TABLES = ['revisions', 'reviews', 'seals', 'audit_event
  * (2527, e2e +10) and TENDONBOOK_TEST_APP_PORT (3100, e2e +1) for `npm test`. PORT is the app's.
  */
 export function settings(test = false, env = process.env) {
-  const number = (name, fallback) => {
-    const raw = env[name]
-    if (raw === undefined || raw === '') return fallback
-    const value = Number(raw)
-    if (!Number.isInteger(value) || value < 1 || value > 65535) throw new Error(`${name} must be a port number from 1 to 65535, not "${raw}"`)
-    return value
-  }
+  const number = (name, fallback) => envPorts(env, name, [fallback])[0]
   return test
     ? { base: resolve(root, env.TENDONBOOK_TEST_DATA_DIR || '.data-test'), dbPort: number('TENDONBOOK_TEST_DB_PORT', 3407), mailPort: number('TENDONBOOK_TEST_MAIL_PORT', 2527), appPort: number('TENDONBOOK_TEST_APP_PORT', 3100) }
     : { base: resolve(root, env.TENDONBOOK_DATA_DIR || '.data'), dbPort: number('TENDONBOOK_DB_PORT', 3406), mailPort: number('TENDONBOOK_MAIL_PORT', 2526), appPort: number('PORT', 3000) }
+}
+
+/** Ports from a variable holding one port or a comma-separated list (the fallback when unset). */
+export function envPorts(env, name, fallback) {
+  const raw = env[name]
+  if (raw === undefined || raw === '') return fallback
+  const values = String(raw).split(',').map(part => Number(part.trim()))
+  if (values.length !== fallback.length || values.some(v => !Number.isInteger(v) || v < 1 || v > 65535)) {
+    const what = fallback.length === 1 ? 'a port number' : `${fallback.length} comma-separated port numbers`
+    throw new Error(`${name} must be ${what} from 1 to 65535, not "${raw}"`)
+  }
+  return values
 }
 
 export function instance(test = false) {
@@ -63,7 +69,7 @@ function onPath(command) {
   return spawnSync('sh', ['-c', `command -v ${command}`], { stdio: 'ignore' }).status === 0
 }
 
-function findMariadbd() {
+export function findMariadbd() {
   for (const candidate of ['/usr/sbin/mariadbd', '/usr/bin/mariadbd']) if (existsSync(candidate)) return candidate
   return onPath('mariadbd') ? 'mariadbd' : null
 }
@@ -101,15 +107,34 @@ export function secrets(inst) {
   return value
 }
 
-function admin(inst, args, options = {}) {
+/**
+ * The Ed25519 key that signs the history log's tree heads: made once beside the data, mode 0600,
+ * never in the database (whoever can write the database must not be able to sign) nor committed.
+ */
+export function logSigningKeyPath(inst) {
+  const file = join(inst.base, 'log-signing-key.pem')
+  if (existsSync(file)) return file
+  mkdirSync(inst.base, { recursive: true })
+  const { privateKey } = generateKeyPairSync('ed25519')
+  try {
+    writeFileSync(file, privateKey.export({ type: 'pkcs8', format: 'pem' }), { mode: 0o600, flag: 'wx' })
+  }
+  catch (error) {
+    // another process made it first: theirs is the key
+    if (error.code !== 'EEXIST') throw error
+  }
+  return file
+}
+
+export function admin(inst, args, options = {}) {
   return spawnSync('mariadb-admin', ['--no-defaults', `--socket=${inst.socket}`, '-uroot', ...args], { encoding: 'utf8', ...options })
 }
 
-function alive(inst) {
+export function alive(inst) {
   return existsSync(inst.socket) && admin(inst, ['--connect-timeout=2', 'ping']).status === 0
 }
 
-async function waitUntilAlive(inst, seconds) {
+export async function waitUntilAlive(inst, seconds) {
   const until = Date.now() + seconds * 1000
   while (Date.now() < until) {
     if (alive(inst)) return true
@@ -118,7 +143,7 @@ async function waitUntilAlive(inst, seconds) {
   return false
 }
 
-function initialise(inst) {
+export function initialise(inst) {
   if (existsSync(join(inst.dataDir, 'mysql'))) return
   log(`initialising a private data directory in ${inst.dataDir}`)
   mkdirSync(inst.dataDir, { recursive: true })
@@ -129,20 +154,23 @@ function initialise(inst) {
   if (result.status !== 0) throw new Error(`mariadb-install-db failed:\n${result.stdout}\n${result.stderr}`)
 }
 
-async function startServer(inst) {
+/** Starts mariadbd for `inst`; `extra` arguments come last and so win (e.g. Galera's settings). */
+export async function startServer(inst, extra = []) {
   if (alive(inst)) {
     log(`MariaDB (${inst.name}) already running on 127.0.0.1:${inst.port}`)
     return
   }
   mkdirSync(inst.runDir, { recursive: true })
   const out = openSync(inst.logFile, 'a')
+  // mariadbd keeps the first --user it is given: a caller's own (in `extra`) replaces root here
+  const user = extra.find(arg => arg.startsWith('--user=')) ?? '--user=root'
   const child = spawn(findMariadbd(), [
-    '--no-defaults', `--datadir=${inst.dataDir}`, '--user=root',
+    '--no-defaults', `--datadir=${inst.dataDir}`, user,
     '--bind-address=127.0.0.1', `--port=${inst.port}`, `--socket=${inst.socket}`,
     `--pid-file=${inst.pidFile}`, `--log-error=${inst.logFile}`, '--skip-name-resolve',
     '--character-set-server=utf8mb4', '--collation-server=utf8mb4_unicode_ci',
     '--log-bin-trust-function-creators=1', '--secure-timestamp=YES',
-    '--innodb-buffer-pool-size=128M', '--max-connections=200',
+    '--innodb-buffer-pool-size=128M', '--max-connections=200', ...extra.filter(arg => arg !== user),
   ], { detached: true, stdio: ['ignore', out, out] })
   child.unref()
   if (!(await waitUntilAlive(inst, 60))) {
@@ -151,12 +179,12 @@ async function startServer(inst) {
   log(`MariaDB (${inst.name}) started on 127.0.0.1:${inst.port}`)
 }
 
-async function rootConnection(inst, database) {
+export async function rootConnection(inst, database) {
   const mysql = await import('mysql2/promise')
   return mysql.createConnection({ socketPath: inst.socket, user: 'root', database, multipleStatements: false })
 }
 
-async function createDatabaseAndUser(inst, password) {
+export async function createDatabaseAndUser(inst, password) {
   const conn = await rootConnection(inst)
   try {
     await conn.query(`CREATE DATABASE IF NOT EXISTS \`${inst.database}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`)
@@ -170,12 +198,26 @@ async function createDatabaseAndUser(inst, password) {
   }
 }
 
-async function migrate(inst) {
+/**
+ * Runs the migrations under the named lock `tendonbook-migrate`, so two starters on one server run
+ * them one after the other (the second finds nothing left to do). GET_LOCK is local to one server:
+ * on a Galera cluster it is not replicated, so migrations must only ever be run against one node
+ * (scripts/cluster.mjs runs them against node 1, before any app instance starts); the DDL itself
+ * replicates to the other nodes in total order.
+ */
+export async function migrate(inst) {
   const { drizzle } = await import('drizzle-orm/mysql2')
   const { migrate: runMigrations } = await import('drizzle-orm/mysql2/migrator')
   const conn = await rootConnection(inst, inst.database)
   try {
-    await runMigrations(drizzle(conn), { migrationsFolder: join(root, 'drizzle') })
+    const [[{ locked }]] = await conn.query("SELECT GET_LOCK('tendonbook-migrate', 120) AS locked")
+    if (locked !== 1) throw new Error('another migration has held the lock tendonbook-migrate for two minutes')
+    try {
+      await runMigrations(drizzle(conn), { migrationsFolder: join(root, 'drizzle') })
+    }
+    finally {
+      await conn.query("SELECT RELEASE_LOCK('tendonbook-migrate')")
+    }
   }
   finally {
     await conn.end()
@@ -186,7 +228,7 @@ async function migrate(inst) {
  * Table-level grants: full DML on working tables, SELECT + INSERT only on append-only ones, so
  * the application cannot rewrite history even if its own code tried to.
  */
-async function grant(inst) {
+export async function grant(inst) {
   const conn = await rootConnection(inst, inst.database)
   try {
     const [rows] = await conn.query('SELECT table_name AS name FROM information_schema.tables WHERE table_schema = ?', [inst.database])
@@ -241,6 +283,7 @@ export function serverEnv(inst) {
     NUXT_DATABASE_NAME: inst.database,
     NUXT_SESSION_PASSWORD: sessionPassword,
     NUXT_STORAGE_BASE: join(inst.base, 'files'),
+    NUXT_LOG_SIGNING_KEY_PATH: logSigningKeyPath(inst),
   }
 }
 

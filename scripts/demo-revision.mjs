@@ -22,7 +22,13 @@ export async function issueDemoRevision(base) {
   if (!sheet) return
   const revisions = await call('GET', `/api/sheets/${sheet.id}/revisions`)
   if (!Array.isArray(revisions.body) || revisions.body.length > 0) return
-  const issued = await call('POST', `/api/sheets/${sheet.id}/revisions`, { note: 'First issue for check: spans, loads and tendon layout as agreed with the architect.' })
+  const draft = await call('GET', `/api/sheets/${sheet.id}`)
+  const body = { note: 'First issue for check: spans, loads and tendon layout as agreed with the architect.', draftVersion: draft.body?.draftVersion }
+  let issued = await call('POST', `/api/sheets/${sheet.id}/revisions`, body)
+  // a demo sheet with failing checks is issued the way an engineer would: with the reason given
+  if (issued.status === 400 && issued.body?.data?.fields?.failingChecksReason) {
+    issued = await call('POST', `/api/sheets/${sheet.id}/revisions`, { ...body, failingChecksReason: 'Preliminary issue for the layout meeting: the failing checks are to be resolved in P02.' })
+  }
   if (issued.status < 300) process.stdout.write(`[demo] PS-2 ${issued.body.code} issued for check by the demo engineer\n`)
   await call('POST', '/api/auth/signout')
 }

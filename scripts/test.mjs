@@ -3,7 +3,7 @@
 // build, then every vitest project (unit, integration against the real database and server,
 // end-to-end in the real Chromium); stops the database and ends with the runner's summary line.
 import { spawnSync } from 'node:child_process'
-import { rmSync } from 'node:fs'
+import { existsSync, readdirSync, rmSync } from 'node:fs'
 import { dirname, join, resolve } from 'node:path'
 import { fileURLToPath } from 'node:url'
 import { instance, serverEnv, start, stop } from './db.mjs'
@@ -19,7 +19,11 @@ async function main() {
   await stop({ test: true }).catch(() => {})
   rmSync(join(fresh.base, 'mariadb'), { recursive: true, force: true })
   rmSync(join(fresh.base, 'files'), { recursive: true, force: true })
-  rmSync(join(fresh.base, 'mailbox'), { recursive: true, force: true })
+  // every mailbox of the run (the demo's, and one per test project: mailbox-integration, mailbox-e2e):
+  // a message left from an earlier run would name revision ids that this run gives out again
+  if (existsSync(fresh.base)) {
+    for (const entry of readdirSync(fresh.base)) if (/^mailbox(-|$)/.test(entry)) rmSync(join(fresh.base, entry), { recursive: true, force: true })
+  }
   const inst = await start({ test: true })
   let code = 1
   try {

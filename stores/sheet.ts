@@ -1,9 +1,10 @@
 import { defineStore } from 'pinia'
-import { memberInputSchema } from '~/shared/engine/input/schema'
-import { inputFieldSpecs } from '~/shared/engine/input/field-specs'
+import { inputFieldSpecs, memberInputSchema } from '~/shared/engine/index'
 import { fieldErrors, type FieldErrors } from '~/shared/utils/validation'
 import { clonePlain, getPath, mergePatch, setPath } from '~/shared/utils/paths'
 import { runSheet, renderSheet, compileSheet, type SheetRun } from '~/shared/sheet/runtime'
+import { describeInputError, inputLabel, optionLabel } from '~/shared/sheet/labels'
+import { resizeSpanLists, spanCount } from '~/shared/sheet/spans'
 
 export interface SheetPayload {
   id: number
@@ -21,6 +22,9 @@ export interface SheetPayload {
 }
 
 export type SaveState = 'saved' | 'pending' | 'saving' | 'invalid' | 'conflict' | 'error'
+
+/** The first input that keeps the design from running, in people's words. */
+export interface Blocker { path: string, label: string, message: string }
 
 interface UndoEntry { label: string, inputs: Record<string, unknown>, path?: string, at: number }
 
@@ -78,18 +82,63 @@ export const useSheetStore = defineStore('sheet', () => {
     return out
   })
 
-  const report = computed(() => {
-    const c = compiled.value
-    if (!c || !c.ok || !run.value || !run.value.ok) return null
-    return renderSheet(c.template, validation.value.ok ? validation.value.value : inputs.value, run.value.design, 'edit')
+  const blocker = computed<Blocker | null>(() => {
+    const [path, message] = Object.entries(errors.value)[0] ?? []
+    if (!path) return null
+    // an engine failure that names no input (a bug, not a typing slip) is said as it is
+    if (path === '(engine)') return { path, label: 'The design engine', message: `The design engine stopped: ${message}` }
+    return { path, label: inputLabel(path), message: describeInputError(path, message!) }
   })
 
-  const checks = computed(() => (run.value?.ok ? run.value.design.checks : []))
+  // The last inputs that ran: while a field is invalid the report stays on screen, marked stale.
+  const lastGood = shallowRef<{ inputs: unknown, run: Extract<SheetRun, { ok: true }> } | null>(null)
+  watch(run, (r) => {
+    if (r?.ok && validation.value.ok) lastGood.value = { inputs: validation.value.value, run: r }
+  }, { immediate: true })
+  const stale = computed(() => !(run.value?.ok) && lastGood.value !== null)
+  const shownRun = computed(() => (run.value?.ok ? run.value : lastGood.value?.run ?? null))
+
+  const report = computed(() => {
+    const c = compiled.value
+    const r = shownRun.value
+    if (!c || !c.ok || !r) return null
+    const shownInputs = run.value?.ok && validation.value.ok ? validation.value.value : lastGood.value!.inputs
+    return renderSheet(c.template, shownInputs, r.design, 'edit', { optionLabel })
+  })
+
+  const checks = computed(() => shownRun.value?.design.checks ?? [])
+
+  // Replies to the checker's comments on a returned revision, keyed "reviewId:index"; they go with
+  // the next issue. Kept in the browser per revision, so a reload does not lose what is written.
+  const replies = ref<Record<string, string>>({})
+  const repliesTo = ref<number | null>(null)
+  const replyStoreKey = (revisionId: number) => `tendonbook-replies-${revisionId}`
+  function answerRevision(revisionId: number | null) {
+    if (repliesTo.value === revisionId) return
+    repliesTo.value = revisionId
+    replies.value = revisionId === null ? {} : JSON.parse(localStorage.getItem(replyStoreKey(revisionId)) ?? '{}')
+  }
+  function setReply(reviewId: number, index: number, text: string) {
+    replies.value = { ...replies.value, [`${reviewId}:${index}`]: text }
+    if (repliesTo.value !== null) localStorage.setItem(replyStoreKey(repliesTo.value), JSON.stringify(replies.value))
+  }
+  const replyList = computed(() => Object.entries(replies.value).filter(([, text]) => text.trim()).map(([key, text]) => {
+    const [reviewId, index] = key.split(':').map(Number) as [number, number]
+    return { reviewId, index, text: text.trim() }
+  }))
+  /** The replies went with an issue: forget them. */
+  function clearReplies() {
+    if (repliesTo.value !== null) localStorage.removeItem(replyStoreKey(repliesTo.value))
+    replies.value = {}
+    repliesTo.value = null
+  }
 
   function load(payload: SheetPayload) {
     sheet.value = payload
     inputs.value = clonePlain(payload.inputs)
     fullRun.value = validation.value.ok ? { key: inputKey.value, run: runSheet(validation.value.value) } : null
+    lastGood.value = null
+    if (fullRun.value?.run.ok && validation.value.ok) lastGood.value = { inputs: validation.value.value, run: fullRun.value.run }
     draftVersion.value = payload.draftVersion
     saveState.value = 'saved'
     savedAt.value = payload.updatedAt
@@ -111,39 +160,38 @@ export const useSheetStore = defineStore('sheet', () => {
     redoStack.value = []
   }
 
+  /** Forgets the text errors of a field and of its list elements: a new value replaces that text. */
+  function clearTextErrors(path: string) {
+    typingErrors.value = Object.fromEntries(Object.entries(typingErrors.value).filter(([p]) => p !== path && !p.startsWith(`${path}.`)))
+  }
+
   function setInput(path: string, value: unknown) {
-    if (getPath(inputs.value, path) === value) return
-    const { [path]: _cleared, ...rest } = typingErrors.value
-    typingErrors.value = rest
-    remember(`Change ${path}`, path)
+    clearTextErrors(path)
+    if (JSON.stringify(value) === JSON.stringify(getPath(inputs.value, path))) return
+    remember(`Change ${inputLabel(path)}`, path)
     inputs.value = setPath(inputs.value, path, value)
     scheduleSave()
   }
 
-  function markInvalid(path: string, message: string) {
+  /** A field's own text is not a number (message), or is one again (null). */
+  function setTextError(path: string, message: string | null) {
+    if (message === null) {
+      if (!(path in typingErrors.value)) return
+      const { [path]: _cleared, ...rest } = typingErrors.value
+      typingErrors.value = rest
+      return
+    }
     typingErrors.value = { ...typingErrors.value, [path]: message }
-    saveState.value = 'invalid'
-    saveMessage.value = message
   }
 
   /** Keeps the per-span and per-support lists in step with the number of spans. */
   function resizeSpans(count: number) {
-    const current = inputs.value
-    const spans = [...((getPath(current, 'geometry.spans') as number[]) ?? [])]
-    if (count < 1 || count > 10 || count === spans.length) return
-    remember(count > spans.length ? 'Add a span' : 'Remove a span')
-    const resize = <T>(list: T[] | undefined, n: number) => {
-      if (!list) return undefined
-      const out = list.slice(0, n)
-      while (out.length < n) out.push(list[list.length - 1]!)
-      return out
-    }
-    let next = setPath(current, 'geometry.spans', resize(spans, count))
-    for (const [path, n] of [['geometry.supports', count + 1], ['profile.supportEcc', count + 1], ['profile.spanEcc', count], ['profile.lowPointAt', count]] as const) {
-      const list = getPath(next, path) as unknown[] | undefined
-      if (list) next = setPath(next, path, resize(list, n))
-    }
-    inputs.value = next
+    const current = spanCount(inputs.value)
+    if (count < 1 || count > 10 || count === current) return
+    remember(count > current ? 'Add a span' : 'Remove a span')
+    clearTextErrors('geometry')
+    clearTextErrors('profile')
+    inputs.value = resizeSpanLists(inputs.value, count)
     scheduleSave()
   }
 
@@ -193,8 +241,7 @@ export const useSheetStore = defineStore('sheet', () => {
     if (inFlight) await inFlight
     if (Object.keys(typingErrors.value).length || !validation.value.ok) {
       saveState.value = 'invalid'
-      const [field, message] = Object.entries(errors.value)[0] ?? ['', '']
-      saveMessage.value = `Not saved: ${field ? `${field} — ` : ''}${message}`
+      saveMessage.value = `Not saved: ${blocker.value?.message ?? 'fix the marked fields'}`
       return
     }
     saveState.value = 'saving'
@@ -219,6 +266,14 @@ export const useSheetStore = defineStore('sheet', () => {
     await inFlight
   }
 
+  // an error that goes away lets the waiting draft save: nothing stays "Not saved" once fixed
+  watch(blocker, (now) => {
+    if (saveState.value === 'invalid') {
+      if (now) saveMessage.value = `Not saved: ${now.message}`
+      else scheduleSave()
+    }
+  })
+
   /** Waits for any pending save (before issuing a revision, or leaving the page). */
   async function flush() {
     if (saveState.value === 'pending') {
@@ -231,8 +286,9 @@ export const useSheetStore = defineStore('sheet', () => {
   }
 
   return {
-    sheet, inputs, draftVersion, saveState, saveMessage, savedAt, specs, compiled, validation, run, errors, report,
+    sheet, inputs, draftVersion, saveState, saveMessage, savedAt, specs, compiled, validation, run, errors, blocker, stale, report,
     checks, undoStack, redoStack,
-    load, setInput, markInvalid, resizeSpans, applyPatch, replaceInputs, undo, redo, save, flush,
+    replies, replyList, answerRevision, setReply, clearReplies,
+    load, setInput, setTextError, resizeSpans, applyPatch, replaceInputs, undo, redo, save, flush,
   }
 })

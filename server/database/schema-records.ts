@@ -5,6 +5,7 @@ import { sql } from 'drizzle-orm'
 import {
   bigint, char, datetime, index, int, json, longtext, mediumtext, mysqlEnum, mysqlTable, text, uniqueIndex, varchar,
 } from 'drizzle-orm/mysql-core'
+import { LOG_KINDS } from '../../shared/log/entry'
 import { sheets, templates, users } from './schema'
 
 const ms = (name: string) => datetime(name, { mode: 'date', fsp: 3 })
@@ -21,6 +22,11 @@ export const revisions = mysqlTable('revisions', {
   seq: int('seq').notNull(),
   code: varchar('code', { length: 8 }).notNull(),
   note: varchar('note', { length: 500 }).notNull().default(''),
+  // why the author issued although checks fail (required then); frozen with the run
+  failingChecksReason: varchar('failing_checks_reason', { length: 2000 }).notNull().default(''),
+  // the author's replies to the checker's comments on the revision before, as FrozenReply of
+  // shared/schemas/review.ts: [{ reviewId, index, text, anchor, commentText }]; null when none
+  replies: json('replies'),
   inputs: json('inputs').notNull(),
   results: json('results').notNull(),
   templateId: int('template_id').notNull().references(() => templates.id, { onDelete: 'restrict' }),
@@ -44,6 +50,21 @@ export const revisions = mysqlTable('revisions', {
   index('revisions_issued_idx').on(t.issuedAt),
 ])
 
+/**
+ * The office's details for the title block of printed revisions, one row per version (the newest is
+ * in force). The logo is a stored file, typed by its content, with its SHA-256.
+ */
+export const officeDetails = mysqlTable('office_details', {
+  id: int('id').autoincrement().primaryKey(),
+  name: varchar('name', { length: 160 }).notNull(),
+  logoStorageKey: varchar('logo_storage_key', { length: 200 }),
+  logoMime: varchar('logo_mime', { length: 40 }),
+  logoBytes: int('logo_bytes'),
+  logoSha256: sha256('logo_sha256'),
+  createdBy: int('created_by').notNull().references(() => users.id, { onDelete: 'restrict' }),
+  createdAt: ms('created_at').notNull(),
+})
+
 export const REVIEW_DECISIONS = ['comment', 'return', 'approve'] as const
 export type ReviewDecision = (typeof REVIEW_DECISIONS)[number]
 
@@ -61,11 +82,28 @@ export const reviews = mysqlTable('reviews', {
   comments: json('comments').notNull(),
   reviewerId: int('reviewer_id').notNull().references(() => users.id, { onDelete: 'restrict' }),
   createdAt: ms('created_at').notNull(),
+  // an approval freezes the office details in force (title block name and logo), so a re-print matches
+  officeVersion: int('office_version').references(() => officeDetails.id, { onDelete: 'restrict' }),
   contentHash: sha256('content_hash').notNull(),
 }, t => [
   uniqueIndex('reviews_sheet_contract_code_unique').on(t.sheetId, t.contractCode),
   index('reviews_revision_idx').on(t.revisionId),
 ])
+
+export const COMMENT_STATES = ['open', 'closed'] as const
+
+/**
+ * A checker closes a comment (or opens it again): each change of state is a new row, the newest
+ * row of a comment is its state. A comment is (review, position in that review's comments).
+ */
+export const commentStates = mysqlTable('comment_states', {
+  id: int('id').autoincrement().primaryKey(),
+  reviewId: int('review_id').notNull().references(() => reviews.id, { onDelete: 'restrict' }),
+  commentIndex: int('comment_index').notNull(),
+  state: mysqlEnum('state', COMMENT_STATES).notNull(),
+  actorId: int('actor_id').notNull().references(() => users.id, { onDelete: 'restrict' }),
+  createdAt: ms('created_at').notNull(),
+}, t => [index('comment_states_comment_idx').on(t.reviewId, t.commentIndex, t.id)])
 
 /** The sealed PDF of an approved revision: one per revision. */
 export const seals = mysqlTable('seals', {
@@ -79,6 +117,11 @@ export const seals = mysqlTable('seals', {
   pages: int('pages').notNull(),
   sealedBy: int('sealed_by').notNull().references(() => users.id, { onDelete: 'restrict' }),
   sealedAt: ms('sealed_at').notNull(),
+  // printed on the PDF: the revision's leaf in the history log and the signed head it was sealed
+  // under (null on seals made before the log existed)
+  logLeafIndex: bigint('log_leaf_index', { mode: 'number' }),
+  headTreeSize: bigint('head_tree_size', { mode: 'number' }),
+  headRootHash: sha256('head_root_hash'),
 }, t => [
   uniqueIndex('seals_revision_unique').on(t.revisionId),
   uniqueIndex('seals_archive_ref_unique').on(t.archiveRef),
@@ -130,6 +173,36 @@ export const chainHeads = mysqlTable('chain_heads', {
   hash: sha256('hash'),
 })
 
+/**
+ * The history log (design.md §7 "History as one log"): every history row is one leaf, appended in
+ * the transaction that writes the row. `leaf_index` runs 0, 1, 2… without a gap because appends
+ * hold the `log` row of chain_heads FOR UPDATE; `batch` is the first leaf index of that
+ * transaction, so a decision and its audit event can be shown to have been written together.
+ */
+export const logLeaves = mysqlTable('log_leaves', {
+  leafIndex: bigint('leaf_index', { mode: 'number' }).primaryKey(),
+  kind: mysqlEnum('kind', LOG_KINDS).notNull(),
+  rowId: bigint('row_id', { mode: 'number' }).notNull(),
+  batch: bigint('batch', { mode: 'number' }).notNull(),
+  leafHash: sha256('leaf_hash').notNull(),
+  createdAt: ms('created_at').notNull(),
+  // the row form (shared/log/row-form.ts) the leaf's entry was written in; part of the entry too
+  form: int('form').notNull().default(1),
+}, t => [
+  uniqueIndex('log_leaves_kind_row_unique').on(t.kind, t.rowId),
+  index('log_leaves_batch_idx').on(t.batch),
+])
+
+/** Every tree head the server has signed and published: (size, root, time), Ed25519-signed. */
+export const logHeads = mysqlTable('log_heads', {
+  id: int('id').autoincrement().primaryKey(),
+  treeSize: bigint('tree_size', { mode: 'number' }).notNull(),
+  rootHash: sha256('root_hash').notNull(),
+  signedAt: ms('signed_at').notNull(),
+  signature: varchar('signature', { length: 100 }).notNull(),
+  keyId: sha256('key_id').notNull(),
+}, t => [uniqueIndex('log_heads_tree_size_unique').on(t.treeSize)])
+
 export const OUTBOX_STATES = ['pending', 'sent', 'failed'] as const
 
 /** Mail to send, written in the same transaction as the act it tells about. */
@@ -153,3 +226,7 @@ export type Seal = typeof seals.$inferSelect
 export type Attachment = typeof attachments.$inferSelect
 export type AuditEvent = typeof auditEvents.$inferSelect
 export type OutboxMessage = typeof outbox.$inferSelect
+export type LogLeaf = typeof logLeaves.$inferSelect
+export type LogHead = typeof logHeads.$inferSelect
+export type OfficeDetails = typeof officeDetails.$inferSelect
+export type CommentState = typeof commentStates.$inferSelect

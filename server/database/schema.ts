@@ -68,14 +68,40 @@ export const sheets = mysqlTable('sheets', {
   index('sheets_project_idx').on(t.projectId),
 ])
 
-/** Sign-in attempts, for the per-account and per-address rate limit. */
-export const signinAttempts = mysqlTable('signin_attempts', {
-  id: bigint('id', { mode: 'number' }).autoincrement().primaryKey(),
-  email: varchar('email', { length: 254 }).notNull(),
-  address: varchar('address', { length: 64 }).notNull(),
-  success: boolean('success').notNull(),
+/**
+ * Sign-in attempt counters of rate-limiter-flexible's MySQL store (server/utils/signin-limit.ts),
+ * in the exact shape it expects: `account:<e-mail>|<address>` and `address:<address>` keys, points
+ * used, expiry in ms since the epoch.
+ */
+export const signinLimits = mysqlTable('signin_limits', {
+  key: varchar('key', { length: 255 }).primaryKey(),
+  points: int('points').notNull().default(0),
+  expire: bigint('expire', { mode: 'number', unsigned: true }),
+})
+
+/** One row per sign-in: the sealed cookie names it, and signing out ends it on the server. */
+export const userSessions = mysqlTable('user_sessions', {
+  id: varchar('id', { length: 64 }).primaryKey(),
+  userId: int('user_id').notNull().references(() => users.id, { onDelete: 'restrict' }),
   createdAt: createdAt(),
-}, t => [index('signin_attempts_email_idx').on(t.email, t.createdAt), index('signin_attempts_address_idx').on(t.address, t.createdAt)])
+  endedAt: datetime('ended_at', { mode: 'date', fsp: 3 }),
+}, t => [index('user_sessions_user_idx').on(t.userId)])
+
+/**
+ * The first result of a state-changing request sent with an `Idempotency-Key` header, per user:
+ * a retry with the same key gets this result back instead of acting twice. `status_code` is null
+ * while the first request is still running.
+ */
+export const idempotencyKeys = mysqlTable('idempotency_keys', {
+  id: int('id').autoincrement().primaryKey(),
+  userId: int('user_id').notNull().references(() => users.id, { onDelete: 'restrict' }),
+  idempotencyKey: varchar('idempotency_key', { length: 100 }).notNull(),
+  route: varchar('route', { length: 200 }).notNull(),
+  requestHash: varchar('request_hash', { length: 64 }).notNull(),
+  statusCode: int('status_code'),
+  response: json('response'),
+  createdAt: createdAt(),
+}, t => [uniqueIndex('idempotency_keys_user_key_unique').on(t.userId, t.idempotencyKey)])
 
 export type User = typeof users.$inferSelect
 export type Project = typeof projects.$inferSelect

@@ -1,8 +1,7 @@
-import { eq } from 'drizzle-orm'
-
 /**
- * Sealed cookies cannot be revoked by themselves: compare the cookie's session version with the
- * user's row on every request, so disabling a user or changing a role takes effect at once.
+ * Sealed cookies cannot be revoked by themselves: every request checks that the session the cookie
+ * names is still open on the server (signing out closes it) and that its session version is the
+ * user's (disabling a user, a role change or "sign out everywhere" bumps it), so each takes effect at once.
  * Also refuses cross-site state changes (a mutating request whose Origin is another site).
  */
 export default defineEventHandler(async (event) => {
@@ -20,13 +19,13 @@ export default defineEventHandler(async (event) => {
 
   const session = await getUserSession(event)
   if (!session.user) return
-  const [row] = await useDb().select().from(tables.users).where(eq(tables.users.id, session.user.id)).limit(1)
-  if (!row || row.disabled || row.sessionVersion !== session.sv) {
+  const { user, disabled } = await sessionHolder(session.user.id, session.sv, session.secure?.sid)
+  if (!user) {
     await clearUserSession(event)
-    if (path.startsWith('/api/auth/signin')) return
-    throw createError({ statusCode: 401, message: row?.disabled ? 'Your account is disabled' : 'Your session has ended: sign in again' })
+    if (path.startsWith('/api/auth/signin') || path.startsWith('/api/auth/signout')) return
+    throw createError({ statusCode: 401, message: disabled ? 'Your account is disabled' : 'Your session has ended: sign in again' })
   }
-  event.context.currentUser = { id: row.id, email: row.email, name: row.name, role: row.role }
+  event.context.currentUser = { id: user.id, email: user.email, name: user.name, role: user.role }
 })
 
 declare module 'h3' {

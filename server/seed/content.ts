@@ -4,6 +4,7 @@ import { fileURLToPath } from 'node:url'
 import { and, desc, eq } from 'drizzle-orm'
 import type { MySql2Database } from 'drizzle-orm/mysql2'
 import * as schema from '../database/schema'
+import { appendToLog } from '../database/history-log'
 import { compileSheet, starterInputsFor } from '../../shared/sheet/runtime'
 
 export interface SeedOwners {
@@ -40,10 +41,14 @@ export async function syncBuiltinTemplates(db: Db, adminId: number) {
       ids[slug] = latest.id
       continue
     }
-    const [row] = await db.insert(schema.templates).values({
-      slug, version: (latest?.version ?? 0) + 1, title: compiled.meta.title, model: compiled.meta.model, body, builtin: true, publishedBy: adminId,
-    }).$returningId()
-    ids[slug] = row!.id
+    // a template version is history: it joins the log in the transaction that writes it
+    ids[slug] = await db.transaction(async (tx) => {
+      const [row] = await tx.insert(schema.templates).values({
+        slug, version: (latest?.version ?? 0) + 1, title: compiled.meta.title, model: compiled.meta.model, body, builtin: true, publishedBy: adminId,
+      }).$returningId()
+      await appendToLog(tx, [{ kind: 'template', id: row!.id }])
+      return row!.id
+    })
   }
   return ids
 }

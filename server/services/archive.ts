@@ -57,6 +57,7 @@ export async function archiveRegister(q: ArchiveQuery) {
   return rows
 }
 
+/** The register as CSV; a cell starting with = + - @ (tab, CR) is quoted with ' so no spreadsheet runs it as a formula. */
 export function registerCsv(rows: Awaited<ReturnType<typeof archiveRegister>>) {
   return Papa.unparse(rows.map(x => ({
     'Archive ref.': x.archiveRef,
@@ -74,7 +75,7 @@ export function registerCsv(rows: Awaited<ReturnType<typeof archiveRegister>>) {
     'Pages': x.pages,
     'PDF SHA-256': x.pdfSha256,
     'Content SHA-256': x.contentHash,
-  })), { newline: '\r\n' })
+  })), { newline: '\r\n', escapeFormulae: true })
 }
 
 /** Approved revisions that still wait for their seal (and are not superseded). */
@@ -110,6 +111,12 @@ export type VerifyResult = {
   sha256?: string
   query?: string
   document: Awaited<ReturnType<typeof sealMatch>>
+  /** the seal's inclusion proof in the latest signed head of the history log */
+  inclusion: Awaited<ReturnType<typeof sealInclusion>>
+}
+
+async function inclusionOf(doc: Awaited<ReturnType<typeof sealMatch>>) {
+  return doc ? sealInclusion(doc.sealId, await publishHead()) : null
 }
 
 function describe(doc: NonNullable<Awaited<ReturnType<typeof sealMatch>>>) {
@@ -124,8 +131,8 @@ export async function verifyUpload(event: H3Event, bytes: Uint8Array, user: Sess
   const sha256 = sha256Hex(bytes)
   const doc = await sealMatch(eq(s.pdfSha256, sha256))
   const result: VerifyResult = doc
-    ? { match: true, message: describe(doc), sha256, document: doc }
-    : { match: false, message: 'Not a sealed document: no sealed PDF has this SHA-256 (a single changed byte gives a different hash)', sha256, document: null }
+    ? { match: true, message: describe(doc), sha256, document: doc, inclusion: await inclusionOf(doc) }
+    : { match: false, message: 'Not a sealed document: no sealed PDF has this SHA-256 (a single changed byte gives a different hash)', sha256, document: null, inclusion: null }
   await recordAudit(event, { action: 'verify.file', subject: sha256, actorId: user.id, detail: { match: result.match, archiveRef: doc?.archiveRef ?? null } })
   return result
 }
@@ -150,7 +157,9 @@ export async function verifyText(event: H3Event, text: string, user: SessionUser
     doc = await sealMatch(eq(s.archiveRef, text.trim()))
     if (!doc) message = 'Not found: paste a SHA-256 (64 hex digits), a verification reference (TB-XXXX-XXXX-XXXX) or an archive reference'
   }
-  const result: VerifyResult = doc ? { match: true, message: describe(doc), query: text, document: doc } : { match: false, message, query: text, document: null }
+  const result: VerifyResult = doc
+    ? { match: true, message: describe(doc), query: text, document: doc, inclusion: await inclusionOf(doc) }
+    : { match: false, message, query: text, document: null, inclusion: null }
   await recordAudit(event, { action: 'verify.reference', subject: text.slice(0, 200), actorId: user.id, detail: { match: result.match, archiveRef: doc?.archiveRef ?? null } })
   return result
 }

@@ -1,7 +1,6 @@
 import type { H3Event } from 'h3'
 import { desc, eq } from 'drizzle-orm'
 import { alias } from 'drizzle-orm/mysql-core'
-import { fileTypeFromBuffer } from 'file-type'
 import { sha256Hex } from '../utils/hashing'
 
 type SessionUser = { id: number, name: string, email: string, role: import('../../shared/types/roles').Role }
@@ -20,29 +19,20 @@ function safeName(name: string) {
 export async function uploadAttachment(event: H3Event, sheetId: number, user: SessionUser) {
   const [sheet] = await useDb().select({ id: tables.sheets.id, reference: tables.sheets.reference }).from(tables.sheets).where(eq(tables.sheets.id, sheetId))
   if (!sheet) throw createError({ statusCode: 404, message: `No calc sheet with id ${sheetId}` })
-  const declared = Number(getRequestHeader(event, 'content-length') ?? 0)
-  if (declared > ATTACHMENT_MAX_BYTES + 64 * 1024) throw createError({ statusCode: 413, message: `file: larger than the ${ATTACHMENT_MAX_BYTES / 1024 / 1024} MB limit`, data: { fields: { file: 'Too large' } } })
-  const parts = await readMultipartFormData(event)
-  const part = parts?.find(p => p.name === 'file' && p.filename !== undefined)
-  if (!part) throw createError({ statusCode: 400, message: 'file: choose a file to upload', data: { fields: { file: 'Choose a file' } } })
-  if (part.data.length === 0) throw createError({ statusCode: 400, message: 'file: the file is empty', data: { fields: { file: 'Empty file' } } })
-  if (part.data.length > ATTACHMENT_MAX_BYTES) throw createError({ statusCode: 413, message: `file: larger than the ${ATTACHMENT_MAX_BYTES / 1024 / 1024} MB limit`, data: { fields: { file: 'Too large' } } })
-  const detected = await fileTypeFromBuffer(part.data)
-  const extension = detected ? ACCEPTED[detected.mime] : undefined
-  if (!detected || !extension) {
-    throw createError({ statusCode: 415, message: `file: its content is ${detected ? detected.mime : 'not a recognised type'}; attach a PDF, PNG or JPEG`, data: { fields: { file: 'Only PDF, PNG or JPEG' } } })
-  }
-  const bytes = new Uint8Array(part.data)
+  const { file } = await readUpload(event, { accepted: ACCEPTED, acceptedWords: 'a PDF, PNG or JPEG', maxBytes: ATTACHMENT_MAX_BYTES })
+  // a required file: readUpload throws when there is none
+  const { bytes, extension, mime } = file!
   const sha256 = sha256Hex(bytes)
   const storageKey = generatedKey(`attachments:${sheetId}`, extension)
   await writeStored(storageKey, bytes)
-  const filename = safeName(part.filename ?? '')
-  const id = await useDb().transaction(async (tx) => {
-    const [{ id }] = await tx.insert(tables.attachments).values({ sheetId, storageKey, filename, mime: detected.mime, bytes: bytes.length, sha256, uploadedBy: user.id, createdAt: new Date() }).$returningId()
-    await recordAudit(event, { action: 'attachment.uploaded', subject: `${sheet.reference}: ${filename}`, actorId: user.id, detail: { attachmentId: id, sha256, mime: detected.mime } }, tx)
+  const filename = safeName(file!.filename)
+  const id = await historyTransaction(async (tx) => {
+    const [{ id }] = await tx.insert(tables.attachments).values({ sheetId, storageKey, filename, mime, bytes: bytes.length, sha256, uploadedBy: user.id, createdAt: new Date() }).$returningId()
+    await logWrittenRow(tx, 'attachment', id)
+    await recordAudit(event, { action: 'attachment.uploaded', subject: `${sheet.reference}: ${filename}`, actorId: user.id, detail: { attachmentId: id, sha256, mime } }, tx)
     return id
   })
-  return { id, filename, mime: detected.mime, bytes: bytes.length, sha256 }
+  return { id, filename, mime: mime, bytes: bytes.length, sha256 }
 }
 
 export async function listAttachments(sheetId: number) {

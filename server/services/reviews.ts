@@ -3,6 +3,7 @@ import { and, count, eq, isNotNull } from 'drizzle-orm'
 import type { ReviewBody } from '../utils/records-schemas'
 import { plainJson, reviewHash } from '../utils/hashing'
 import { revisionCode } from '../utils/revision-status'
+import { quotedComments } from '../utils/comment-threads'
 
 type SessionUser = { id: number, name: string, email: string, role: import('../../shared/types/roles').Role }
 
@@ -10,13 +11,13 @@ type SessionUser = { id: number, name: string, email: string, role: import('../.
  * Records a checker's decision (return with comments, approve) or a comment on a revision, with its
  * audit event and e-mail notices, in one transaction. The sheet is locked so a decision and a new
  * issue of the same sheet cannot cross.
- * @throws 403 when the author tries to approve, 409 when the revision is no longer open for a decision.
+ * @throws 403 when the author tries to return or approve, 409 when the revision is no longer open for a decision.
  */
 export async function reviewRevision(event: H3Event, revisionId: number, body: ReviewBody, user: SessionUser) {
   if (body.decision !== 'comment' && user.role !== 'checker' && user.role !== 'admin') {
     throw createError({ statusCode: 403, message: `Returning or approving a revision needs the checker role; you are signed in as ${user.role}` })
   }
-  await useDb().transaction(async (tx) => {
+  await historyTransaction(async (tx) => {
     const [rev] = await tx.select({ id: tables.revisions.id, sheetId: tables.revisions.sheetId, code: tables.revisions.code, authorId: tables.revisions.authorId, sections: tables.revisions.reportSections })
       .from(tables.revisions).where(eq(tables.revisions.id, revisionId))
     if (!rev) throw createError({ statusCode: 404, message: `No revision with id ${revisionId}` })
@@ -32,26 +33,30 @@ export async function reviewRevision(event: H3Event, revisionId: number, body: R
     if (body.decision !== 'comment' && status.status !== 'issued') {
       throw createError({ statusCode: 409, message: `${sheet!.reference} ${rev.code} is ${status.label.toLowerCase()}: it is no longer open for a decision` })
     }
-    if (body.decision === 'approve' && rev.authorId === user.id) {
-      throw createError({ statusCode: 403, message: `You authored ${sheet!.reference} ${rev.code}: a revision must be approved by someone other than its author` })
+    if (body.decision !== 'comment' && rev.authorId === user.id) {
+      throw createError({ statusCode: 403, message: `You authored ${sheet!.reference} ${rev.code}: a revision must be ${body.decision === 'approve' ? 'approved' : 'returned'} by someone other than its author` })
     }
     let contractCode: string | null = null
     if (body.decision === 'approve') {
       const [{ n }] = await tx.select({ n: count() }).from(tables.reviews).where(and(eq(tables.reviews.sheetId, rev.sheetId), isNotNull(tables.reviews.contractCode)))
       contractCode = revisionCode('C', n + 1)
     }
-    const fields = { revisionId: rev.id, sheetId: rev.sheetId, decision: body.decision, contractCode, comments: plainJson(body.comments), reviewerId: user.id, createdAt: new Date() }
+    // the approval freezes the office details in force, so every later print of it has the same title block
+    const officeVersion = body.decision === 'approve' ? await officeVersionInForce(tx) : null
+    const fields = { revisionId: rev.id, sheetId: rev.sheetId, decision: body.decision, contractCode, comments: plainJson(body.comments), reviewerId: user.id, createdAt: new Date(), officeVersion }
     const contentHash = reviewHash(fields)
     const [{ id }] = await tx.insert(tables.reviews).values({ ...fields, contentHash }).$returningId()
+    await logWrittenRow(tx, 'review', id, { hash: contentHash, of: reviewHash })
     const subject = `${project!.jobNumber}/${sheet!.reference} ${rev.code}`
     const action = body.decision === 'approve' ? 'revision.approved' : body.decision === 'return' ? 'revision.returned' : 'revision.commented'
     await recordAudit(event, { action, subject, actorId: user.id, detail: { revisionId: rev.id, reviewId: id, contractCode, comments: body.comments.length } }, tx)
 
     const link = `${getRequestURL(event).origin}/revisions/${rev.id}`
     const [author] = await tx.select({ email: tables.users.email }).from(tables.users).where(eq(tables.users.id, rev.authorId))
-    const commentText = body.comments.map(c => `- ${c.anchor ? `[${c.anchor}] ` : ''}${c.text}`).join('\n')
+    const sectionTitles = new Map((rev.sections as Array<{ id: string, title: string }>).map(x => [x.id, x.title]))
+    const commentText = quotedComments(body.comments, anchor => sectionTitles.get(anchor) ?? anchor)
     if (body.decision === 'return') {
-      await enqueueMail(tx, { kind: action, to: [author?.email ?? ''], subject: `[Tendonbook] ${sheet!.reference} ${rev.code} returned with comments - job ${project!.jobNumber}`, text: `${user.name} returned ${sheet!.reference} ${rev.code} "${sheet!.title}" with comments:\n\n${commentText}\n\nOpen it: ${link}\n` })
+      await enqueueMail(tx, { kind: action, to: [author?.email ?? ''], subject: `[Tendonbook] ${sheet!.reference} ${rev.code} returned with comments - job ${project!.jobNumber}`, text: `${user.name} returned ${sheet!.reference} ${rev.code} "${sheet!.title}" with ${body.comments.length === 1 ? 'this comment' : `these ${body.comments.length} comments`}:\n\n${commentText}\n\nOpen it: ${link}\n` })
     }
     if (body.decision === 'approve') {
       const text = `${user.name} approved ${sheet!.reference} ${rev.code} "${sheet!.title}" as ${contractCode}.\n${commentText ? `\n${commentText}\n` : ''}\nOpen it: ${link}\n`

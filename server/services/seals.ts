@@ -1,8 +1,10 @@
 import type { H3Event } from 'h3'
 import { eq } from 'drizzle-orm'
 import { sha256Hex, verificationRef } from '../utils/hashing'
-import { makeReproducible, PdfRenderError, printOrigin, renderPdf } from '../utils/pdf'
-import { footerTemplate, headerTemplate, isoDay, type TitleBlock } from '../utils/print-templates'
+import { makeReproducible, namedDestinationPages, PdfBusyError, PdfRenderError, printOrigin, renderPdf } from '../utils/pdf'
+import { CAUTION, footerTemplate, headerTemplate, isoDay, logStampKeywords, type LogStamp, type TitleBlock } from '../utils/print-templates'
+import { encodePages } from '../../shared/report/page-references'
+import type { OfficeStamp } from './office'
 
 type SessionUser = { id: number, name: string, email: string, role: import('../../shared/types/roles').Role }
 type Detail = Awaited<ReturnType<typeof getRevisionDetail>>
@@ -13,8 +15,10 @@ export function archiveRefOf(detail: Pick<Detail, 'project' | 'sheet' | 'status'
 }
 
 /** The title block of a printed revision: only facts fixed at approval, so a re-print gives the same bytes. */
-export function titleBlockOf(detail: Detail): TitleBlock {
+export function titleBlockOf(detail: Detail, office: OfficeStamp | null): TitleBlock {
   return {
+    office: office?.name ?? '',
+    officeLogo: office?.logoDataUrl ?? null,
     projectName: detail.project.name,
     jobNumber: detail.project.jobNumber,
     client: detail.project.client,
@@ -36,14 +40,18 @@ export function titleBlockOf(detail: Detail): TitleBlock {
 
 /**
  * One render is not proof of the document's bytes, so render until two renders agree (three at
- * most) and take the agreed bytes with the print page they came from.
+ * most) and take the agreed bytes with the print page they came from. The page numbers are settled
+ * first; the render that settled them is the first candidate. A check against sealed bytes
+ * (`accept`) that finds no match answers with the last render rather than an error.
  * @throws 502 when no two renders agree.
  */
-async function agreedRevisionPdf(event: H3Event, detail: Detail, accept?: (sha256: string) => boolean) {
+async function agreedRevisionPdf(event: H3Event, detail: Detail, stamp: LogStamp | undefined, accept?: (sha256: string) => boolean) {
+  const printer = await revisionPrinter(event, detail, stamp)
+  const { pages, raw } = await printer.settlePageNumbers()
   const seen = new Map<string, number>()
   let last: Rendered | null = null
   for (let attempt = 1; attempt <= 3; attempt++) {
-    last = await renderRevisionPdf(event, detail)
+    last = await printer.reproducible(attempt === 1 ? raw : await printer.render(pages))
     const sha = sha256Hex(last.bytes)
     if (accept?.(sha) || seen.has(sha)) return { ...last, sha256: sha, renders: attempt, agreed: true }
     seen.set(sha, attempt)
@@ -57,69 +65,146 @@ type Rendered = { bytes: Uint8Array, pages: number, html: string }
 /** Where the print page of a seal is kept beside its PDF, to explain a later render that differs. */
 const printPageKey = (pdfKey: string) => pdfKey.replace(/\.pdf$/, '.print.html')
 
-/** Renders the approved revision's print page to reproducible PDF bytes. @throws 502 saying why rendering failed. */
-async function renderRevisionPdf(event: H3Event, detail: Detail): Promise<Rendered> {
-  const block = titleBlockOf(detail)
-  const origin = printOrigin()
-  const session = useRuntimeConfig().session as { name?: string }
-  const cookieName = session.name || 'nuxt-session'
-  const value = getCookie(event, cookieName)
-  let html = ''
-  try {
-    const raw = await renderPdf({
-      onHtml: (page) => { html = page },
-      url: `${origin}/revisions/${detail.id}/print`,
-      origin,
-      cookies: value ? [{ name: cookieName, value }] : [],
-      headerTemplate: headerTemplate(block),
-      footerTemplate: footerTemplate(block),
-    })
-    const fixed = await makeReproducible(raw, {
-      title: `${block.jobNumber} ${block.sheetReference} ${block.revision} ${block.title}`,
-      subject: `${block.projectName}: ${block.title}`,
-      keywords: [block.archiveRef, block.verificationRef, detail.contentHash],
-      date: new Date(detail.approvedBy?.at ?? detail.issuedAt),
-      documentId: detail.contentHash.slice(0, 32),
-    })
-    return { ...fixed, html }
-  }
-  catch (error) {
+/** What the print page shows: the frozen report, its sections and the title block, all fixed at approval. */
+export async function printViewOf(detail: Detail) {
+  const office = await officeStamp(detail.approvedBy?.officeVersion ?? null)
+  return { id: detail.id, titleBlock: titleBlockOf(detail, office), sections: detail.sections, reportHtml: detail.reportHtml, caution: CAUTION }
+}
+
+function renderFailure(event: H3Event) {
+  return (error: unknown): never => {
+    if (error instanceof PdfBusyError) {
+      setResponseHeader(event, 'Retry-After', String(error.retryAfterSeconds))
+      throw createError({ statusCode: 503, message: `The PDF could not be rendered now: ${error.message}` })
+    }
     const reason = error instanceof PdfRenderError ? error.message : error instanceof Error ? error.message : String(error)
     throw createError({ statusCode: 502, message: `The PDF could not be rendered: ${reason}` })
   }
 }
 
 /**
+ * Prints an approved revision's print page to PDF with its title block and, once sealed or being
+ * sealed, its place in the history log. Page numbers take two passes at least: the first tells the
+ * page of every section heading, the next prints the contents and the page references with those
+ * numbers; one more if the numbers moved a heading.
+ */
+async function revisionPrinter(event: H3Event, detail: Detail, stamp: LogStamp | undefined) {
+  const { titleBlock: block } = await printViewOf(detail)
+  const origin = printOrigin()
+  const session = useRuntimeConfig().session as { name?: string }
+  const cookieName = session.name || 'nuxt-session'
+  const value = getCookie(event, cookieName)
+  const failed = renderFailure(event)
+  let html = ''
+  /** @throws 502 saying why rendering failed, 503 when this server's renders are all busy. */
+  const render = (pages: string | null) => renderPdf({
+    onHtml: (page) => { html = page },
+    url: `${origin}/revisions/${detail.id}/print${pages === null ? '' : `?pages=${pages}`}`,
+    origin,
+    cookies: value ? [{ name: cookieName, value }] : [],
+    headerTemplate: headerTemplate(block),
+    footerTemplate: footerTemplate(block, stamp),
+  }).catch(failed)
+  const pagesOf = async (raw: Uint8Array) => encodePages(detail.sections, await namedDestinationPages(raw))
+  return {
+    render,
+    async settlePageNumbers() {
+      let pages = await pagesOf(await render(null))
+      let raw = await render(pages)
+      const moved = await pagesOf(raw)
+      if (moved !== pages) {
+        pages = moved
+        raw = await render(pages)
+      }
+      return { pages, raw }
+    },
+    /** the render made reproducible, with the print page of the last render */
+    reproducible: async (raw: Uint8Array): Promise<Rendered> => ({
+      ...await makeReproducible(raw, {
+        title: `${block.jobNumber} ${block.sheetReference} ${block.revision} ${block.title}`,
+        subject: `${block.projectName}: ${block.title}`,
+        keywords: [block.archiveRef, block.verificationRef, detail.contentHash, ...(stamp ? logStampKeywords(stamp) : [])],
+        date: new Date(detail.approvedBy?.at ?? detail.issuedAt),
+        documentId: detail.contentHash.slice(0, 32),
+      }).catch(failed),
+      html,
+    }),
+  }
+}
+
+/**
+ * The revision's leaf and the latest signed head, which covers it and its approval: what the
+ * sealed PDF prints. @throws 409 when the revision is not in the history log.
+ */
+async function logStampFor(detail: Detail): Promise<LogStamp> {
+  const head = await publishHead()
+  const leafIndex = await leafIndexOf('revision', detail.id)
+  if (leafIndex === null || leafIndex >= head.treeSize) {
+    throw createError({ statusCode: 409, message: `${detail.sheet.reference} ${detail.code} is not in the history log, so it cannot be sealed; run the chain verification` })
+  }
+  return { leafIndex, treeSize: head.treeSize, rootHash: head.rootHash }
+}
+
+/** The stamp a seal was made with (none on seals made before the history log). */
+function sealedStamp(seal: NonNullable<Detail['seal']>): LogStamp | undefined {
+  return seal.logLeafIndex !== null && seal.headTreeSize !== null && seal.headRootHash !== null
+    ? { leafIndex: seal.logLeafIndex, treeSize: seal.headTreeSize, rootHash: seal.headRootHash }
+    : undefined
+}
+
+/**
+ * The answer to sealing a revision that already has its seal (sealed earlier, or a moment ago by
+ * another server): that seal, with 200 instead of 201 and a message that says so.
+ */
+function existingSeal(event: H3Event, detail: Detail & { seal: NonNullable<Detail['seal']> }) {
+  setResponseStatus(event, 200)
+  const when = new Date(detail.seal.sealedAt).toISOString().slice(0, 16).replace('T', ' ')
+  return { ...detail, alreadySealed: true, message: `${detail.seal.archiveRef} was already sealed by ${detail.seal.sealedByName} at ${when} UTC: this is that seal` }
+}
+
+/**
  * Seals an approved revision: renders it, stores the PDF under a generated key, and records its
- * SHA-256 and archive reference in a seal row with its audit event.
- * @throws 409 when the revision is not approved or already sealed.
+ * SHA-256 and archive reference in a seal row with its audit event. Idempotent per revision: a
+ * revision that already has its seal gets that seal back (see `existingSeal`), also when another
+ * server sealed it while this one was rendering.
+ * @throws 409 when the revision is not approved.
  */
 export async function sealRevision(event: H3Event, revisionId: number, user: SessionUser) {
   const detail = await getRevisionDetail(revisionId, user)
+  if (detail.seal) return existingSeal(event, { ...detail, seal: detail.seal })
   if (detail.status.status !== 'approved') {
     throw createError({ statusCode: 409, message: `${detail.sheet.reference} ${detail.code} is ${detail.status.label.toLowerCase()}: only an approved, unsealed revision can be sealed` })
   }
-  const { bytes, pages, html, sha256: pdfSha256 } = await agreedRevisionPdf(event, detail)
+  const stamp = await logStampFor(detail)
+  const { bytes, pages, html, sha256: pdfSha256 } = await agreedRevisionPdf(event, detail, stamp)
   const archiveRef = archiveRefOf(detail)
   const storageKey = generatedKey('seals', 'pdf')
   await writeStored(storageKey, bytes)
   await writeStored(printPageKey(storageKey), new TextEncoder().encode(html))
   try {
-    await useDb().transaction(async (tx) => {
-      await tx.insert(tables.seals).values({
+    await withRetry(() => historyTransaction(async (tx) => {
+      const [{ id }] = await tx.insert(tables.seals).values({
         revisionId, archiveRef, verificationRef: verificationRef(detail.contentHash), storageKey, pdfSha256,
         pdfBytes: bytes.length, pages, sealedBy: user.id, sealedAt: new Date(),
-      })
-      await recordAudit(event, { action: 'revision.sealed', subject: archiveRef, actorId: user.id, detail: { revisionId, pdfSha256, pages } }, tx)
-    })
+        logLeafIndex: stamp.leafIndex, headTreeSize: stamp.treeSize, headRootHash: stamp.rootHash,
+      }).$returningId()
+      await logWrittenRow(tx, 'seal', id)
+      await recordAudit(event, { action: 'revision.sealed', subject: archiveRef, actorId: user.id, detail: { revisionId, sealId: id, pdfSha256, pages } }, tx)
+    }), `${archiveRef} could not be sealed because the records changed a moment ago: try again`)
   }
   catch (error) {
-    if ((error as { code?: string }).code === 'ER_DUP_ENTRY' || (error as { cause?: { code?: string } }).cause?.code === 'ER_DUP_ENTRY') {
-      throw createError({ statusCode: 409, message: `${archiveRef} was sealed by someone else a moment ago` })
+    // the unique key on seals.revision_id (one server), or a certification conflict (Galera nodes)
+    const duplicate = (error as { code?: string }).code === 'ER_DUP_ENTRY' || (error as { cause?: { code?: string } }).cause?.code === 'ER_DUP_ENTRY'
+    if (duplicate || isWriteConflict(error)) {
+      const now = await getRevisionDetail(revisionId, user)
+      if (now.seal) {
+        for (const key of [storageKey, printPageKey(storageKey)]) await useStorage('records').removeItem(key).catch(() => {})
+        return existingSeal(event, { ...now, seal: now.seal })
+      }
     }
     throw error
   }
-  return getRevisionDetail(revisionId, user)
+  return { ...(await getRevisionDetail(revisionId, user)), alreadySealed: false }
 }
 
 /**
@@ -131,7 +216,7 @@ export async function resealCheck(event: H3Event, revisionId: number, user: Sess
   const detail = await getRevisionDetail(revisionId, user)
   if (!detail.seal) throw createError({ statusCode: 409, message: `${detail.sheet.reference} ${detail.code} is not sealed` })
   const sealed = detail.seal.pdfSha256
-  const { bytes, html, sha256: renderedSha256, renders } = await agreedRevisionPdf(event, detail, sha => sha === sealed)
+  const { bytes, html, sha256: renderedSha256, renders } = await agreedRevisionPdf(event, detail, sealedStamp(detail.seal), sha => sha === sealed)
   const identical = renderedSha256 === sealed
   let kept: { pdf: string, printPage: string, printPageChanged: boolean | null } | null = null
   if (!identical) {

@@ -1,15 +1,19 @@
 import { and, desc, eq, max } from 'drizzle-orm'
 import { alias } from 'drizzle-orm/mysql-core'
 import type { DraftSaveBody, SheetCreateBody } from '../../shared/schemas/sheet'
-import { fieldErrors, describeFieldErrors } from '../../shared/utils/validation'
+import { fieldErrors } from '../../shared/utils/validation'
 import { starterInputsFor } from '../../shared/sheet/runtime'
+import { describeInputErrors } from '../../shared/sheet/labels'
+import { resizeSpanLists } from '../../shared/sheet/spans'
+import { setPath } from '../../shared/utils/paths'
+import { toEngine } from '../../shared/utils/units'
 
-/** @throws 400 naming each input field at fault (paths start with `inputs.`). */
+/** @throws 400 naming each input field at fault: by label in `message`, by path (`inputs.…`) in `data.fields`. */
 export function validateInputs(model: string, inputs: unknown) {
   const result = inputSchemaFor(model).safeParse(inputs)
   if (!result.success) {
     const fields = Object.fromEntries(Object.entries(fieldErrors(result.error)).map(([k, v]) => [`inputs.${k}`, v]))
-    throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: describeFieldErrors(fields), data: { fields } })
+    throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: describeInputErrors(fields), data: { fields } })
   }
   return result.data
 }
@@ -45,7 +49,30 @@ async function latestTemplateVersion(slug: string) {
   return row?.v ?? 0
 }
 
-/** A new sheet starts from the template's starter inputs; it keeps the template version it was made with. */
+/**
+ * What a new sheet starts from: another sheet of the project (its inputs copied), or the template's
+ * starter inputs with the spans the engineer gave (metres), the per-span lists resized with them.
+ * @throws 400 naming `copyFrom` when that sheet is not in the project or binds to another model.
+ */
+async function startingInputs(projectId: number, template: { slug: string, model: string }, body: SheetCreateBody): Promise<unknown> {
+  if (body.copyFrom !== undefined) {
+    const [source] = await useDb().select({ inputs: tables.sheets.inputs, model: tables.templates.model }).from(tables.sheets)
+      .innerJoin(tables.templates, eq(tables.templates.id, tables.sheets.templateId))
+      .where(and(eq(tables.sheets.id, body.copyFrom), eq(tables.sheets.projectId, projectId))).limit(1)
+    if (!source) throw createError({ statusCode: 400, message: 'Start from: that sheet is not in this project', data: { fields: { copyFrom: 'Not a sheet of this project' } } })
+    if (source.model !== template.model) {
+      const message = 'That sheet is made for another kind of member than this template; choose a template of the same kind'
+      throw createError({ statusCode: 400, message: `Start from: ${message}`, data: { fields: { copyFrom: message } } })
+    }
+    return source.inputs
+  }
+  const starter = starterInputsFor(template.slug)
+  if (!body.spans) return starter
+  const resized = resizeSpanLists(starter as Record<string, unknown>, body.spans.length)
+  return setPath(resized, 'geometry.spans', body.spans.map(m => toEngine(m, 'm')))
+}
+
+/** A new sheet keeps the template version it was made with. */
 export async function createSheet(projectId: number, body: SheetCreateBody, userId: number) {
   const db = useDb()
   const [project] = await db.select({ id: tables.projects.id }).from(tables.projects).where(eq(tables.projects.id, projectId)).limit(1)
@@ -55,7 +82,7 @@ export async function createSheet(projectId: number, body: SheetCreateBody, user
   const [taken] = await db.select({ id: tables.sheets.id }).from(tables.sheets)
     .where(and(eq(tables.sheets.projectId, projectId), eq(tables.sheets.reference, body.reference))).limit(1)
   if (taken) throw createError({ statusCode: 409, message: `reference: ${body.reference} is already used in this project`, data: { fields: { reference: 'Already used in this project' } } })
-  const inputs = validateInputs(template.model, starterInputsFor(template.slug))
+  const inputs = validateInputs(template.model, await startingInputs(projectId, template, body))
   const [{ id }] = await db.insert(tables.sheets).values({
     projectId, reference: body.reference, title: body.title, partOfStructure: body.partOfStructure,
     templateId: template.id, inputs, createdBy: userId, updatedBy: userId,

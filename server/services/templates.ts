@@ -34,8 +34,7 @@ export async function templateVersions(slug: string) {
  */
 export async function publishTemplate(body: TemplatePublishBody, adminId: number | null, builtin = false) {
   const loaded = checkTemplate(body.body)
-  const db = useDb()
-  return db.transaction(async (tx) => {
+  return historyTransaction(async (tx) => {
     const [existing] = await tx.select({ v: tables.templates.version, builtin: tables.templates.builtin }).from(tables.templates).where(eq(tables.templates.slug, body.slug)).orderBy(desc(tables.templates.version)).limit(1)
     if (existing && existing.builtin && !builtin) {
       throw createError({ statusCode: 409, message: `slug: ${body.slug} is a built-in template; publish an office copy under another short name`, data: { fields: { slug: 'Built-in template: choose another short name' } } })
@@ -44,6 +43,7 @@ export async function publishTemplate(body: TemplatePublishBody, adminId: number
     const [{ id }] = await tx.insert(tables.templates).values({
       slug: body.slug, version, title: loaded.title, model: loaded.model, body: body.body, builtin, publishedBy: adminId,
     }).$returningId()
+    await logWrittenRow(tx, 'template', id)
     return { id, slug: body.slug, version, title: loaded.title, model: loaded.model }
   })
 }

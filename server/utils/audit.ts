@@ -1,5 +1,6 @@
 import type { H3Event } from 'h3'
 import { eq } from 'drizzle-orm'
+import { holdLog } from '../database/history-log'
 import { auditHash, plainJson } from './hashing'
 
 export interface AuditEntry {
@@ -13,17 +14,19 @@ export interface AuditEntry {
 export type Tx = Parameters<Parameters<ReturnType<typeof useDb>['transaction']>[0]>[0]
 
 /**
- * Appends one event to the hash-chained audit trail. Inside `tx` when given, so the event commits
- * or rolls back with the act it records; otherwise in a transaction of its own. The chain head row
- * is locked FOR UPDATE, so concurrent events queue up instead of forking the chain.
+ * Appends one event to the hash-chained audit trail and to the history log. Inside `tx` when given,
+ * so the event commits or rolls back with the act it records (and shares its log batch); otherwise
+ * in a transaction of its own. The chain head row is locked FOR UPDATE (after the log's), so
+ * concurrent events queue up instead of forking the chain.
  */
 export async function recordAudit(event: H3Event | null, entry: AuditEntry, tx?: Tx) {
   const address = event ? clientAddress(event) : ''
   if (tx) return appendAudit(tx, entry, address)
-  return useDb().transaction(t => appendAudit(t, entry, address))
+  return historyTransaction(t => appendAudit(t, entry, address))
 }
 
 async function appendAudit(tx: Tx, entry: AuditEntry, address: string) {
+  await holdLog(tx)
   const heads = tables.chainHeads
   const [head] = await tx.select().from(heads).where(eq(heads.name, 'audit')).for('update')
   if (!head) throw new Error('audit chain head is missing: the records migration has not run')
@@ -39,7 +42,8 @@ async function appendAudit(tx: Tx, entry: AuditEntry, address: string) {
     prevHash: head.hash,
   }
   const hash = auditHash(fields)
-  await tx.insert(tables.auditEvents).values({ ...fields, hash })
+  const [{ id }] = await tx.insert(tables.auditEvents).values({ ...fields, hash }).$returningId()
+  await logWrittenRow(tx, 'audit', id, { hash, of: auditHash })
   await tx.update(heads).set({ seq: fields.seq, hash }).where(eq(heads.name, 'audit'))
   return { seq: fields.seq, hash }
 }

@@ -1,19 +1,9 @@
 // Content hashes of the records side: SHA-256 over RFC 8785 canonical JSON (package `canonicalize`).
 // Pure functions (no Nitro auto-imports) so unit tests can check them against independent values.
-import { createHash } from 'node:crypto'
-import canonicalize from 'canonicalize'
+import { assertPlainJson, canonicalJson, sha256Hex } from '../../shared/log/canonical'
+import { laterFields } from '../../shared/log/row-form'
 
-/** RFC 8785 canonical JSON. @throws when the value holds something JSON cannot carry (NaN, a function). */
-export function canonicalJson(value: unknown): string {
-  assertPlainJson(value, '')
-  const text = canonicalize(value)
-  if (text === undefined) throw new TypeError('value has no JSON form')
-  return text
-}
-
-export function sha256Hex(data: string | Uint8Array): string {
-  return createHash('sha256').update(data).digest('hex')
-}
+export { canonicalJson, sha256Hex }
 
 export function hashCanonical(value: unknown): string {
   return sha256Hex(canonicalJson(value))
@@ -28,21 +18,15 @@ export function plainJson<T>(value: T): T {
   return JSON.parse(JSON.stringify(value)) as T
 }
 
-function assertPlainJson(value: unknown, path: string): void {
-  if (typeof value === 'number' && !Number.isFinite(value)) throw new TypeError(`${path || '(root)'}: ${value} has no JSON form`)
-  if (typeof value === 'function' || typeof value === 'symbol' || typeof value === 'bigint') throw new TypeError(`${path || '(root)'}: a ${typeof value} has no JSON form`)
-  if (Array.isArray(value)) value.forEach((v, i) => assertPlainJson(v, `${path}[${i}]`))
-  else if (value && typeof value === 'object' && !(value instanceof Date)) {
-    for (const [k, v] of Object.entries(value)) if (v !== undefined) assertPlainJson(v, path ? `${path}.${k}` : k)
-  }
-}
-
 /** The fields of a revision that its content hash covers (everything that makes it what it is). */
 export interface RevisionHashFields {
   sheetId: number
   seq: number
   code: string
   note: string
+  /** added later (shared/log/row-form.ts LATER_COLUMNS): covered unless absent, so revisions issued before it keep their hash */
+  failingChecksReason?: string | null
+  replies?: unknown
   inputs: unknown
   results: unknown
   templateId: number
@@ -66,6 +50,7 @@ export function revisionHash(r: RevisionHashFields): string {
     seq: r.seq,
     code: r.code,
     note: r.note,
+    ...laterFields('revision', { failingChecksReason: r.failingChecksReason, replies: r.replies }),
     inputs: r.inputs,
     results: r.results,
     template: { id: r.templateId, slug: r.templateSlug, version: r.templateVersion, title: r.templateTitle, model: r.model, body: r.templateBody },
@@ -85,6 +70,8 @@ export interface ReviewHashFields {
   comments: unknown
   reviewerId: number
   createdAt: Date
+  /** the office details frozen by an approval; added later (LATER_COLUMNS): absent from the hash when null, so older rows keep theirs */
+  officeVersion?: number | null
 }
 
 export function reviewHash(r: ReviewHashFields): string {
@@ -97,6 +84,7 @@ export function reviewHash(r: ReviewHashFields): string {
     comments: r.comments,
     reviewerId: r.reviewerId,
     createdAt: r.createdAt.toISOString(),
+    ...laterFields('review', { officeVersion: r.officeVersion }),
   })
 }
 

@@ -1,7 +1,9 @@
 // PDF rendering with puppeteer-core and the system Chromium: one browser for the process (relaunched
 // when it goes away), a fresh page per job, only our own origin reachable, a deadline per job.
+import { availableParallelism } from 'node:os'
 import puppeteer, { type Browser } from 'puppeteer-core'
 import { PDFArray, PDFDict, PDFDocument, PDFHexString, PDFName, PDFRef, PDFString, type PDFObject } from 'pdf-lib'
+import { PAGE_MARGIN_MM } from './print-templates'
 
 const LAUNCH_ARGS = [
   '--no-sandbox', '--disable-gpu', '--disable-dev-shm-usage', '--disable-background-networking',
@@ -54,8 +56,58 @@ export function printOrigin() {
   return process.env.TENDONBOOK_PRINT_ORIGIN || `http://127.0.0.1:${process.env.PORT || process.env.NITRO_PORT || 3000}`
 }
 
-/** @throws PdfRenderError saying why (page status, deadline, browser failure). */
-export async function renderPdf(job: PdfJob): Promise<Uint8Array> {
+/** This server cannot take another render now; `retryAfterSeconds` is a fair wait before trying again. */
+export class PdfBusyError extends PdfRenderError {
+  constructor(readonly retryAfterSeconds: number) {
+    super(`the PDF renderer of this server is busy with other documents: try again in ${retryAfterSeconds} s`)
+    this.name = 'PdfBusyError'
+  }
+}
+
+/**
+ * At most `slots` jobs at once and `queue` more waiting in arrival order; beyond that a job is
+ * refused at once (PdfBusyError) rather than left waiting behind work it cannot see the end of.
+ */
+export class RenderGate {
+  private running = 0
+  private waiting: Array<() => void> = []
+  constructor(readonly slots: number, readonly queue: number, readonly retryAfterSeconds = 10) {}
+
+  async run<T>(job: () => Promise<T>): Promise<T> {
+    if (this.running >= this.slots) {
+      if (this.waiting.length >= this.queue) throw new PdfBusyError(this.retryAfterSeconds)
+      await new Promise<void>(resolve => this.waiting.push(resolve))
+    }
+    else {
+      this.running += 1
+    }
+    try {
+      return await job()
+    }
+    finally {
+      // hand the slot straight to the next in line, or give it back
+      const next = this.waiting.shift()
+      if (next) next()
+      else this.running -= 1
+    }
+  }
+
+  get load() {
+    return { running: this.running, waiting: this.waiting.length }
+  }
+}
+
+const positive = (raw: string | undefined, fallback: number) => (Number.isInteger(Number(raw)) && Number(raw) > 0 ? Number(raw) : fallback)
+
+/** Per server: as many renders as cores (TENDONBOOK_PDF_RENDERS), a few more queued (TENDONBOOK_PDF_QUEUE). */
+const gate = new RenderGate(positive(process.env.TENDONBOOK_PDF_RENDERS, availableParallelism()), positive(process.env.TENDONBOOK_PDF_QUEUE, 4))
+
+/** @throws PdfBusyError when this server's renders and queue are full; PdfRenderError saying why (page status, deadline, browser failure). */
+export function renderPdf(job: PdfJob): Promise<Uint8Array> {
+  return gate.run(() => renderNow(job))
+}
+
+async function renderNow(job: PdfJob): Promise<Uint8Array> {
   const timeoutMs = job.timeoutMs ?? 30_000
   const b = await useBrowser().catch((error: unknown) => {
     throw new PdfRenderError(`Chromium could not start: ${error instanceof Error ? error.message : String(error)}`)
@@ -95,7 +147,7 @@ export async function renderPdf(job: PdfJob): Promise<Uint8Array> {
       displayHeaderFooter: true,
       headerTemplate: job.headerTemplate,
       footerTemplate: job.footerTemplate,
-      margin: { top: '44mm', bottom: '24mm', left: '16mm', right: '16mm' },
+      margin: { top: `${PAGE_MARGIN_MM.top}mm`, bottom: `${PAGE_MARGIN_MM.bottom}mm`, left: `${PAGE_MARGIN_MM.side}mm`, right: `${PAGE_MARGIN_MM.side}mm` },
       timeout: timeoutMs,
     })
     return new Uint8Array(pdf)
@@ -234,4 +286,44 @@ export async function makeReproducible(bytes: Uint8Array, meta: FixedMetadata): 
   doc.context.trailerInfo.ID = doc.context.obj([id, id])
   const out = await doc.save({ useObjectStreams: false, addDefaultPage: false, updateFieldAppearances: false })
   return { bytes: out, pages: doc.getPageCount() }
+}
+
+/**
+ * The page (from 1) of each named destination of a PDF — Chromium writes one for every element a
+ * link of the document points to, such as the section headings the contents list links to. Reads
+ * the catalogue's /Dests dictionary and the /Names /Dests name tree, whichever the file has.
+ */
+export async function namedDestinationPages(bytes: Uint8Array): Promise<Map<string, number>> {
+  const doc = await PDFDocument.load(bytes, { updateMetadata: false })
+  const ctx = doc.context
+  const pageIndex = new Map(doc.getPages().map((p, i) => [p.ref.toString(), i + 1]))
+  const out = new Map<string, number>()
+  const record = (name: string, target: PDFObject | undefined) => {
+    let dest = target ? ctx.lookup(target) : undefined
+    if (dest instanceof PDFDict) dest = ctx.lookup(dest.get(PDFName.of('D')))
+    if (!(dest instanceof PDFArray) || dest.size() === 0) return
+    const page = pageIndex.get(dest.get(0).toString())
+    if (page !== undefined && !out.has(name)) out.set(name, page)
+  }
+  const catalog = doc.catalog
+  const dests = catalog.lookup(PDFName.of('Dests'))
+  if (dests instanceof PDFDict) {
+    for (const [key, value] of dests.entries()) record(key.decodeText(), value)
+  }
+  const walk = (node: PDFObject | undefined, depth: number) => {
+    const dict = node ? ctx.lookup(node) : undefined
+    if (!(dict instanceof PDFDict) || depth > 32) return
+    const names = dict.lookup(PDFName.of('Names'))
+    if (names instanceof PDFArray) {
+      for (let i = 0; i + 1 < names.size(); i += 2) {
+        const key = textOf(names.lookup(i))
+        if (key !== null) record(key, names.get(i + 1))
+      }
+    }
+    const kids = dict.lookup(PDFName.of('Kids'))
+    if (kids instanceof PDFArray) for (let i = 0; i < kids.size(); i++) walk(kids.get(i), depth + 1)
+  }
+  const nameTree = catalog.lookup(PDFName.of('Names'))
+  if (nameTree instanceof PDFDict) walk(nameTree.get(PDFName.of('Dests')), 0)
+  return out
 }

@@ -2,8 +2,7 @@
 // report rendered from the sheet's own template version, through the same sheet runtime the
 // editor uses (shared/sheet/runtime.ts), so the frozen document is what the engineer saw.
 import type { CheckResult } from '../../shared/engine/contract'
-import { specFor } from '../../shared/engine/results/specs'
-import { designMember } from '../../shared/engine/member/design'
+import { designMember, type Design } from '../../shared/engine/member/design'
 import { compileSheet, renderSheet } from '../../shared/sheet/runtime'
 
 export interface FrozenRun {
@@ -34,7 +33,29 @@ export function freezeRun(model: string, templateBody: string, inputs: unknown):
   }
 }
 
-/** Label, unit and precision of a result path, for the diff. */
-export function resultSpecFor(path: string) {
-  return specFor(path)
+/** Where a frozen report shows each check and value: its sections, check homes and key homes. */
+export interface ReportMap {
+  sections: Array<{ id: string, title: string, level: number }>
+  checkSections: Record<string, string>
+  keySections: Record<string, string>
+}
+
+// A frozen revision never changes, so its map is kept by content hash; a few dozen cover a checker's session.
+const reportMaps = new Map<string, ReportMap>()
+const REPORT_MAPS_KEPT = 64
+
+/**
+ * Renders a frozen revision again, from its own template text, inputs and results, to learn which
+ * section shows each check and value. @throws 409 when the frozen template no longer loads.
+ */
+export function reportMapOf(rev: { contentHash: string, templateBody: string, inputs: unknown, results: unknown }): ReportMap {
+  const kept = reportMaps.get(rev.contentHash)
+  if (kept) return kept
+  const compiled = compileSheet(rev.templateBody)
+  if (!compiled.ok) throw createError({ statusCode: 409, message: `The revision's template no longer loads: ${compiled.errors.join('; ')}` })
+  const report = renderSheet(compiled.template, rev.inputs, rev.results as Design, 'frozen')
+  const map = { sections: report.sections, checkSections: report.checkSections, keySections: report.keySections }
+  if (reportMaps.size >= REPORT_MAPS_KEPT) reportMaps.delete(reportMaps.keys().next().value!)
+  reportMaps.set(rev.contentHash, map)
+  return map
 }

@@ -1,14 +1,14 @@
 import type { H3Event } from 'h3'
 import type { z } from 'zod'
-import { describeFieldErrors, fieldErrors } from '../../shared/utils/validation'
+import { describeFieldErrors, fieldErrors, type FieldLabels } from '../../shared/utils/validation'
 
-/** A 400 that names each field at fault, in `message` and in `data.fields`. */
-export function invalidInput(error: z.ZodError): never {
+/** A 400 that names each field at fault, in `message` (by its label when given) and in `data.fields`. */
+export function invalidInput(error: z.ZodError, labels?: FieldLabels): never {
   const fields = fieldErrors(error)
-  throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: describeFieldErrors(fields), data: { fields } })
+  throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: describeFieldErrors(fields, labels), data: { fields } })
 }
 
-export async function validBody<S extends z.ZodType>(event: H3Event, schema: S): Promise<z.output<S>> {
+export async function validBody<S extends z.ZodType>(event: H3Event, schema: S, labels?: FieldLabels): Promise<z.output<S>> {
   let body: unknown
   try {
     body = await readBody(event)
@@ -17,7 +17,7 @@ export async function validBody<S extends z.ZodType>(event: H3Event, schema: S):
     throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: 'The request body is not valid JSON', data: { fields: { '(body)': 'not valid JSON' } } })
   }
   const result = schema.safeParse(body ?? {})
-  if (!result.success) invalidInput(result.error)
+  if (!result.success) invalidInput(result.error, labels)
   return result.data
 }
 

@@ -86,6 +86,9 @@ function checkBlock(model: ReportModel, meta: BlockMeta, scopes: PatternScope[],
   if (directive === 'checks' && attrs.group !== undefined && !model.checkGroups.includes(attrs.group)) {
     errors.push(new TemplateSyntaxError(line, `unknown check group "${attrs.group}": the model ${model.id} has ${model.checkGroups.join(', ')} (leave the group out for every check)`))
   }
+  if (directive === 'overview' && !model.overview) {
+    errors.push(new TemplateSyntaxError(line, `the model ${model.id} has no front page of results: remove the ::: overview block`))
+  }
   if (directive === 'figure' && attrs.plot !== undefined) {
     const figure = model.figures[attrs.plot]
     if (!figure) errors.push(new TemplateSyntaxError(line, `unknown figure "${attrs.plot}": the model ${model.id} draws ${Object.keys(model.figures).join(', ')}`))

@@ -13,6 +13,21 @@ export interface ModelInputField {
   options?: string[]
 }
 
+/** One line of a report's front page: a governing quantity and the key whose section it links to. */
+export interface OverviewRow {
+  label: string
+  /** the value as text, with its unit */
+  value: string
+  /** the concrete result path shown in the section the row links to (e.g. 'deflection.spans.1.longTerm.down') */
+  key?: string
+}
+
+/** The front page of results: the member in one line and its governing quantities. */
+export interface ModelOverview {
+  member: string
+  rows: OverviewRow[]
+}
+
 /** An SVG figure drawn from the results; `at` is the concrete path of an element (e.g. 'sections.2'). */
 export interface ModelFigure {
   label: string
@@ -36,6 +51,14 @@ export interface ReportModel {
   resultShape: ReadonlyMap<string, ShapeKind>
   /** the check groups a `checks` block may name */
   checkGroups: readonly string[]
+  /** words for the check groups, for front pages, tallies and e-mails */
+  groupLabels?: Readonly<Record<string, string>>
+  /** the front page of results (`::: overview`); absent: the model has none */
+  overview?(results: unknown): ModelOverview
+  /** result paths (patterns, `[]` for every element) a checker compares first between two revisions */
+  governingKeys?: readonly string[]
+  /** whether an input field applies to the member as the inputs set it up (a mode not chosen does not) */
+  inputApplies?(path: string, inputs: unknown): boolean
   figures: Readonly<Record<string, ModelFigure>>
   /** all checks of a result, in report order */
   checksOf(results: unknown): readonly CheckResult[]

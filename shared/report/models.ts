@@ -11,6 +11,8 @@ import type { CriticalSection } from '../engine/member/stress-limits'
 import { INPUT_GROUPS, memberInputSchema } from '../engine/input/schema'
 import { inputFieldSpecs } from '../engine/input/field-specs'
 import { getPath } from '../utils/paths'
+import { isRelevant } from '../sheet/relevance'
+import { memberOverview } from './member-overview'
 import { magnelSvg } from './figures/magnel'
 import { momentDiagramSvg } from './figures/moments'
 import { deflectionSvg } from './figures/deflection'
@@ -171,6 +173,29 @@ function checkGroups(): string[] {
   return groups
 }
 
+/** Words for the check groups of pt-member. */
+const GROUP_LABELS: Record<string, string> = {
+  transfer: 'Stresses at transfer',
+  service: 'Stresses in service',
+  tendon: 'Tendon stress',
+  precompression: 'Average precompression',
+  balancing: 'Load balancing',
+  uls: 'Ultimate limit state',
+  detailing: 'Detailing',
+  sls: 'Deflection and cracking',
+  site: 'Measured extensions',
+}
+
+/** What a checker compares first between two revisions: the force, its losses, the stresses' inputs, the results that govern. */
+const GOVERNING_KEYS = [
+  'section.A', 'section.I', 'loads.selfWeight', 'loads.balanced',
+  'profile.drapes[]', 'balancing.governing', 'balancing.strandsProvided', 'balancing.balancedProvided[]',
+  'jacking.strands', 'jacking.Pjack', 'force.meanTransfer', 'force.meanService', 'force.eta', 'force.drawInLength',
+  'losses.phi', 'losses.epsCs', 'precompression.transfer', 'precompression.service',
+  'prestressMoments.service.secondary[]', 'uls.sections[].MEdMax', 'uls.sections[].MEdMin', 'uls.shear[].VEd', 'uls.shear[].VRd',
+  'deflection.spans[].longTerm.value', 'cracking.sections[].wk',
+] as const
+
 /** The model with its input schema (zod), for the editor's form and for parsing uploaded inputs. */
 export const ptMemberModel: ReportModel & { inputSchema: typeof memberInputSchema } = {
   id: 'pt-member',
@@ -187,6 +212,10 @@ export const ptMemberModel: ReportModel & { inputSchema: typeof memberInputSchem
     return checkGroups()
   },
   figures,
+  groupLabels: GROUP_LABELS,
+  overview: (r) => memberOverview(r as Design),
+  governingKeys: GOVERNING_KEYS,
+  inputApplies: isRelevant,
   checksOf: (r) => (r as Design).checks,
   inputOf: (r) => (r as Design).input,
   run: (inputs) => designMember(inputs),

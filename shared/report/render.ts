@@ -18,6 +18,7 @@ import type { BlockMeta, InlineMeta } from './markdown'
 import type { ModelFigure, ReportModel } from './model'
 import type { MathMeta } from './parse'
 import { parseKey } from './syntax'
+import { tallyByGroup, tallyChecks, tallyText } from './tally'
 
 export type RenderMode = 'edit' | 'frozen' | 'print'
 
@@ -26,6 +27,8 @@ export interface RenderOptions {
   /** the engine's results; null or undefined when the engine could not run */
   results: unknown
   mode: RenderMode
+  /** the words an editable drop-down shows for an option id of the input at `path` (default: the id) */
+  optionLabel?: (path: string, option: string) => string
 }
 
 export interface ReportSection {
@@ -50,6 +53,8 @@ export interface RenderedReport {
   sections: ReportSection[]
   checks: ReportCheck[]
   unresolved: UnresolvedKey[]
+  /** concrete result or input path → the id of the first section that shows its value */
+  keySections: Record<string, string>
 }
 
 /** Ends every report. */
@@ -61,6 +66,7 @@ interface ReportEnv {
   completedInputs: unknown
   results: unknown
   mode: RenderMode
+  optionLabel: (path: string, option: string) => string
   checks: readonly CheckResult[]
   scopes: PathScope[]
   ids: Map<string, number>
@@ -71,6 +77,7 @@ interface ReportEnv {
   /** where a summary table (no group) showed a check, for checks no group table shows */
   checkSummary: Map<string, string>
   unresolved: UnresolvedKey[]
+  keySections: Map<string, string>
 }
 
 const KATEX_OPTIONS = {
@@ -86,6 +93,8 @@ const KATEX_OPTIONS = {
 const VAL_IN_MATH = /\\val\s*\{([^{}]*)\}/g
 // Marks a summary row's section until every check table has been placed (NUL never survives markdown-it's input normalisation).
 const HOME_MARK = /\u0000home:(\d+)\u0000/g
+// A front-page link to the section that shows a key or a check group, placed once the whole body is rendered.
+const REF_MARK = /\u0000ref:(key|group):([^\u0000]*)\u0000/g
 
 /**
  * A value at a dot path: undefined where a key is missing (unresolved), null where the path passes
@@ -115,6 +124,7 @@ function resolveValue(env: ReportEnv, segments: readonly string[], key: string, 
   if (r.kind === 'index') return { text: String(r.index + 1), tex: `\\text{${r.index + 1}}`, missing: false }
   const info = describeKey(env.model, r.pattern, use)
   const value = info ? lookup(env, info, r.path) : undefined
+  if (env.currentSection !== null && !env.keySections.has(r.path)) env.keySections.set(r.path, env.currentSection)
   if (value === undefined) {
     env.unresolved.push({ key, path: r.path, line })
     return { text: '—', tex: '\\text{—}', missing: true }
@@ -210,7 +220,7 @@ function renderInput(meta: InlineMeta, env: ReportEnv): string {
   let control: string
   if (options && !whole) {
     const chosen = typeof value === 'string' ? value : ''
-    const items = options.map((o) => `<option value="${escapeHtml(o)}"${o === chosen ? ' selected' : ''}>${escapeHtml(o)}</option>`).join('')
+    const items = options.map((o) => `<option value="${escapeHtml(o)}"${o === chosen ? ' selected' : ''}>${escapeHtml(env.optionLabel(fieldPath, o))}</option>`).join('')
     control = `<select class="tb-input" id="${id}" data-key="${key}" aria-label="${label}">${items}</select>`
   } else {
     const kind = whole ? 'list' : 'number'
@@ -297,6 +307,7 @@ function renderBlock(meta: BlockMeta, inner: readonly Token[], env: ReportEnv): 
   if (meta.directive === 'each') return renderEach(meta, inner, env)
   if (meta.directive === 'checks') return renderChecks(meta, inner, env)
   if (meta.directive === 'figure') return renderFigure(meta, inner, env)
+  if (meta.directive === 'overview') return renderOverview(inner, env)
   return renderTokens(inner, env)
 }
 
@@ -359,25 +370,61 @@ function renderChecks(meta: BlockMeta, inner: readonly Token[], env: ReportEnv):
   if (here !== null) for (const c of rows) if (!homes.has(c.id)) homes.set(c.id, here)
   if (rows.length === 0) return `<div class="tb-checks">${note}<p class="tb-checks-none">No checks in this group.</p></div>\n`
 
-  const failing = rows.filter((c) => !c.pass)
-  const worst = rows.reduce((a, b) => (b.utilisation > a.utilisation ? b : a))
-  const tally = `${rows.length} check${rows.length === 1 ? '' : 's'}: ${rows.length - failing.length} pass, ${failing.length} fail; highest utilisation ${worst.utilisation.toFixed(2)} (${worst.title}${worst.location ? `, ${worst.location}` : ''})`
+  const counted = tallyChecks(rows)
+  const tally = tallyText(counted)
   const body = rows
     .map((c) => {
       const index = env.checks.indexOf(c)
       const section = group === undefined ? `\u0000home:${index}\u0000` : escapeHtml(here ?? '')
       const title = escapeHtml(c.title) + (c.note ? `<br><small>${escapeHtml(c.note)}</small>` : '')
       return `<tr class="tb-check ${c.pass ? 'tb-pass' : 'tb-fail'}" data-check="${escapeHtml(c.id)}" data-section="${section}">`
-        + `<td>${title}</td><td>${escapeHtml(c.location ?? '')}</td><td>${escapeHtml(c.clause)}</td>`
+        + `<td>${title}</td><td>${escapeHtml(c.location ?? '')}</td><td class="tb-clause">${clauseHtml(c.clause)}</td>`
         + `<td class="tb-num">${checkCell(c.actual, c.unit)}</td><td class="tb-num">${checkCell(c.limit, c.unit)}</td>`
         + `<td class="tb-num">${Number.isFinite(c.utilisation) ? c.utilisation.toFixed(2) : '—'}</td>`
         + `<td class="tb-verdict">${c.pass ? 'pass' : 'fail'}</td></tr>`
     })
     .join('\n')
   return `<div class="tb-checks"${group ? ` data-group="${escapeHtml(group)}"` : ''}>${note}`
-    + `<p class="tb-checks-tally${failing.length ? ' tb-fail' : ' tb-pass'}">${escapeHtml(tally)}</p>\n`
+    + `<p class="tb-checks-tally${counted.fail ? ' tb-fail' : ' tb-pass'}">${escapeHtml(tally)}</p>\n`
     + '<table class="tb-check-table"><thead><tr><th>Check</th><th>Location</th><th>Clause</th><th>Actual</th><th>Limit</th><th>Utilisation</th><th>Result</th></tr></thead>\n'
     + `<tbody>\n${body}\n</tbody></table></div>\n`
+}
+
+/** A clause reference never breaks inside itself ("EN 1992-1-1 5.10.2.2(5)"): only between references. */
+function clauseHtml(clause: string): string {
+  return clause.split(/,\s*/).map((part) => `<span class="tb-nobreak">${escapeHtml(part)}</span>`).join(', ')
+}
+
+function xref(kind: 'key' | 'group', target: string): string {
+  return `\u0000ref:${kind}:${target}\u0000`
+}
+
+/**
+ * The front page of results: the member in one line, the governing utilisation of each check group
+ * and the model's governing quantities, each linked to the section that shows it (in print the link
+ * carries the page number).
+ */
+function renderOverview(inner: readonly Token[], env: ReportEnv): string {
+  const note = renderTokens(inner, env)
+  const overview = env.model.overview
+  if (!overview) return ''
+  if (env.results === null || env.results === undefined) {
+    return `<div class="tb-overview">${note}<p class="tb-missing">No results yet: the front page appears once the inputs are complete.</p></div>\n`
+  }
+  const { member, rows } = overview(env.results)
+  const label = (group: string) => env.model.groupLabels?.[group] ?? group
+  const groups = tallyByGroup(env.checks).map((g) => {
+    const worst = g.governing!
+    const verdict = g.fail ? `${g.fail} of ${g.count} fail` : `all ${g.count} pass`
+    return `<tr class="${g.fail ? 'tb-fail' : 'tb-pass'}"><td>${escapeHtml(label(g.group))}</td>`
+      + `<td class="tb-num">${worst.utilisation.toFixed(2)}</td><td>${escapeHtml(worst.title)}${worst.location ? `, ${escapeHtml(worst.location)}` : ''}</td>`
+      + `<td class="tb-verdict">${verdict}</td><td class="tb-ref">${xref('group', g.group)}</td></tr>`
+  }).join('\n')
+  const values = rows.map((r) => `<tr><td>${escapeHtml(r.label)}</td><td>${escapeHtml(r.value)}</td><td class="tb-ref">${r.key ? xref('key', r.key) : ''}</td></tr>`).join('\n')
+  return `<div class="tb-overview" data-overview="true">${note}<p class="tb-overview-member">${escapeHtml(member)}</p>\n`
+    + '<table class="tb-overview-checks"><thead><tr><th>Checks</th><th>Governing utilisation</th><th>Where</th><th>Result</th><th>See</th></tr></thead>\n'
+    + `<tbody>\n${groups}\n</tbody></table>\n`
+    + `<table class="tb-overview-values"><thead><tr><th>Quantity</th><th>Value</th><th>See</th></tr></thead>\n<tbody>\n${values}\n</tbody></table></div>\n`
 }
 
 // A figure depends only on the results object and its `at`; the editor re-renders the same results often (memoised by input).
@@ -432,6 +479,19 @@ function uniqueUnresolved(list: readonly UnresolvedKey[]): UnresolvedKey[] {
   })
 }
 
+/**
+ * Where a rendered report shows each check: the section ids its check rows carry. Reads the frozen
+ * HTML of a revision issued by any version of this renderer (the row format has not changed).
+ */
+export function checkSectionsIn(html: string): Record<string, string> {
+  const homes: Record<string, string> = {}
+  for (const m of html.matchAll(/<tr class="tb-check [^"]*" data-check="([^"]*)" data-section="([^"]*)"/g)) {
+    const id = m[1]!.replace(/&quot;/g, '"').replace(/&#39;/g, '\'').replace(/&lt;/g, '<').replace(/&gt;/g, '>').replace(/&amp;/g, '&')
+    if (m[2] && !(id in homes)) homes[id] = m[2]
+  }
+  return homes
+}
+
 /** Renders a compiled template; never throws for missing values (they show as — and are listed). */
 export function renderReport(compiled: CompiledTemplate, options: RenderOptions): RenderedReport {
   const { model } = compiled
@@ -442,6 +502,7 @@ export function renderReport(compiled: CompiledTemplate, options: RenderOptions)
     completedInputs: hasResults && model.inputOf ? model.inputOf(options.results) : undefined,
     results: options.results,
     mode: options.mode,
+    optionLabel: options.optionLabel ?? ((_path, option) => option),
     checks: hasResults ? model.checksOf(options.results) : [],
     scopes: [],
     ids: new Map(),
@@ -451,10 +512,21 @@ export function renderReport(compiled: CompiledTemplate, options: RenderOptions)
     checkHome: new Map(),
     checkSummary: new Map(),
     unresolved: [],
+    keySections: new Map(),
   }
   const body = renderTokens(compiled.tokens, env)
   const homeOf = (c: CheckResult): string | null => env.checkHome.get(c.id) ?? env.checkSummary.get(c.id) ?? null
-  const placed = body.replace(HOME_MARK, (_, i: string) => escapeHtml(homeOf(env.checks[Number(i)]!) ?? ''))
+  const sectionLink = (id: string | null | undefined): string => {
+    const section = id ? env.sections.find((s) => s.id === id) : undefined
+    return section ? `<a class="tb-xref" href="#${escapeHtml(section.id)}">${escapeHtml(section.title)}</a>` : ''
+  }
+  const placed = body
+    .replace(HOME_MARK, (_, i: string) => escapeHtml(homeOf(env.checks[Number(i)]!) ?? ''))
+    .replace(REF_MARK, (_, kind: string, target: string) => {
+      if (kind === 'key') return sectionLink(env.keySections.get(target))
+      const worst = tallyChecks(env.checks.filter((c) => c.group === target)).governing
+      return sectionLink(worst ? env.checkHome.get(worst.id) ?? env.checkSummary.get(worst.id) : null)
+    })
   const html = `<article class="tb-report tb-mode-${options.mode}" data-model="${escapeHtml(model.id)}">\n${placed}`
     + `<aside class="tb-caution" role="note"><p>${escapeHtml(REPORT_CAUTION)}</p></aside>\n</article>\n`
   return {
@@ -462,5 +534,6 @@ export function renderReport(compiled: CompiledTemplate, options: RenderOptions)
     sections: env.sections,
     checks: env.checks.map((c) => ({ ...c, sectionId: homeOf(c) })),
     unresolved: uniqueUnresolved(env.unresolved),
+    keySections: Object.fromEntries(env.keySections),
   }
 }

@@ -1,18 +1,19 @@
 import { z } from 'zod'
 import { ROLES } from '../types/roles'
+import { textField } from './text'
 
 export const signinSchema = z.object({
-  email: z.string().trim().toLowerCase().email('Enter a valid e-mail address'),
-  password: z.string().min(1, 'Enter your password').max(200, 'Password is too long'),
+  email: textField('E-mail').trim().toLowerCase().email('Enter a valid e-mail address'),
+  password: textField('Password').min(1, 'Enter your password').max(200, 'Password is too long'),
 })
 
-export const passwordSchema = z.string()
+export const passwordSchema = textField('Password')
   .min(12, 'Password must be at least 12 characters')
   .max(200, 'Password must be at most 200 characters')
 
 export const userCreateSchema = z.object({
-  email: z.string().trim().toLowerCase().email('Enter a valid e-mail address').max(254),
-  name: z.string().trim().min(2, 'Enter the person’s name').max(120, 'Name is too long'),
+  email: textField('E-mail').trim().toLowerCase().email('Enter a valid e-mail address').max(254),
+  name: textField('Name').trim().min(2, 'Enter the person’s name').max(120, 'Name is too long'),
   role: z.enum(ROLES, { message: `Role must be one of ${ROLES.join(', ')}` }),
   password: passwordSchema,
 })
@@ -20,7 +21,7 @@ export const userCreateSchema = z.object({
 export const userUpdateSchema = z.object({
   role: z.enum(ROLES, { message: `Role must be one of ${ROLES.join(', ')}` }).optional(),
   disabled: z.boolean().optional(),
-  name: z.string().trim().min(2).max(120).optional(),
+  name: textField('Name').trim().min(2, 'Enter the person’s name').max(120, 'Name is too long').optional(),
   password: passwordSchema.optional(),
 }).refine(v => Object.keys(v).length > 0, { message: 'Nothing to change' })
 

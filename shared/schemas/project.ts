@@ -1,14 +1,15 @@
 import { z } from 'zod'
+import { textField } from './text'
 
 /** One schema for the project form and the route that creates a project. */
 export const projectCreateSchema = z.object({
-  jobNumber: z.string().trim()
+  jobNumber: textField('Job number').trim()
     .min(1, 'Enter the job number')
     .max(32, 'Job number is at most 32 characters')
     .regex(/^[A-Za-z0-9][A-Za-z0-9./_-]*$/, 'Job number may hold letters, digits and . / _ - only'),
-  name: z.string().trim().min(3, 'Project name must be at least 3 characters').max(160, 'Project name is at most 160 characters'),
-  client: z.string().trim().max(160, 'Client is at most 160 characters').default(''),
-  site: z.string().trim().max(200, 'Site is at most 200 characters').default(''),
+  name: textField('Project name').trim().min(3, 'Project name must be at least 3 characters').max(160, 'Project name is at most 160 characters'),
+  client: textField('Client').trim().max(160, 'Client is at most 160 characters').default(''),
+  site: textField('Site').trim().max(200, 'Site is at most 200 characters').default(''),
 })
 
 export type ProjectCreateBody = z.infer<typeof projectCreateSchema>

@@ -1,12 +1,18 @@
 /**
- * Import and export of a sheet's inputs. JSON keeps engine units (lossless); CSV is for people and
- * spreadsheets: one row per value, `field,value,unit`, in the units the form shows.
+ * Import and export of a sheet's inputs, in the units the engineer types (kN/m², m, mm, MPa, %),
+ * each value with its unit named. JSON (`tendonbook-inputs/2`) keeps the shape of the inputs with
+ * `{ value, unit }` at every field; CSV is one row per value, `field,value,unit,label`. Files of the
+ * first format (`tendonbook-inputs/1`, engine units N/mm/MPa) still import: the format marker says
+ * which units a file is in.
  */
 import Papa from 'papaparse'
 import { DISPLAY_UNITS, fromEngine, isDisplayUnit, toEngine, type DisplayUnit } from '../utils/units'
-import { clonePlain, getPath, leafPaths, setPath } from '../utils/paths'
+import { clonePlain, fieldFor, getPath, leafPaths, setPath } from '../utils/paths'
+import { inputLabel } from './labels'
 
-export const INPUTS_FORMAT = 'tendonbook-inputs/1'
+export const INPUTS_FORMAT = 'tendonbook-inputs/2'
+/** The first format: the inputs exactly as the engine holds them (N, mm, MPa, fractions). */
+export const ENGINE_UNITS_FORMAT = 'tendonbook-inputs/1'
 
 export interface FieldUnit {
   path: string
@@ -21,32 +27,59 @@ export class InputsFileError extends Error {
   }
 }
 
-/** The field a concrete path belongs to: the field itself, or an element of a list field. */
-export function fieldFor<F extends Pick<FieldUnit, 'path' | 'kind'>>(fields: F[], path: string): F | undefined {
-  return fields.find(f => f.path === path) ?? fields.find(f => f.kind === 'array' && path.startsWith(`${f.path}.`) && /^\d+$/.test(path.slice(f.path.length + 1)))
+const unitLabel = (unit: DisplayUnit) => DISPLAY_UNITS[unit].label
+
+/** A number in the field's display unit, without float noise (7.8, not 7.800000000000001). */
+function shown(value: number, unit: DisplayUnit): number {
+  return Number(fromEngine(value, unit).toPrecision(12))
 }
 
-export function exportJson(model: string, inputs: unknown, meta: Record<string, string> = {}) {
-  return `${JSON.stringify({ format: INPUTS_FORMAT, model, units: 'N, mm, MPa (engine units)', ...meta, inputs }, null, 2)}\n`
+/** The unit a file names, by its label ("kN/m²") or key; '' when the file names none. */
+function unitNamed(text: string): DisplayUnit | string {
+  return Object.keys(DISPLAY_UNITS).find(u => DISPLAY_UNITS[u as DisplayUnit].label === text) ?? text
+}
+
+export function exportJson(model: string, inputs: unknown, fields: FieldUnit[], meta: Record<string, string> = {}) {
+  let out: Record<string, unknown> = {}
+  for (const field of fields) {
+    const value = getPath(inputs, field.path)
+    if (value === undefined) continue
+    const numbers = field.kind === 'number' || (field.kind === 'array' && Array.isArray(value) && value.every(v => typeof v === 'number'))
+    const entry = !numbers
+      ? { value: clonePlain(value) }
+      : { value: Array.isArray(value) ? value.map(v => shown(v as number, field.unit)) : shown(value as number, field.unit), unit: unitLabel(field.unit) }
+    out = setPath(out, field.path, { label: inputLabel(field.path), ...entry })
+  }
+  return `${JSON.stringify({ format: INPUTS_FORMAT, model, units: 'as typed in the editor; each value names its unit', ...meta, inputs: out }, null, 2)}\n`
 }
 
 export function exportCsv(inputs: unknown, fields: FieldUnit[]) {
   const rows = leafPaths(inputs).map((path) => {
     const value = getPath(inputs, path)
     const field = fieldFor(fields, path)
-    if (typeof value === 'number' && field) return [path, String(Number(fromEngine(value, field.unit).toPrecision(12))), DISPLAY_UNITS[field.unit].label]
-    return [path, value === null || value === undefined ? '' : String(value), '']
+    const label = field ? inputLabel(path) : ''
+    if (typeof value === 'number' && field) return [path, String(shown(value, field.unit)), unitLabel(field.unit), label]
+    return [path, value === null || value === undefined ? '' : String(value), '', label]
   })
-  return `${Papa.unparse({ fields: ['field', 'value', 'unit'], data: rows }, { newline: '\n' })}\n`
+  return `${Papa.unparse({ fields: ['field', 'value', 'unit', 'label'], data: rows }, { newline: '\n' })}\n`
 }
 
 /** Parses an uploaded inputs file (JSON or CSV) into engine-unit inputs merged over `base`. */
 export function importInputs(text: string, filename: string, base: unknown, fields: FieldUnit[], model: string) {
   const looksJson = /\.json$/i.test(filename) || text.trimStart().startsWith('{')
-  return looksJson ? importJson(text, model) : importCsv(text, base, fields)
+  return looksJson ? importJson(text, fields, model) : importCsv(text, base, fields)
 }
 
-function importJson(text: string, model: string) {
+/** A typed number in `unitText` for `field`, in engine units; or the problem with it. */
+function readValue(raw: unknown, unitText: string, field: FieldUnit, label: string): { value: number } | { problem: string } {
+  const value = typeof raw === 'number' ? raw : typeof raw === 'string' && raw.trim() !== '' ? Number(raw) : Number.NaN
+  if (!Number.isFinite(value)) return { problem: `${label} must be a number, not "${String(raw)}"` }
+  const unit = unitText === '' ? field.unit : unitNamed(unitText)
+  if (!isDisplayUnit(unit) || unit !== field.unit) return { problem: `${label} is given in ${unitLabel(field.unit) || 'no unit'}, not "${unitText}"` }
+  return { value: toEngine(value, field.unit) }
+}
+
+function importJson(text: string, fields: FieldUnit[], model: string) {
   let data: unknown
   try {
     data = JSON.parse(text)
@@ -55,10 +88,54 @@ function importJson(text: string, model: string) {
     throw new InputsFileError([`The file is not valid JSON: ${(error as Error).message}`])
   }
   const doc = data as { format?: unknown, model?: unknown, inputs?: unknown }
-  if (doc?.format !== INPUTS_FORMAT) throw new InputsFileError([`format: expected "${INPUTS_FORMAT}" (a file exported by Tendonbook)`])
-  if (doc.model !== model) throw new InputsFileError([`model: the file is for "${String(doc.model)}", this sheet uses "${model}"`])
-  if (!doc.inputs || typeof doc.inputs !== 'object') throw new InputsFileError(['inputs: missing'])
-  return doc.inputs as Record<string, unknown>
+  if (doc?.format !== INPUTS_FORMAT && doc?.format !== ENGINE_UNITS_FORMAT) {
+    throw new InputsFileError([`The file is not a Tendonbook inputs file (its "format" should be "${INPUTS_FORMAT}")`])
+  }
+  if (doc.model !== model) throw new InputsFileError([`The file is for the model "${String(doc.model)}"; this sheet uses "${model}"`])
+  if (!doc.inputs || typeof doc.inputs !== 'object') throw new InputsFileError(['The file holds no inputs'])
+  if (doc.format === ENGINE_UNITS_FORMAT) return doc.inputs as Record<string, unknown>
+  return fromTypedUnits(doc.inputs, fields)
+}
+
+/** `{ value, unit }` at every field, in display units → engine-unit inputs. */
+function fromTypedUnits(inputs: object, fields: FieldUnit[]) {
+  const problems: string[] = []
+  let out: Record<string, unknown> = {}
+  for (const field of fields) {
+    const entry = getPath(inputs, field.path) as { value?: unknown, unit?: unknown } | undefined
+    if (entry === undefined) continue
+    const label = inputLabel(field.path)
+    if (entry === null || typeof entry !== 'object' || !('value' in entry)) {
+      problems.push(`${label}: expected { "value": …, "unit": … }`)
+      continue
+    }
+    const unitText = typeof entry.unit === 'string' ? entry.unit : ''
+    const numeric = field.kind === 'number' || (field.kind === 'array' && unitText !== '') || (field.kind === 'array' && Array.isArray(entry.value) && entry.value.some(v => typeof v === 'number'))
+    if (!numeric) {
+      out = setPath(out, field.path, clonePlain(entry.value))
+      continue
+    }
+    if (field.kind === 'array') {
+      if (!Array.isArray(entry.value)) {
+        problems.push(`${label} must be a list of numbers`)
+        continue
+      }
+      const read = entry.value.map((v, i) => readValue(v, unitText, field, inputLabel(`${field.path}.${i}`)))
+      const bad = read.flatMap(r => ('problem' in r ? [r.problem] : []))
+      if (bad.length) problems.push(...bad)
+      else out = setPath(out, field.path, read.map(r => (r as { value: number }).value))
+      continue
+    }
+    const read = readValue(entry.value, unitText, field, label)
+    if ('problem' in read) problems.push(read.problem)
+    else out = setPath(out, field.path, read.value)
+  }
+  for (const path of leafPaths(inputs)) {
+    const known = fields.some(f => path === f.path || path.startsWith(`${f.path}.`))
+    if (!known) problems.push(`"${path}" is not an input of this sheet`)
+  }
+  if (problems.length) throw new InputsFileError([...new Set(problems)])
+  return out
 }
 
 function importCsv(text: string, base: unknown, fields: FieldUnit[]) {
@@ -66,31 +143,24 @@ function importCsv(text: string, base: unknown, fields: FieldUnit[]) {
   const rows = parsed.data
   const problems: string[] = parsed.errors.map(e => `line ${(e.row ?? 0) + 1}: ${e.message}`)
   const header = rows[0]?.map(h => h.trim().toLowerCase())
-  if (!header || header[0] !== 'field' || header[1] !== 'value') throw new InputsFileError(['line 1: the header must be "field,value,unit"'])
+  if (!header || header[0] !== 'field' || header[1] !== 'value') throw new InputsFileError(['line 1: the header must be "field,value,unit" (a "label" column may follow)'])
   let inputs = clonePlain(base) as Record<string, unknown>
   rows.slice(1).forEach((row, i) => {
     const line = i + 2
     const [path = '', raw = '', unitText = ''] = row.map(c => c.trim())
     const field = fieldFor(fields, path)
     if (!field) {
-      problems.push(`line ${line}: ${path || '(empty)'} is not an input of this sheet`)
+      problems.push(`line ${line}: "${path || '(empty)'}" is not an input of this sheet`)
       return
     }
-    if (field.kind === 'number' || field.kind === 'array') {
-      const value = Number(raw)
-      if (raw === '' || !Number.isFinite(value)) {
-        problems.push(`line ${line}: ${path} must be a number, not "${raw}"`)
-        return
-      }
-      const unit = unitText === '' ? field.unit : (Object.keys(DISPLAY_UNITS).find(u => DISPLAY_UNITS[u as DisplayUnit].label === unitText) ?? unitText)
-      if (!isDisplayUnit(unit) || unit !== field.unit) {
-        problems.push(`line ${line}: ${path} is given in ${DISPLAY_UNITS[field.unit].label || 'no unit'}, not "${unitText}"`)
-        return
-      }
-      inputs = setPath(inputs, path, toEngine(value, field.unit))
+    const label = inputLabel(path)
+    if (field.kind === 'number' || (field.kind === 'array' && (unitText !== '' || field.unit !== ''))) {
+      const read = readValue(raw, unitText, field, label)
+      if ('problem' in read) problems.push(`line ${line}: ${read.problem}`)
+      else inputs = setPath(inputs, path, read.value)
     }
     else if (field.kind === 'boolean') {
-      if (raw !== 'true' && raw !== 'false') problems.push(`line ${line}: ${path} must be true or false`)
+      if (raw !== 'true' && raw !== 'false') problems.push(`line ${line}: ${label} must be true or false`)
       else inputs = setPath(inputs, path, raw === 'true')
     }
     else {

@@ -7,7 +7,7 @@ import { EngineInputError } from '../engine/contract'
 import { designMember, type Design } from '../engine/member/design'
 import { memberInputSchema, type MemberInput } from '../engine/input/schema'
 import { DEMO_BB1, DEMO_PS2 } from '../engine/input/demo'
-import { compileTemplate, parseTemplate, renderReport, TemplateLoadError, type CompiledTemplate, type RenderMode, type TemplateMeta } from '../report'
+import { compileTemplate, parseTemplate, renderReport, TemplateLoadError, type CompiledTemplate, type RenderMode, type RenderOptions, type TemplateMeta } from '../report'
 import { MODELS } from '../report/models'
 
 export type SheetRun = { ok: true, design: Design } | { ok: false, field: string, message: string }
@@ -64,8 +64,8 @@ export function compileSheet(text: string): SheetCompile {
   return result
 }
 
-export function renderSheet(template: CompiledTemplate, inputs: unknown, design: Design | null, mode: RenderMode) {
-  const report = renderReport(template, { inputs, results: design, mode })
+export function renderSheet(template: CompiledTemplate, inputs: unknown, design: Design | null, mode: RenderMode, words: Pick<RenderOptions, 'optionLabel'> = {}) {
+  const report = renderReport(template, { inputs, results: design, mode, ...words })
   const checkSections: Record<string, string> = {}
   for (const c of report.checks) if (c.sectionId) checkSections[c.id] = c.sectionId
   return { ...report, checkSections }

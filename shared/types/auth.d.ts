@@ -12,6 +12,10 @@ declare module '#auth-utils' {
     sv: number
     signedInAt: string
   }
+  interface SecureSessionData {
+    /** the user_sessions row this cookie stands for (server-side only); signing out closes it */
+    sid: string
+  }
 }
 
 export {}

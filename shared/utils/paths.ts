@@ -49,3 +49,8 @@ export function leafPaths(data: unknown, prefix = ''): string[] {
   const entries = Array.isArray(data) ? data.map((v, i) => [String(i), v] as const) : Object.entries(data)
   return entries.flatMap(([k, v]) => leafPaths(v, prefix ? `${prefix}.${k}` : k))
 }
+
+/** The field a concrete path belongs to: the field itself, or an element of a list field ('spans.2'). */
+export function fieldFor<F extends { path: string, kind: string }>(fields: readonly F[], path: string): F | undefined {
+  return fields.find(f => f.path === path) ?? fields.find(f => f.kind === 'array' && path.startsWith(`${f.path}.`) && /^\d+$/.test(path.slice(f.path.length + 1)))
+}

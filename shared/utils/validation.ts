@@ -12,7 +12,18 @@ export function fieldErrors(error: z.ZodError): FieldErrors {
   return out
 }
 
-/** One line naming each field at fault, e.g. "jobNumber: Enter the job number". */
-export function describeFieldErrors(errors: FieldErrors): string {
-  return Object.entries(errors).map(([field, message]) => `${field}: ${message}`).join('; ')
+/** How a field is called where people read it: a map of labels, or a function of the path. */
+export type FieldLabels = Record<string, string> | ((path: string) => string)
+
+function labelOf(labels: FieldLabels | undefined, path: string): string {
+  if (!labels) return path
+  return typeof labels === 'function' ? labels(path) : labels[path] ?? path
+}
+
+/**
+ * One line naming each field at fault, e.g. "jobNumber: Enter the job number", or with labels
+ * "Calc reference: Enter the calc reference".
+ */
+export function describeFieldErrors(errors: FieldErrors, labels?: FieldLabels): string {
+  return Object.entries(errors).map(([field, message]) => `${labelOf(labels, field)}: ${message}`).join('; ')
 }

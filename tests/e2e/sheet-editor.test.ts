@@ -1,7 +1,9 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser, Page } from 'playwright-core'
-import { launch, newPage, screenshot, signInAs } from '../helpers/browser'
+import type { Browser } from 'playwright-core'
+import { launch, screenshot } from '../helpers/browser'
 import { signedIn } from '../helpers/client'
+import { demoProjectId, editorAsEngineer, ownSheet, spaceTendonsWide } from '../helpers/sheets'
+import { DEMO_PS2 } from '../../shared/engine/input/demo'
 
 let browser: Browser
 beforeAll(async () => { browser = await launch() })
@@ -9,23 +11,14 @@ afterAll(async () => { await browser?.close() })
 
 async function demoSheetId(reference: string) {
   const client = await signedIn('engineer')
-  const projects = (await client.get('/api/projects')).body as Array<{ id: number, jobNumber: string }>
-  const project = (await client.get(`/api/projects/${projects.find(p => p.jobNumber === '2417')!.id}`)).body as { sheets: Array<{ id: number, reference: string }> }
+  const project = (await client.get(`/api/projects/${await demoProjectId()}`)).body as { sheets: Array<{ id: number, reference: string }> }
   return project.sheets.find(s => s.reference === reference)!.id
-}
-
-async function openSheet(page: Page, id: number) {
-  await page.goto(`/sheets/${id}`)
-  await page.waitForSelector('[data-test=report] h1, [data-test=report] h2')
-  await page.waitForSelector('[data-test=check-summary]')
 }
 
 describe('the calc-sheet editor', () => {
   it('recalculates the report and the check summary at once when a span changes, and saves the draft', async () => {
     const id = await demoSheetId('PS-2')
-    const page = await newPage(browser)
-    await signInAs(page, 'engineer')
-    await openSheet(page, id)
+    const page = await editorAsEngineer(browser, id)
     await screenshot(page, 'sheet-ps2')
     const reportBefore = await page.locator('[data-test=report]').innerText()
     const worstBefore = await page.locator('[data-test=worst-utilisation]').innerText()
@@ -56,37 +49,140 @@ describe('the calc-sheet editor', () => {
 
   it('applies the proposal as one undoable step that makes failing stress checks pass', async () => {
     const id = await demoSheetId('PS-2')
-    const page = await newPage(browser)
-    await signInAs(page, 'engineer')
-    await openSheet(page, id)
-    // too few tendons: the stress checks fail
-    const spacing = page.locator('[data-path="tendon.spacing"] input')
-    await spacing.fill('1500')
-    await spacing.blur()
-    await expect.poll(() => page.locator('[data-test=check-state]').innerText()).toMatch(/checks fail/)
+    const page = await editorAsEngineer(browser, id)
+    const spacing = await spaceTendonsWide(page)
     const failing = await page.locator('[data-test=check-state]').innerText()
     const propose = page.locator('[data-test=propose]')
     await expect.poll(() => propose.isEnabled(), { timeout: 10_000 }).toBe(true)
     await propose.click()
+    await expect.poll(() => page.locator('[data-test=notice]').innerText()).toContain('Applied the proposed force')
     await expect.poll(() => page.locator('[data-test=check-state]').innerText(), { timeout: 10_000 }).not.toBe(failing)
     expect(Number(await spacing.inputValue())).toBeLessThan(1500)
     await screenshot(page, 'sheet-ps2-proposal')
     await page.locator('[data-test=undo]').click()
     await expect.poll(() => spacing.inputValue()).toBe('1500')
     await expect.poll(() => page.locator('[data-test=check-state]').innerText()).toBe(failing)
+    // the "Applied…" notice is about a step that was just undone: it goes
+    await expect.poll(() => page.locator('[data-test=notice]').count()).toBe(0)
     await page.locator('[data-test=undo]').click()
     await expect.poll(() => page.locator('[data-test=save-state]').innerText(), { timeout: 10_000 }).toMatch(/^Saved/)
   })
 
   it('refuses an inputs file with bad lines, naming each, and changes nothing', async () => {
     const id = await demoSheetId('PS-2')
-    const page = await newPage(browser)
-    await signInAs(page, 'engineer')
-    await openSheet(page, id)
+    const page = await editorAsEngineer(browser, id)
     const before = await page.locator('[data-test=report]').innerText()
     await page.locator('[data-test=import]').setInputFiles({ name: 'bad.csv', mimeType: 'text/csv', buffer: Buffer.from('field,value,unit\ngeometry.spans.0,eight,m\nnot.a.field,1,\n') })
-    await expect.poll(() => page.locator('[data-test=import-problems]').innerText()).toContain('line 2: geometry.spans.0 must be a number')
-    expect(await page.locator('[data-test=import-problems]').innerText()).toContain('line 3: not.a.field is not an input of this sheet')
+    await expect.poll(() => page.locator('[data-test=import-problems]').innerText()).toContain('line 2: Span 1 must be a number')
+    expect(await page.locator('[data-test=import-problems]').innerText()).toContain('line 3: "not.a.field" is not an input of this sheet')
     expect(await page.locator('[data-test=report]').innerText()).toBe(before)
+  })
+
+  it('judges a field by its current text: typing is not an error, a fixed value clears at once and the draft saves', async () => {
+    const id = await ownSheet('VAL')
+    const page = await editorAsEngineer(browser, id)
+    const span2 = page.locator('[data-path="geometry.spans"] input').nth(1)
+    const spansField = page.locator('[data-path="geometry.spans"]')
+    const saveState = page.locator('[data-test=save-state]')
+
+    await span2.fill('')
+    await span2.pressSequentially('-')
+    // a lone minus is a number on its way: no error, no red border
+    expect(await spansField.locator('.field-error').count()).toBe(0)
+    expect(await span2.getAttribute('class')).not.toContain('field-input-error')
+    await span2.pressSequentially('8.4', { delay: 30 })
+    // the real rule, by label, never "enter a number" and never a path
+    await expect.poll(() => spansField.locator('.field-error').innerText()).toMatch(/^Span 2: .*(longer than zero|at least 1 m)/)
+    await expect.poll(() => saveState.innerText()).toMatch(/^Not saved: Span 2/)
+    expect(await page.locator('body').innerText()).not.toMatch(/geometry\.spans/)
+    // the last report stays, marked stale and naming the field; the field keeps focus and text
+    await expect.poll(() => page.locator('[data-test=stale]').innerText()).toContain('Span 2')
+    expect(await page.locator('[data-test=report]').getAttribute('data-stale')).toBe('true')
+    expect(await page.locator('[data-test=report]').innerText()).toContain('Scope')
+    expect(await page.evaluate(() => (document.activeElement as HTMLInputElement).value)).toBe('-8.4')
+    await screenshot(page, 'sheet-stale-report')
+
+    // retyping a good value clears everything at once, and the draft saves
+    await span2.fill('9.6')
+    await expect.poll(() => spansField.locator('.field-error').count()).toBe(0)
+    expect(await span2.getAttribute('class')).not.toContain('field-input-error')
+    await expect.poll(() => page.locator('[data-test=stale]').count()).toBe(0)
+    await expect.poll(() => saveState.innerText(), { timeout: 10_000 }).toMatch(/^Saved \d\d:\d\d$/)
+    expect(await page.locator('[data-test=report]').getAttribute('data-stale')).toBeNull()
+
+    // "abc" is not a number while it is there; leaving the field gives the good value back, with no error left
+    await span2.fill('abc')
+    await expect.poll(() => spansField.locator('.field-error').innerText()).toContain('“abc” is not a number')
+    await span2.blur()
+    await expect.poll(() => span2.inputValue()).toBe('9.6')
+    expect(await spansField.locator('.field-error').count()).toBe(0)
+    await expect.poll(() => page.locator('[data-test=notice]').innerText()).toContain('Span 2: “abc” is not a number; kept the value before')
+    await expect.poll(() => saveState.innerText(), { timeout: 10_000 }).toMatch(/^Saved/)
+
+    // and the sheet issues: nothing is left "Save the draft first"
+    await page.locator('[data-test=issue-revision]').click()
+    await expect.poll(() => page.locator('[data-test=issue-ok]').textContent(), { timeout: 20_000 }).toContain('P01 issued for check')
+    const client = await signedIn('engineer')
+    expect(((await client.get(`/api/sheets/${id}`)).body as { inputs: { geometry: { spans: number[] } } }).inputs.geometry.spans[1]).toBe(9600)
+  })
+
+  it('speaks in labels and words: drop-downs show words, headline governs by a check the design controls', async () => {
+    const id = await ownSheet('WORDS')
+    const page = await editorAsEngineer(browser, id)
+    const kinds = await page.locator('#in-section-kind option').allInnerTexts()
+    expect(kinds.map(t => t.trim())).toEqual(expect.arrayContaining(['Slab strip', 'T band beam']))
+    const patterns = await page.locator('[data-test=report] select[data-key="loads.pattern"] option, #in-loads-pattern option').allInnerTexts()
+    expect(patterns.map(t => t.trim())).toContain('Alternate and adjacent spans')
+    expect(patterns.join(' ')).not.toContain('alternate-and-adjacent')
+
+    // jacking at 100 % of σp,max reads 100 % by definition: it never heads the summary
+    const governing = await page.locator('[data-test=governing]').innerText()
+    expect(governing).not.toMatch(/jacking/i)
+    await expect.poll(() => page.locator('[data-test=highest-utilisations] li').count()).toBe(3)
+    const shown = (await page.locator('[data-test=highest-utilisations] li').allInnerTexts()).map(t => Number(/(\d+) %/.exec(t)![1]))
+    expect([...shown].sort((a, b) => b - a)).toEqual(shown)
+    await screenshot(page, 'sheet-headline')
+
+    // dates as the office reads them: day first, 24-hour clock
+    await expect.poll(() => page.locator('[data-test=save-state]').innerText()).toMatch(/^Saved( \d\d:\d\d)?$/)
+  })
+
+  it('exports the inputs in the units the engineer types and imports them back, old engine-unit files too', async () => {
+    const id = await ownSheet('IO')
+    const page = await editorAsEngineer(browser, id)
+    const [json] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Export JSON' }).click()])
+    const doc = JSON.parse(await (await json.createReadStream()).toArray().then(chunks => Buffer.concat(chunks).toString('utf8')))
+    expect(doc.format).toBe('tendonbook-inputs/2')
+    expect(doc.inputs.geometry.spans).toMatchObject({ value: [7.8, 9.6, 9.6, 7.8], unit: 'm', label: 'Spans' })
+    expect(doc.inputs.loads.superimposed).toMatchObject({ value: 2, unit: 'kN/m²' })
+    expect(doc.inputs.section.h).toMatchObject({ value: 260, unit: 'mm' })
+    const [csv] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Export CSV' }).click()])
+    const csvText = await (await csv.createReadStream()).toArray().then(chunks => Buffer.concat(chunks).toString('utf8'))
+    expect(csvText).toContain('geometry.spans.1,9.6,m,Span 2')
+    expect(csvText).toContain('loads.superimposed,2,kN/m²,Superimposed dead load')
+
+    // the engineer edits the file in typed units and imports it
+    doc.inputs.geometry.spans.value = [8, 9.6, 9.6, 8]
+    await page.locator('[data-test=import]').setInputFiles({ name: 'edited.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(doc)) })
+    await expect.poll(() => page.locator('[data-path="geometry.spans"] input').first().inputValue()).toBe('8')
+    // a file of the first format, in engine units, still imports
+    const old = { format: 'tendonbook-inputs/1', model: doc.model, units: 'N, mm, MPa (engine units)', inputs: { ...DEMO_PS2, geometry: { ...DEMO_PS2.geometry, spans: [7500, 9600, 9600, 7500] } } }
+    await page.locator('[data-test=import]').setInputFiles({ name: 'old.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(old)) })
+    await expect.poll(() => page.locator('[data-path="geometry.spans"] input').first().inputValue()).toBe('7.5')
+    await expect.poll(() => page.locator('[data-test=save-state]').innerText(), { timeout: 10_000 }).toMatch(/^Saved/)
+  })
+
+  it('removes a span from a symmetric member in the middle, so it stays symmetric', async () => {
+    const id = await ownSheet('SPANS')
+    const page = await editorAsEngineer(browser, id)
+    await page.getByRole('button', { name: 'Remove a span' }).click()
+    const spans = page.locator('[data-path="geometry.spans"] input')
+    await expect.poll(() => spans.count()).toBe(3)
+    expect(await Promise.all([0, 1, 2].map(i => spans.nth(i).inputValue()))).toEqual(['7.8', '9.6', '7.8'])
+    await expect.poll(() => page.locator('[data-test=save-state]').innerText(), { timeout: 10_000 }).toMatch(/^Saved/)
+    const client = await signedIn('engineer')
+    const saved = (await client.get(`/api/sheets/${id}`)).body as { inputs: { geometry: { spans: number[] }, profile: { lowPointAt?: number[] } } }
+    expect(saved.inputs.geometry.spans).toEqual([7800, 9600, 7800])
+    if (saved.inputs.profile.lowPointAt) expect(saved.inputs.profile.lowPointAt).toHaveLength(3)
   })
 })

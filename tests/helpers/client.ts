@@ -11,6 +11,12 @@ export class ApiClient {
   private cookies = new Map<string, string>()
   constructor(readonly baseUrl: string = inject('baseUrl')) {}
 
+  /** Issues a revision of the sheet as it is saved now, naming its current draft version as the editor does. */
+  async issue<T = any>(sheetId: number, body: Record<string, unknown> = {}): Promise<ApiResponse<T>> {
+    const sheet = await this.request<{ draftVersion: number }>('GET', `/api/sheets/${sheetId}`)
+    return this.request<T>('POST', `/api/sheets/${sheetId}/revisions`, { draftVersion: sheet.body.draftVersion, ...body })
+  }
+
   async request<T = any>(method: string, path: string, body?: unknown, headers: Record<string, string> = {}): Promise<ApiResponse<T>> {
     const res = await fetch(`${this.baseUrl}${path}`, {
       method,

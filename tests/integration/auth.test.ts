@@ -1,4 +1,5 @@
-import { describe, expect, it } from 'vitest'
+import { request } from 'node:http'
+import { describe, expect, inject, it } from 'vitest'
 import { ApiClient, DEMO, signedIn, unique } from '../helpers/client'
 import { countRows } from '../helpers/db'
 
@@ -89,5 +90,109 @@ describe('sign-in and roles', () => {
     const client = await signedIn('engineer')
     const res = await client.request('POST', '/api/projects', { jobNumber: unique('X'), name: 'Cross site' }, { origin: 'http://evil.example' })
     expect(res.status).toBe(403)
+  })
+})
+
+/** A JSON request from another loopback address (127.0.0.x): a person elsewhere on the network. */
+function fromAddress(localAddress: string, method: string, path: string, body?: unknown, cookie?: string): Promise<{ status: number, body: any, cookie: string }> {
+  const url = new URL(inject('baseUrl'))
+  const data = body === undefined ? undefined : JSON.stringify(body)
+  return new Promise((done, fail) => {
+    const req = request({ host: url.hostname, port: url.port, localAddress, method, path, agent: false, headers: { ...(data ? { 'content-type': 'application/json', 'content-length': Buffer.byteLength(data) } : {}), ...(cookie ? { cookie } : {}) } }, (res) => {
+      let text = ''
+      res.on('data', (c: Buffer) => { text += c.toString() })
+      res.on('end', () => {
+        let parsed: unknown = text
+        try {
+          parsed = JSON.parse(text)
+        }
+        catch {}
+        done({ status: res.statusCode ?? 0, body: parsed, cookie: (res.headers['set-cookie'] ?? []).map(l => l.split(';')[0]!).join('; ') })
+      })
+    })
+    req.on('error', fail)
+    req.end(data)
+  })
+}
+
+async function newPerson(prefix: string) {
+  const admin = await signedIn('admin')
+  const email = `${unique(prefix)}@example.test`
+  await admin.post('/api/admin/users', { email, name: 'Person Under Test', role: 'engineer', password: 'a-long-enough-password' })
+  return email
+}
+
+describe('signing out', () => {
+  it('ends the session on the server: the cookie replayed after sign-out neither reads nor writes', async () => {
+    const email = await newPerson('signout')
+    const signin = await fromAddress('127.0.0.1', 'POST', '/api/auth/signin', { email, password: 'a-long-enough-password' })
+    expect(signin.status).toBe(200)
+    const cookie = signin.cookie
+    expect((await fromAddress('127.0.0.1', 'GET', '/api/auth/me', undefined, cookie)).status).toBe(200)
+    expect((await fromAddress('127.0.0.1', 'POST', '/api/auth/signout', {}, cookie)).status).toBe(200)
+    const read = await fromAddress('127.0.0.1', 'GET', '/api/projects', undefined, cookie)
+    expect(read.status).toBe(401)
+    expect(read.body.message).toMatch(/session has ended/)
+    const write = await fromAddress('127.0.0.1', 'POST', '/api/projects', { jobNumber: unique('SO'), name: 'Written after sign-out' }, cookie)
+    expect(write.status).toBe(401)
+    expect(await countRows('projects', 'name = ?', ['Written after sign-out'])).toBe(0)
+    // signing out twice is harmless
+    expect((await fromAddress('127.0.0.1', 'POST', '/api/auth/signout', {}, cookie)).status).toBe(200)
+  })
+
+  it('signs out everywhere: every session of the user ends, other people\'s do not', async () => {
+    const email = await newPerson('everywhere')
+    const laptop = new ApiClient()
+    const phone = new ApiClient()
+    await laptop.signIn(email, 'a-long-enough-password')
+    await phone.signIn(email, 'a-long-enough-password')
+    const someoneElse = await signedIn('checker')
+    expect((await phone.get('/api/projects')).status).toBe(200)
+    expect((await laptop.post('/api/auth/signout-everywhere')).status).toBe(200)
+    expect((await phone.get('/api/projects')).status).toBe(401)
+    expect((await laptop.get('/api/projects')).status).toBe(401)
+    expect((await someoneElse.get('/api/projects')).status).toBe(200)
+    await phone.signIn(email, 'a-long-enough-password')
+    expect((await phone.get('/api/projects')).status).toBe(200)
+  })
+})
+
+describe('the sign-in limit', () => {
+  it('lets 30 concurrent wrong passwords reach the password check only 5 times', async () => {
+    const email = await newPerson('race')
+    const answers = await Promise.all(Array.from({ length: 30 }, (_, i) => fromAddress('127.0.0.3', 'POST', '/api/auth/signin', { email, password: `wrong-${i}` })))
+    const statuses = answers.map(a => a.status)
+    expect(statuses.filter(s => s === 401)).toHaveLength(5)
+    expect(statuses.filter(s => s === 429)).toHaveLength(25)
+    // one failed-sign-in audit event per password actually checked
+    expect(await countRows('audit_events', 'action = ? AND subject = ?', ['signin.failed', email])).toBe(5)
+  })
+
+  it('counts per account and address: a stranger elsewhere cannot lock the owner out', async () => {
+    const email = await newPerson('stranger')
+    for (let i = 0; i < 6; i++) await fromAddress('127.0.0.5', 'POST', '/api/auth/signin', { email, password: `guess-${i}` })
+    const stranger = await fromAddress('127.0.0.5', 'POST', '/api/auth/signin', { email, password: 'a-long-enough-password' })
+    expect(stranger.status).toBe(429)
+    const owner = await fromAddress('127.0.0.6', 'POST', '/api/auth/signin', { email, password: 'a-long-enough-password' })
+    expect(owner.status).toBe(200)
+  })
+
+  it('does the same work for an unknown e-mail as for a known one', async () => {
+    const email = await newPerson('timing')
+    const time = async (who: string) => {
+      const started = performance.now()
+      const res = await fromAddress('127.0.0.7', 'POST', '/api/auth/signin', { email: who, password: 'not-the-password' })
+      expect(res.status).toBe(401)
+      return performance.now() - started
+    }
+    const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!
+    const known: number[] = []
+    const unknown: number[] = []
+    for (let i = 0; i < 4; i++) {
+      known.push(await time(email))
+      unknown.push(await time(`${unique('nobody')}@example.test`))
+    }
+    // a password hash (scrypt) costs tens of milliseconds; an unknown e-mail without one costs a few
+    expect(median(unknown)).toBeGreaterThan(median(known) * 0.4)
   })
 })

@@ -23,8 +23,8 @@ export class Session {
     return res
   }
 
-  async json<T = any>(method: string, path: string, body?: unknown): Promise<{ status: number, body: T }> {
-    const res = await this.fetch(path, { method, headers: body === undefined ? {} : { 'content-type': 'application/json' }, body: body === undefined ? undefined : JSON.stringify(body) })
+  async json<T = any>(method: string, path: string, body?: unknown, headers: Record<string, string> = {}): Promise<{ status: number, body: T }> {
+    const res = await this.fetch(path, { method, headers: { ...(body === undefined ? {} : { 'content-type': 'application/json' }), ...headers }, body: body === undefined ? undefined : JSON.stringify(body) })
     const text = await res.text()
     let parsed: unknown = text
     try {
@@ -70,9 +70,9 @@ The governing force to balance the chosen load is :val[balancing.governing].
 :::
 `
 
-/** The first built-in pt-member template seeded in the database, else the fallback above. */
-async function templateId(conn: mysql.Connection) {
-  const [rows] = await conn.query('SELECT id FROM templates WHERE model = ? AND builtin = 1 ORDER BY (slug LIKE ?) DESC, id ASC LIMIT 1', ['pt-member', '%slab%'])
+/** The first built-in pt-member template seeded in the database (the slab strip unless `kind` says), else the fallback above. */
+async function templateId(conn: mysql.Connection, kind = 'slab') {
+  const [rows] = await conn.query('SELECT id FROM templates WHERE model = ? AND builtin = 1 ORDER BY (slug LIKE ?) DESC, id ASC LIMIT 1', ['pt-member', `%${kind}%`])
   const found = (rows as Array<{ id: number }>)[0]
   if (found) return found.id
   // INSERT IGNORE: the integration and e2e runs may both get here first
@@ -88,20 +88,33 @@ export async function userId(role: keyof typeof DEMO) {
   })
 }
 
-/** A new project with one calc sheet holding the PS-2 demo inputs. */
-export async function makeSheet(inputs: unknown = DEMO_PS2) {
+/** A new project with one calc sheet holding the PS-2 demo inputs (or others, on the template of the `kind` named). */
+export async function makeSheet(inputs: unknown = DEMO_PS2, kind = 'slab') {
   const engineer = await userId('engineer')
   return withDb(async (conn) => {
     const job = unique('R')
     const [p] = await conn.query('INSERT INTO projects (job_number, name, client, site, created_by) VALUES (?, ?, ?, ?, ?)', [job, 'Alder Yard podium (records test)', 'Alder Yard Developments (fictional)', 'Northgate', engineer])
     const projectId = (p as { insertId: number }).insertId
-    const [s] = await conn.query('INSERT INTO sheets (project_id, reference, title, part_of_structure, template_id, inputs, created_by, updated_by) VALUES (?, ?, ?, ?, ?, ?, ?, ?)', [projectId, 'PS-2', 'Podium slab strip', 'Level 1 podium', await templateId(conn), JSON.stringify(inputs), engineer, engineer])
+    const [s] = await conn.query('INSERT INTO sheets (project_id, reference, title, part_of_structure, template_id, inputs, created_by, updated_by) VALUES (?, ?, ?, ?, ?, ?, ?, ?)', [projectId, kind === 'slab' ? 'PS-2' : 'BB-1', kind === 'slab' ? 'Podium slab strip' : 'Band beam on grid C', 'Level 1 podium', await templateId(conn, kind), JSON.stringify(inputs), engineer, engineer])
     return { projectId, jobNumber: job, sheetId: (s as { insertId: number }).insertId }
   })
 }
 
+/** A save of the draft, as the editor's would be: new inputs, the next draft version. */
 export async function setSheetInputs(sheetId: number, inputs: unknown) {
-  await withDb(conn => conn.query('UPDATE sheets SET inputs = ? WHERE id = ?', [JSON.stringify(inputs), sheetId]))
+  await withDb(conn => conn.query('UPDATE sheets SET inputs = ?, draft_version = draft_version + 1 WHERE id = ?', [JSON.stringify(inputs), sheetId]))
+}
+
+export async function draftVersionOf(sheetId: number) {
+  return withDb(async (conn) => {
+    const [rows] = await conn.query('SELECT draft_version AS v FROM sheets WHERE id = ?', [sheetId])
+    return (rows as Array<{ v: number }>)[0]?.v ?? 1
+  })
+}
+
+/** Issues the sheet's draft as the editor does: naming the draft version on screen, the latest. */
+export async function issue(s: Session, sheetId: number, body: Record<string, unknown> = {}) {
+  return s.json('POST', `/api/sheets/${sheetId}/revisions`, { draftVersion: await draftVersionOf(sheetId), ...body })
 }
 
 /** Root over the test instance's socket: the one connection that may drop a trigger. */
@@ -161,4 +174,29 @@ export async function pdfText(bytes: Uint8Array) {
     pages.push(content.items.map(item => ('str' in item ? item.str : '')).join(' '))
   }
   return { pages, numPages: doc.numPages }
+}
+
+/**
+ * Runs `fn` as root with the named triggers dropped, then puts them back from the migrations
+ * whatever happens: how the tests rewrite history behind the application's back.
+ */
+export async function withoutTriggers<T>(names: string[], fn: (conn: mysql.Connection) => Promise<T>): Promise<T> {
+  const restore = names.map(triggerSql)
+  return withRoot(async (conn) => {
+    try {
+      for (const name of names) await conn.query(`DROP TRIGGER IF EXISTS \`${name}\``)
+      return await fn(conn)
+    }
+    finally {
+      for (const name of names) await conn.query(`DROP TRIGGER IF EXISTS \`${name}\``)
+      for (const sql of restore) await conn.query(sql)
+    }
+  })
+}
+
+/** Every break the chain verification lists, as records. */
+export async function chainBreaks(records: Session) {
+  const res = await records.json('POST', '/api/chain/verify')
+  if (res.status !== 200) throw new Error(`chain verification failed: ${res.status} ${JSON.stringify(res.body)}`)
+  return res.body as { ok: boolean, breaks: Array<{ chain: string, id: number, label: string, problem: string, reason: string }> }
 }

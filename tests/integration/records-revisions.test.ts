@@ -4,7 +4,7 @@ import { DEMO_PS2 } from '../../shared/engine/input/demo'
 import { auditHash, revisionHash } from '../../server/utils/hashing'
 import { countRows, withDb } from '../helpers/db'
 import { DEMO } from '../helpers/client'
-import { makeSheet, session, setSheetInputs, triggerSql, userId, waitForMail, withRoot } from './records-fixtures'
+import { issue, makeSheet, session, setSheetInputs, triggerSql, userId, waitForMail, withRoot } from './records-fixtures'
 
 async function revisionRow(id: number) {
   return withDb(async (conn) => {
@@ -26,7 +26,7 @@ describe('issuing a revision', () => {
     const { sheetId } = await makeSheet()
     const engineer = await session('engineer')
     // results sent by a client are not an input of the route: they are ignored
-    const res = await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, { note: 'First issue', results: { checks: [] } })
+    const res = await issue(engineer, sheetId, { note: 'First issue', results: { checks: [] } })
     expect(res.status).toBe(201)
     expect(res.body).toMatchObject({ code: 'P01', seq: 1, note: 'First issue', status: { status: 'issued', suitability: 'S3' } })
     const row = await revisionRow(res.body.id)
@@ -43,7 +43,7 @@ describe('issuing a revision', () => {
   it('gives concurrent issues of one sheet distinct, consecutive codes, each chained to the one before', async () => {
     const { sheetId } = await makeSheet()
     const engineer = await session('engineer')
-    const results = await Promise.all(Array.from({ length: 6 }, (_, i) => engineer.json('POST', `/api/sheets/${sheetId}/revisions`, { note: `parallel ${i}` })))
+    const results = await Promise.all(Array.from({ length: 6 }, (_, i) => issue(engineer, sheetId, { note: `parallel ${i}` })))
     expect(results.map(r => r.status)).toEqual(Array(6).fill(201))
     expect(results.map(r => r.body.code).sort()).toEqual(['P01', 'P02', 'P03', 'P04', 'P05', 'P06'])
     const rows = await Promise.all(results.map(r => revisionRow(r.body.id)))
@@ -54,16 +54,16 @@ describe('issuing a revision', () => {
   it('refuses an issue by a checker, and bad inputs with 422 naming the field, writing nothing', async () => {
     const { sheetId, jobNumber } = await makeSheet()
     const checker = await session('checker')
-    expect((await checker.json('POST', `/api/sheets/${sheetId}/revisions`, {})).status).toBe(403)
+    expect((await issue(checker, sheetId)).status).toBe(403)
     const engineer = await session('engineer')
     await setSheetInputs(sheetId, { ...DEMO_PS2, section: { ...DEMO_PS2.section, h: -5 } })
-    const res = await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, {})
+    const res = await issue(engineer, sheetId)
     expect(res.status).toBe(422)
-    expect(res.body.message).toContain('section.h')
+    expect(res.body.message).toContain('Overall depth')
     expect(res.body.data.fields).toHaveProperty(['inputs.section.h'])
     expect(await countRows('revisions', 'sheet_id = ?', [sheetId])).toBe(0)
     expect(await countRows('outbox', 'subject LIKE ?', [`%job ${jobNumber} %`])).toBe(0)
-    expect((await engineer.json('POST', '/api/sheets/99999999/revisions', {})).status).toBe(404)
+    expect((await engineer.json('POST', '/api/sheets/99999999/revisions', { draftVersion: 1 })).status).toBe(404)
   })
 })
 
@@ -71,14 +71,14 @@ describe('history only grows', () => {
   it('refuses UPDATE and DELETE on a revision, to the app user and to root alike', async () => {
     const { sheetId } = await makeSheet()
     const engineer = await session('engineer')
-    const { body } = await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, {})
+    const { body } = await issue(engineer, sheetId)
     await expect(withDb(c => c.query('UPDATE revisions SET note = ? WHERE id = ?', ['changed', body.id]))).rejects.toThrow(/denied/i)
     await expect(withDb(c => c.query('DELETE FROM revisions WHERE id = ?', [body.id]))).rejects.toThrow(/denied/i)
     await expect(withRoot(c => c.query('UPDATE revisions SET note = ? WHERE id = ?', ['changed', body.id]))).rejects.toThrow('append-only')
     await expect(withRoot(c => c.query('DELETE FROM revisions WHERE id = ?', [body.id]))).rejects.toThrow('append-only')
     await expect(withRoot(c => c.query('DELETE FROM audit_events ORDER BY id DESC LIMIT 1'))).rejects.toThrow('append-only')
     // a revision with a gap in the numbering, or a wrong link, is refused by the chain trigger
-    await expect(withRoot(c => c.query('INSERT INTO revisions SELECT NULL, sheet_id, seq + 5, \'P99\', note, inputs, results, template_id, template_slug, template_version, template_title, model, template_body, engine_version, report_html, report_sections, author_id, issued_at, REPEAT(\'e\', 64), content_hash FROM revisions WHERE id = ?', [body.id]))).rejects.toThrow('without a gap')
+    await expect(withRoot(c => c.query('INSERT INTO revisions SELECT NULL, sheet_id, seq + 5, \'P99\', note, inputs, results, template_id, template_slug, template_version, template_title, model, template_body, engine_version, report_html, report_sections, author_id, issued_at, REPEAT(\'e\', 64), content_hash, failing_checks_reason, replies FROM revisions WHERE id = ?', [body.id]))).rejects.toThrow('without a gap')
     // foreign keys to history are ON DELETE RESTRICT
     await expect(withRoot(c => c.query('DELETE FROM sheets WHERE id = ?', [sheetId]))).rejects.toThrow(/foreign key/i)
   })
@@ -87,7 +87,7 @@ describe('history only grows', () => {
     const { sheetId } = await makeSheet()
     const engineer = await session('engineer')
     const records = await session('records')
-    const { body } = await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, { note: 'original note' })
+    const { body } = await issue(engineer, sheetId, { note: 'original note' })
     const intact = await records.json('POST', '/api/chain/verify')
     expect(intact.body.ok, JSON.stringify(intact.body.firstBreak)).toBe(true)
     const restore = triggerSql('revisions_no_update')
@@ -100,6 +100,11 @@ describe('history only grows', () => {
       expect(broken.body.ok).toBe(false)
       expect(broken.body.firstBreak).toMatchObject({ chain: 'revisions', id: body.id })
       expect(broken.body.firstBreak.reason).toContain('no longer matches')
+      // nor is the changed revision shown or printed as if it were the one issued
+      const shown = await engineer.json('GET', `/api/revisions/${body.id}`)
+      expect(shown.status).toBe(409)
+      expect(shown.body.message).toContain('no longer matches its content hash')
+      expect((await records.json('GET', `/api/revisions/${body.id}/print`)).status).toBe(409)
     }
     finally {
       await withRoot(async (c) => {
@@ -117,7 +122,7 @@ describe('history only grows', () => {
     const bad = await session('engineer')
     await bad.json('POST', '/api/auth/signin', { email: DEMO.checker.email, password: 'wrong password' })
     const engineer = await session('engineer')
-    const { body } = await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, {})
+    const { body } = await issue(engineer, sheetId)
     const events = await withDb(async (c) => {
       const [rows] = await c.query('SELECT * FROM audit_events ORDER BY seq')
       return rows as Array<Record<string, any>>
@@ -141,7 +146,7 @@ describe('check and sign-off', () => {
     const { sheetId } = await makeSheet()
     const engineer = await session('engineer')
     const checker = await session('checker')
-    const first = (await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, { note: 'for check' })).body
+    const first = (await issue(engineer, sheetId, { note: 'for check' })).body
     const issuedMail = await waitForMail(m => m.to.includes(DEMO.checker.email) && m.raw.includes(`/revisions/${first.id}`))
     expect(issuedMail.raw).toContain('issued for check')
 
@@ -159,12 +164,14 @@ describe('check and sign-off', () => {
     expect((await checker.json('POST', `/api/revisions/${first.id}/reviews`, { decision: 'approve' })).status).toBe(409)
 
     await setSheetInputs(sheetId, { ...DEMO_PS2, section: { ...DEMO_PS2.section, h: 280 } })
-    const second = (await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, { note: 'depth 280 mm' })).body
+    const second = (await issue(engineer, sheetId, { note: 'depth 280 mm' })).body
     expect(second.code).toBe('P02')
     const diff = await checker.json('GET', `/api/revisions/${second.id}/diff`)
     expect(diff.body.against.code).toBe('P01')
     expect(diff.body.diff.inputs.map((c: { path: string }) => c.path)).toContain('section.h')
-    expect(diff.body.diff.results.length).toBeGreaterThan(0)
+    expect(diff.body.diff.inputs.find((c: { path: string }) => c.path === 'section.h')).toMatchObject({ label: 'Overall depth', group: 'section' })
+    expect(diff.body.diff.all.length).toBeGreaterThan(0)
+    expect(diff.body.diff.sections.length).toBeGreaterThan(0)
     const firstAfter = await checker.json('GET', `/api/revisions/${first.id}`)
     expect(firstAfter.body.status.status).toBe('superseded')
 
@@ -179,11 +186,16 @@ describe('check and sign-off', () => {
   it('never lets the author approve their own revision', async () => {
     const { sheetId } = await makeSheet()
     const admin = await session('admin')
-    const rev = (await admin.json('POST', `/api/sheets/${sheetId}/revisions`, {})).body
+    const rev = (await issue(admin, sheetId)).body
     expect(rev.can.approve).toBe(false)
+    expect(rev.can.decide).toBe(false)
     const refused = await admin.json('POST', `/api/revisions/${rev.id}/reviews`, { decision: 'approve' })
     expect(refused.status).toBe(403)
     expect(refused.body.message).toContain('someone other than its author')
+    // returning one's own revision is a decision on it too
+    const returned = await admin.json('POST', `/api/revisions/${rev.id}/reviews`, { decision: 'return', comments: [{ anchor: '', text: 'my own' }] })
+    expect(returned.status).toBe(403)
+    expect(returned.body.message).toContain('returned by someone other than its author')
     // and the database refuses it too, whatever the application does
     const adminId = await userId('admin')
     await expect(withDb(c => c.query('INSERT INTO reviews (revision_id, sheet_id, decision, contract_code, comments, reviewer_id, created_at, content_hash) VALUES (?, ?, \'approve\', \'C01\', \'[]\', ?, NOW(3), REPEAT(\'f\', 64))', [rev.id, sheetId, adminId]))).rejects.toThrow('may not approve')

@@ -1,11 +1,15 @@
-import { readFileSync } from 'node:fs'
-import { join } from 'node:path'
+import { execFile } from 'node:child_process'
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs'
+import { tmpdir } from 'node:os'
+import { join, resolve } from 'node:path'
 import { beforeAll, describe, expect, it } from 'vitest'
 import { PDFDocument } from 'pdf-lib'
 import { sha256Hex } from '../../server/utils/hashing'
 import { DEMO_PS2 } from '../../shared/engine/input/demo'
+import { entryLeafHash } from '../../shared/log/entry'
+import { verifyInclusion } from '../../shared/log/merkle'
 import { withDb } from '../helpers/db'
-import { makeSheet, pdfText, session, setSheetInputs, type Session } from './records-fixtures'
+import { issue, makeSheet, pdfText, session, setSheetInputs, type Session } from './records-fixtures'
 
 let engineer: Session
 let checker: Session
@@ -17,7 +21,7 @@ let sealedBytes: Uint8Array
 beforeAll(async () => {
   ;[engineer, checker, records] = await Promise.all([session('engineer'), session('checker'), session('records')])
   sheet = await makeSheet()
-  const rev = (await engineer.json('POST', `/api/sheets/${sheet.sheetId}/revisions`, { note: 'for sealing' })).body
+  const rev = (await issue(engineer, sheet.sheetId, { note: 'for sealing' })).body
   approved = (await checker.json('POST', `/api/revisions/${rev.id}/reviews`, { decision: 'approve' })).body
 })
 
@@ -30,7 +34,7 @@ describe('sealing an approved revision', () => {
   it('refuses sealing to an engineer, and an unapproved revision to records', async () => {
     expect((await engineer.json('POST', `/api/revisions/${approved.id}/seal`)).status).toBe(403)
     const other = await makeSheet()
-    const pending = (await engineer.json('POST', `/api/sheets/${other.sheetId}/revisions`, {})).body
+    const pending = (await issue(engineer, other.sheetId)).body
     const res = await records.json('POST', `/api/revisions/${pending.id}/seal`)
     expect(res.status).toBe(409)
     expect(res.body.message).toContain('only an approved')
@@ -79,11 +83,19 @@ describe('sealing an approved revision', () => {
     expect(Math.abs(size.height - 841.89)).toBeLessThan(1)
   })
 
-  it('re-renders the sealed revision to the very same bytes, and refuses a second seal', async () => {
+  it('re-renders the sealed revision to the very same bytes, and answers a second seal with the first', async () => {
     const check = await records.json('POST', `/api/revisions/${approved.id}/reseal-check`)
     expect(check.status).toBe(200)
     expect(check.body).toMatchObject({ identical: true, sealedSha256: sha256Hex(sealedBytes) })
-    expect((await records.json('POST', `/api/revisions/${approved.id}/seal`)).status).toBe(409)
+    const [before] = await withDb(conn => conn.query('SELECT COUNT(*) AS n FROM seals WHERE revision_id = ?', [approved.id]))
+    const again = await records.json('POST', `/api/revisions/${approved.id}/seal`)
+    expect(again.status).toBe(200)
+    expect(again.body.alreadySealed).toBe(true)
+    expect(again.body.seal.pdfSha256).toBe(sha256Hex(sealedBytes))
+    expect(again.body.message).toContain(`${sheet.jobNumber}-PS-2-C01 was already sealed by`)
+    const [after] = await withDb(conn => conn.query('SELECT COUNT(*) AS n FROM seals WHERE revision_id = ?', [approved.id]))
+    expect(after).toEqual(before)
+    expect((after as Array<{ n: number }>)[0]!.n).toBe(1)
   })
 
   it('keeps the render and its print page when a re-render differs, and says that the printed data changed', async () => {
@@ -105,6 +117,79 @@ describe('sealing an approved revision', () => {
       await withDb(conn => conn.query('UPDATE projects SET name = ? WHERE id = ?', ['Alder Yard podium (records test)', sheet.projectId]))
     }
     expect((await records.json('POST', `/api/revisions/${approved.id}/reseal-check`)).body.identical).toBe(true)
+  })
+})
+
+describe('the sealed document in the history log', () => {
+  it('prints the revision\'s leaf and the signed head it was sealed under, in the footer and the keywords', async () => {
+    const { seal } = (await records.json('GET', `/api/revisions/${approved.id}`)).body
+    const leaf = await withDb(async (c) => {
+      const [rows] = await c.query('SELECT leaf_index AS i FROM log_leaves WHERE kind = \'revision\' AND row_id = ?', [approved.id])
+      return Number((rows as Array<{ i: number }>)[0]!.i)
+    })
+    expect(seal.logLeafIndex).toBe(leaf)
+    expect(seal.headTreeSize).toBeGreaterThan(leaf + 1)
+    const heads = (await records.json('GET', '/api/log')).body.heads as Array<{ treeSize: number, rootHash: string }>
+    expect(heads.find(h => h.treeSize === seal.headTreeSize)?.rootHash).toBe(seal.headRootHash)
+    const keywords = (await PDFDocument.load(sealedBytes, { updateMetadata: false })).getKeywords()
+    expect(keywords).toContain(`log-leaf:${leaf}`)
+    expect(keywords).toContain(`log-head:${seal.headTreeSize}:${seal.headRootHash}`)
+    const compact = (await pdfText(sealedBytes)).pages.join(' ').replace(/\s+/g, '')
+    expect(compact).toContain(`Historylogleaf${leaf}·sealedundersignedheadsize${seal.headTreeSize},root${seal.headRootHash}`)
+  })
+
+  it('shows the seal\'s inclusion proof when a copy is verified by upload', async () => {
+    const res = await records.upload('/api/verify', sealedBytes, 'from-site.pdf', 'application/pdf')
+    const inclusion = res.body.inclusion
+    expect(inclusion.head.signatureOk).toBe(true)
+    expect(entryLeafHash(inclusion.entry)).toBe(inclusion.leafHash)
+    expect(JSON.parse(inclusion.entry).row.pdfSha256).toBe(sha256Hex(sealedBytes))
+    expect(verifyInclusion(inclusion.leafIndex, inclusion.head.treeSize, inclusion.leafHash, inclusion.proof, inclusion.head.rootHash)).toBe(true)
+  })
+
+  it('checks a copy offline against an exported head, with no server', async () => {
+    const exported = await records.fetch('/api/log/export')
+    expect(exported.headers.get('content-disposition')).toContain('tendonbook-head-')
+    const file = await exported.json()
+    expect(file.documents.map((d: { pdfSha256: string }) => d.pdfSha256)).toContain(sha256Hex(sealedBytes))
+    const dir = mkdtempSync(join(tmpdir(), 'tb-verify-'))
+    const head = join(dir, 'head.json')
+    writeFileSync(head, JSON.stringify(file))
+    const copy = join(dir, 'copy.pdf')
+    writeFileSync(copy, sealedBytes)
+    const root = resolve(import.meta.dirname, '..', '..')
+    // no database, no server: an empty environment but the path (run without blocking this
+    // process, whose idle connections to the test server must stay serviced)
+    const run = (...args: string[]) => new Promise<{ status: number | null, stdout: string, stderr: string }>((done) => {
+      const child = execFile(process.execPath, ['--import', 'tsx', join(root, 'scripts', 'verify.ts'), ...args], { cwd: root, env: { PATH: process.env.PATH } }, (_, stdout, stderr) => done({ status: child.exitCode, stdout, stderr }))
+    })
+
+    const ok = await run(copy, '--head', head)
+    expect(ok.status, ok.stdout + ok.stderr).toBe(0)
+    expect(ok.stdout).toContain('VERIFIED: this is the sealed document')
+    expect(ok.stdout).toContain('competent engineer')
+    expect(ok.stdout).not.toContain('✗')
+    expect((await run(sha256Hex(sealedBytes), '--head', head)).status).toBe(0)
+
+    const changed = new Uint8Array(sealedBytes)
+    changed[Math.floor(changed.length / 3)] ^= 0x01
+    writeFileSync(join(dir, 'changed.pdf'), changed)
+    const bad = await run(join(dir, 'changed.pdf'), '--head', head)
+    expect(bad.status).toBe(1)
+    expect(bad.stdout).toContain('✗ a sealed document in the head file has this hash')
+
+    const forged = join(dir, 'forged.json')
+    writeFileSync(forged, JSON.stringify({ ...file, head: { ...file.head, treeSize: file.head.treeSize + 1 } }))
+    const unsigned = await run(copy, '--head', forged)
+    expect(unsigned.status).toBe(1)
+    expect(unsigned.stdout).toMatch(/✗ head of size \d+ signed .*: signature verifies/)
+
+    const reordered = join(dir, 'reordered.json')
+    const doc = file.documents.find((d: { pdfSha256: string }) => d.pdfSha256 === sha256Hex(sealedBytes))
+    writeFileSync(reordered, JSON.stringify({ ...file, documents: [{ ...doc, seal: { ...doc.seal, leafIndex: doc.seal.leafIndex + 1 } }] }))
+    expect((await run(copy, '--head', reordered)).stdout).toContain(`✗ seal leaf ${doc.seal.leafIndex + 1} is included in the signed head`)
+
+    expect((await run(copy, '--head', join(dir, 'none.json'))).status).toBe(2)
   })
 })
 
@@ -135,7 +220,7 @@ describe('verification', () => {
 
   it('says a sealed document was superseded once a later revision is approved', async () => {
     await setSheetInputs(sheet.sheetId, { ...DEMO_PS2, loads: { ...DEMO_PS2.loads, superimposed: 2.5e-3 } })
-    const next = (await engineer.json('POST', `/api/sheets/${sheet.sheetId}/revisions`, { note: 'heavier finishes' })).body
+    const next = (await issue(engineer, sheet.sheetId, { note: 'heavier finishes', failingChecksReason: 'Frequent top-fibre tension over support 3 is 110 %; agreed with the checker to review it with the finishes' })).body
     const c02 = (await checker.json('POST', `/api/revisions/${next.id}/reviews`, { decision: 'approve' })).body
     expect(c02.status.contractCode).toBe('C02')
     const res = await records.upload('/api/verify', sealedBytes, 'old.pdf', 'application/pdf')
@@ -154,6 +239,8 @@ describe('archive register', () => {
     expect((await records.json('GET', `/api/archive?project=${sheet.projectId}&status=superseded`)).body.register).toHaveLength(1)
     expect((await records.json('GET', '/api/archive?from=2001-01-01&to=2001-12-31')).body.register).toEqual([])
     expect((await records.json('GET', '/api/archive?from=yesterday')).status).toBe(400)
+    // a title that a spreadsheet would run as a formula is exported as text
+    await withDb(c => c.query('UPDATE sheets SET title = ? WHERE id = ?', ['=HYPERLINK("http://evil.example","open")', sheet.sheetId]))
     const csv = await records.fetch(`/api/archive/export.csv?project=${sheet.projectId}`)
     expect(csv.headers.get('content-type')).toContain('text/csv')
     const text = await csv.text()
@@ -161,6 +248,7 @@ describe('archive register', () => {
     const parsed = Papa.parse<Record<string, string>>(text.trim(), { header: true })
     expect(parsed.data).toHaveLength(1)
     expect(parsed.data[0]).toMatchObject({ 'Archive ref.': `${sheet.jobNumber}-PS-2-C01`, 'Revision': 'C01', 'Status': 'Superseded', 'PDF SHA-256': sha256Hex(sealedBytes) })
+    expect(parsed.data[0]!.Title).toBe('\'=HYPERLINK("http://evil.example","open")')
     expect((await checker.json('GET', '/api/archive')).status).toBe(403)
   })
 })

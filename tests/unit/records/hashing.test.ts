@@ -56,6 +56,15 @@ describe('revision and audit hashes', () => {
     expect(new Set(hashes).size).toBe(hashes.length)
   })
 
+  it('covers the reason for failing checks and the replies, and leaves revisions without them as they were hashed', () => {
+    const before = revisionHash(revision())
+    // a row read back after the columns were added: '' and null stand for "not given"
+    expect(revisionHash({ ...revision(), failingChecksReason: '', replies: null })).toBe(before)
+    const reason = revisionHash({ ...revision(), failingChecksReason: 'for the layout meeting' })
+    const replies = revisionHash({ ...revision(), replies: [{ reviewId: 1, index: 0, anchor: '', commentText: 'Check cover', text: 'Raised' }] })
+    expect(new Set([before, reason, replies]).size).toBe(3)
+  })
+
   it('survives the round trip through a JSON column', () => {
     const r = revision()
     const stored = { ...r, inputs: JSON.parse(JSON.stringify(r.inputs)), results: JSON.parse(JSON.stringify(r.results)) }

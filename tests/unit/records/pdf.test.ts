@@ -7,7 +7,7 @@ import { footerTemplate, headerTemplate, type TitleBlock } from '../../../server
 
 // renderPdf reads the Chromium path from the Nitro runtime config
 vi.stubGlobal('useRuntimeConfig', () => ({ chromiumPath: '/usr/bin/chromium' }))
-const { closeBrowser, makeReproducible, renderPdf, PdfRenderError } = await import('../../../server/utils/pdf')
+const { closeBrowser, makeReproducible, namedDestinationPages, renderPdf, PdfRenderError } = await import('../../../server/utils/pdf')
 
 let own: Server
 let foreign: Server
@@ -27,6 +27,10 @@ beforeAll(async () => {
       return
     }
     res.setHeader('content-type', 'text/html')
+    if (req.url === '/contents') {
+      res.end('<html><body><p><a href="#first">First</a> <a href="#third">Third</a></p><h1 id="first">First</h1><h1 id="second" style="break-before:page">Second</h1><h1 id="third" style="break-before:page">Third</h1></body></html>')
+      return
+    }
     res.end(`<html><body><h1>PS-2 stresses</h1><p>sigma ok</p><table><tr><th>Check</th><th>Stage</th><th>Utilisation</th></tr><tr><td>Top fibre</td><td>transfer</td><td>0.36</td></tr><tr><th>Bottom fibre</th><td>service</td><td>0.81</td></tr></table><img src="${foreignOrigin}/tracker.png"><script>document.body.append('script ran')</script></body></html>`)
   })
   origin = await listen(own)
@@ -38,7 +42,7 @@ afterAll(async () => {
 })
 
 const block: TitleBlock = {
-  projectName: 'Alder Yard podium', jobNumber: '2417', client: '', site: '', sheetReference: 'PS-2', title: 'Podium slab strip <b>',
+  office: 'Harrow & Vane <Structures>', officeLogo: null, projectName: 'Alder Yard podium', jobNumber: '2417', client: '', site: '', sheetReference: 'PS-2', title: 'Podium slab strip <b>',
   partOfStructure: 'Level 1', revision: 'C01 (checked as P02)', status: 'A1 Approved', madeBy: 'P. N.', madeOn: '2026-03-01',
   checkedBy: 'T. O.', checkedOn: '2026-03-02', archiveRef: '2417-PS-2-C01', contentHash: 'ab'.repeat(32), verificationRef: 'TB-ABAB-ABAB-ABAB',
 }
@@ -147,6 +151,23 @@ describe('PDF rendering (system Chromium)', { timeout: 60_000 }, () => {
   it('says why when the page fails', async () => {
     await expect(renderPdf({ url: `${origin}/missing`, origin, cookies: [], headerTemplate: '', footerTemplate: '' })).rejects.toThrow(PdfRenderError)
     await expect(renderPdf({ url: `${origin}/missing`, origin, cookies: [], headerTemplate: '', footerTemplate: '' })).rejects.toThrow('404')
+  })
+
+  it('tells the page of every heading a link of the document points to', async () => {
+    const bytes = await renderPdf({ url: `${origin}/contents`, origin, cookies: [], headerTemplate: '<span></span>', footerTemplate: '<span></span>' })
+    const pages = await namedDestinationPages(bytes)
+    expect(pages.get('first')).toBe(1)
+    expect(pages.get('third')).toBe(3)
+    // no link points to the second heading, so it has no destination
+    expect(pages.has('second')).toBe(false)
+  })
+
+  it('puts the office in the title block, and a logo only as a PNG or JPEG data URL', () => {
+    expect(headerTemplate(block)).toContain('Harrow &amp; Vane &lt;Structures&gt;')
+    const png = 'data:image/png;base64,iVBORw0KGgo='
+    expect(headerTemplate({ ...block, officeLogo: png })).toContain(`<img src="${png}"`)
+    expect(headerTemplate({ ...block, officeLogo: 'data:image/svg+xml;base64,PHN2Zz4=' })).not.toContain('<img')
+    expect(headerTemplate({ ...block, officeLogo: 'https://elsewhere.example/logo.png' })).not.toContain('<img')
   })
 
   it('escapes title block text', () => {

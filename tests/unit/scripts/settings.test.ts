@@ -22,3 +22,16 @@ describe('run settings from the environment', () => {
     expect(() => settings(false, { PORT: '70000' })).toThrow('PORT must be a port number')
   })
 })
+
+describe('cluster settings from the environment', () => {
+  it('keeps the documented loopback ports, takes lists from their variables and names a bad one', async () => {
+    // @ts-expect-error plain ES module without types
+    const { clusterSettings } = await import('../../../scripts/cluster.mjs')
+    expect(clusterSettings({})).toEqual({
+      base: resolve(root, '.data-cluster'), dbPorts: [7601, 7602, 7603], galeraPorts: [7611, 7612, 7613], istPorts: [7621, 7622, 7623],
+      sstPorts: [7631, 7632, 7633], appPorts: [7701, 7702], s3Port: 7801, mailPort: 7901,
+    })
+    expect(clusterSettings({ TENDONBOOK_CLUSTER_DB_PORTS: '5601, 5602,5603', TENDONBOOK_CLUSTER_S3_PORT: '5801' })).toMatchObject({ dbPorts: [5601, 5602, 5603], s3Port: 5801 })
+    expect(() => clusterSettings({ TENDONBOOK_CLUSTER_DB_PORTS: '5601,5602' })).toThrow('TENDONBOOK_CLUSTER_DB_PORTS must be 3 comma-separated port numbers from 1 to 65535')
+  })
+})

@@ -18,10 +18,52 @@ describe('inputs files', () => {
     expect((back.loads as { sdl: number }).sdl).toBeCloseTo(0.002, 12)
   })
 
-  it('round-trips JSON in engine units and checks the model', () => {
-    const json = exportJson('pt-member', inputs)
-    expect(importInputs(json, 'x.json', {}, fields, 'pt-member')).toEqual(inputs)
+  it('writes JSON in the units the engineer types, each value naming its unit, and reads it back', () => {
+    const json = exportJson('pt-member', inputs, fields)
+    const doc = JSON.parse(json)
+    expect(doc.format).toBe('tendonbook-inputs/2')
+    expect(doc.inputs.spans).toMatchObject({ value: [7.8, 9.6], unit: 'm' })
+    expect(doc.inputs.loads.sdl).toMatchObject({ value: 2, unit: 'kN/m²' })
+    expect(doc.inputs.concrete.grade.value).toBe('C32/40')
+    const back = importInputs(json, 'x.json', {}, fields, 'pt-member')
+    expect(back.spans).toEqual([7800, 9600])
+    expect((back.loads as { sdl: number }).sdl).toBeCloseTo(0.002, 12)
+    expect(back.concrete).toEqual({ grade: 'C32/40' })
     expect(() => importInputs(json, 'x.json', {}, fields, 'other')).toThrow(/model/)
+  })
+
+  it('still reads files of the first format, in engine units, by their format marker', () => {
+    const old = JSON.stringify({ format: 'tendonbook-inputs/1', model: 'pt-member', units: 'N, mm, MPa (engine units)', inputs })
+    expect(importInputs(old, 'old.json', {}, fields, 'pt-member')).toEqual(inputs)
+  })
+
+  it('refuses a JSON value in another unit than the field is typed in, naming the field', () => {
+    const doc = { format: 'tendonbook-inputs/2', model: 'pt-member', inputs: { spans: { value: [7800, 9600], unit: 'mm' }, loads: { sdl: { value: 'two', unit: 'kN/m²' } } } }
+    try {
+      importInputs(JSON.stringify(doc), 'x.json', {}, fields, 'pt-member')
+      expect.unreachable()
+    }
+    catch (error) {
+      expect((error as InputsFileError).problems).toEqual([
+        'spans.0 is given in m, not "mm"',
+        'spans.1 is given in m, not "mm"',
+        'loads.sdl must be a number, not "two"',
+      ])
+    }
+  })
+
+  it('names the real inputs by their labels', () => {
+    const real: FieldUnit[] = [{ path: 'geometry.spans', unit: 'm', kind: 'array' }, { path: 'loads.superimposed', unit: 'kN/m²', kind: 'number' }]
+    try {
+      importInputs('field,value,unit\ngeometry.spans.1,eight,m\nloads.superimposed,2,kN/m\n', 'x.csv', {}, real, 'pt-member')
+      expect.unreachable()
+    }
+    catch (error) {
+      expect((error as InputsFileError).problems).toEqual([
+        'line 2: Span 2 must be a number, not "eight"',
+        'line 3: Superimposed dead load is given in kN/m², not "kN/m"',
+      ])
+    }
   })
 
   it('names the line and the field of every problem', () => {
@@ -36,7 +78,7 @@ describe('inputs files', () => {
       expect(problems).toEqual([
         'line 2: spans.0 must be a number, not "seven"',
         'line 3: loads.sdl is given in kN/m², not "kN"',
-        'line 4: nope is not an input of this sheet',
+        'line 4: "nope" is not an input of this sheet',
       ])
     }
   })

@@ -6,5 +6,5 @@ export default defineEventHandler(async (event) => {
   const body = await validBody(event, reviewBody)
   const user = await requireRole(event, 'engineer', 'checker', 'admin')
   setResponseStatus(event, 201)
-  return reviewRevision(event, id, body, user)
+  return idempotent(event, user.id, { id, ...body }, () => reviewRevision(event, id, body, user))
 })

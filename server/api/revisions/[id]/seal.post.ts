@@ -4,5 +4,5 @@ export default defineEventHandler(async (event) => {
   const { id } = validParams(event, revisionIdParams)
   const user = await requireRole(event, 'records', 'admin')
   setResponseStatus(event, 201)
-  return sealRevision(event, id, user)
+  return idempotent(event, user.id, { id }, () => sealRevision(event, id, user))
 })

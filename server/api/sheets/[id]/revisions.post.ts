@@ -1,10 +1,13 @@
 import { issueBody, revisionIdParams } from '../../../utils/records-schemas'
+import { ISSUE_FIELD_LABELS } from '../../../../shared/schemas/issue'
 
-/** Issue revision: the server recomputes and freezes the sheet's current inputs. */
+/** Issue revision: the server recomputes and freezes the draft the engineer is looking at. */
 export default defineEventHandler(async (event) => {
   const { id } = validParams(event, revisionIdParams)
-  const { note } = await validBody(event, issueBody)
+  const body = await validBody(event, issueBody, ISSUE_FIELD_LABELS)
   const user = await requireRole(event, 'engineer', 'admin')
   setResponseStatus(event, 201)
-  return issueRevision(event, id, note, user)
+  // a retried request answers with the first result; two issues of one sheet at once (on two
+  // database nodes) conflict at commit, and the loser runs again
+  return idempotent(event, user.id, { id, ...body }, () => withRetry(() => issueRevision(event, id, body, user), 'Someone else issued this sheet a moment ago: reload the sheet and try again'))
 })

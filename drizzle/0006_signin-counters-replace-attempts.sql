@@ -1,0 +1,1 @@
+DROP TABLE `signin_attempts`;

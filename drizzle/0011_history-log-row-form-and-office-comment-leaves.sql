@@ -1,0 +1,2 @@
+ALTER TABLE `log_leaves` MODIFY COLUMN `kind` enum('template','revision','review','seal','attachment','audit','office-details','comment-state') NOT NULL;--> statement-breakpoint
+ALTER TABLE `log_leaves` ADD `form` int DEFAULT 1 NOT NULL;

@@ -1,0 +1,5 @@
+/** The history log's latest signed head and the heads published before it (records register). */
+export default defineEventHandler(async (event) => {
+  await requireRole(event, 'records', 'admin')
+  return logRegister()
+})
