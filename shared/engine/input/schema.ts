@@ -88,7 +88,7 @@ export const memberInputShape = {
   geometry: z.object({
     spans: z.array(spanSchema).min(1, 'Give at least one span').max(1000, 'At most 1000 spans')
       .meta(meta({ label: 'Spans', unit: 'm', precision: 2, group: 'geometry', symbol: 'L' })),
-    supports: z.array(z.enum(['pinned', 'fixed']).meta(meta({ label: 'Support', unit: '', precision: 0, group: 'geometry', help: 'pinned: free to rotate; fixed: rotation restrained' })))
+    supports: z.array(z.enum(['pinned', 'fixed', 'free'], { error: 'A support is pinned, fixed or free' }).meta(meta({ label: 'Support', unit: '', precision: 0, group: 'geometry', help: 'pinned: free to rotate; fixed: rotation restrained; free: no support, the end span is a cantilever (first or last support only)' })))
       .optional()
       .meta(meta({ label: 'Supports (left to right)', unit: '', precision: 0, group: 'geometry', help: 'one more than the spans; all pinned when left out' })),
   }),
@@ -294,13 +294,20 @@ type Ctx = z.RefinementCtx
 function refineMember(v: z.output<z.ZodObject<typeof memberInputShape>>, ctx: Ctx): void {
   const n = v.geometry.spans.length
   const issue = (path: Array<string | number>, message: string): void => ctx.addIssue({ code: 'custom', path, message })
-  if (v.geometry.supports && v.geometry.supports.length !== n + 1) {
+  const sup = v.geometry.supports
+  if (sup && sup.length !== n + 1) {
     issue(['geometry', 'supports'], `Give ${n + 1} supports for ${n} span${n === 1 ? '' : 's'}`)
+  }
+  sup?.forEach((k, j) => {
+    if (k === 'free' && j > 0 && j < n) issue(['geometry', 'supports', j], `Support ${j + 1}: only the first or last support can be free (a cantilever); an interior support must be pinned or fixed`)
+  })
+  if (sup && sup.length === n + 1 && sup[0] === 'free' && sup[n] === 'free' && n <= 2) {
+    issue(['geometry', 'supports', 0], n === 1 ? 'A single span free at both ends has no support' : 'Two cantilevers need a span between two supports: give at least three spans, or make one end pinned or fixed')
   }
   if (v.columns.where !== 'none' && v.columns.heightBelow === 0 && v.columns.heightAbove === 0) {
     issue(['columns', 'heightBelow'], 'Give the height of the columns below or above the member')
   }
-  if (v.columns.where !== 'none' && v.geometry.supports?.some((k, j) => k === 'fixed' && (v.columns.where === 'all' || (j > 0 && j < n)))) {
+  if (v.columns.where !== 'none' && sup?.some((k, j) => k === 'fixed' && (v.columns.where === 'all' || (j > 0 && j < n)))) {
     issue(['columns', 'where'], 'A fixed support already stops rotation: give columns only at pinned supports')
   }
   const s = v.section

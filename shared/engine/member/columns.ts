@@ -42,7 +42,8 @@ export function memberColumns(input: MemberInput, section: MemberSection): Membe
   const kAbove = k(c.heightAbove, c.farEndAbove)
   const joints: ColumnJoint[] = []
   const springs = Array.from({ length: n + 1 }, (_, j) => {
-    const has = c.where === 'all' || (j > 0 && j < n)
+    const free = input.geometry.supports?.[j] === 'free' // the tip of a cantilever has no column
+    const has = !free && (c.where === 'all' || (j > 0 && j < n))
     if (!has) return 0
     joints.push({ support: j, number: j + 1, kBelow, kAbove })
     return kBelow + kAbove

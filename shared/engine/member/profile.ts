@@ -7,7 +7,7 @@ import { fail } from '../common/guards'
 import { at, sum } from '../common/numeric'
 import type { StageOutcome } from '../common/stage'
 import type { MemberInput } from '../input/schema'
-import { drapes, eccentricityIn, resolveProfile } from '../prestress/profile'
+import { drapes, eccentricityIn, resolveProfile, withCantilevers } from '../prestress/profile'
 import type { ProfilePiece, TendonProfile } from '../prestress/profile'
 import { prestressMoments } from '../prestress/secondary'
 import type { MemberLoads } from './loads'
@@ -55,7 +55,8 @@ export function profileStage(input: MemberInput, section: MemberSection, loads: 
     if (e < -eTop - 1e-9 || e > eBot + 1e-9) fail(`profile.spanEcc.${i}`, outside(e, eTop, eBot))
   })
   const lowAt = lowPointShares(input)
-  const profile: TendonProfile = { spans, supportEcc, spanEcc, lowPointAt: lowAt, inflection: p.inflection }
+  // a cantilever's tendon runs from its root to the anchorage at the tip (the end entry of supportEcc)
+  const profile: TendonProfile = withCantilevers({ spans, supportEcc, spanEcc, lowPointAt: lowAt, inflection: p.inflection }, loads.supports)
   const pieces = resolveProfile(profile)
   const e = stations.map((s) => eccentricityIn(pieces[s.span] as ProfilePiece[], s.x))
   // parabolas stay between their end values, but a custom profile may still leave the section

@@ -8,7 +8,7 @@ import { EngineInputError } from '../contract'
 import { UTILISATION_CAP, atStation, ratioCheck } from '../common/check'
 import type { StageOutcome } from '../common/stage'
 import type { MemberInput } from '../input/schema'
-import { equivalentLoads } from '../prestress/equivalent-loads'
+import { balancedLoad, equivalentLoads } from '../prestress/equivalent-loads'
 import type { BeamLoad } from '../analysis/continuous-beam'
 import { creepCoefficient } from '../materials/creep-shrinkage'
 import { memberDeflection } from '../sls/deflection'
@@ -155,11 +155,11 @@ export function slsStage({ input, section, loads, profile, losses, stresses }: S
     ratioTotal: opt.deflection.ratioTotal, ratioAfter: opt.deflection.ratioAfter, limit: opt.deflection.limit ?? null,
   })
   if (def.spans.some((s) => s.cracked)) warnings.push('Deflection: part of the member cracks under the quasi-permanent load; the curvature there is interpolated by 7.4.3.')
-  const balanced = spans.map((L, i) => (8 * P * (profile.drapes[i] as number)) / (L * L)) // Lin: w = 8Pa/L²
+  const balanced = balancedLoad(profile.profile, P) // Lin: w = 8Pa/L² (2Pa/L² on a cantilever)
   const deflection: MemberDeflection = {
     phi, EcEff: def.EcEff, unbalanced: balanced.map((w) => wQP - w),
     spans: def.spans.map((s, i) => {
-      const limitCamber = s.L / opt.deflection.ratioCamber
+      const limitCamber = (s.cantilever ? 2 * s.L : s.L) / opt.deflection.ratioCamber // a cantilever: twice the overhang (common practice)
       const longMax = Math.max(s.longTerm.down, -s.longTerm.up)
       return {
         ...s,
@@ -234,16 +234,19 @@ export function slsStage({ input, section, loads, profile, losses, stresses }: S
   const worstSpan = (f: (s: SpanDeflection) => number): SpanDeflection => def.spans.reduce((a, b) => (f(b) > f(a) ? b : a))
   const longMax = (s: SpanDeflection): number => Math.max(s.longTerm.down, -s.longTerm.up)
   // 7.4.1(4) limits the sag, the downward deflection relative to the supports
+  // a cantilever's tip against twice its overhang (common practice), where the table names the basis
+  const where = (s: SpanDeflection): string => (s.cantilever ? `Span ${s.span + 1} (cantilever tip)` : `Span ${s.span + 1}`)
+  const basis = (s: SpanDeflection, ratio: number): string => (s.cantilever ? `2 × overhang/${ratio} (common practice for a cantilever)` : `span/${ratio}`)
   const wt = worstSpan((s) => s.longTerm.down / s.limitTotal)
-  checks.push(ratioCheck({ id: 'sls.deflection.total', group: 'sls', title: 'Long-term deflection (sag, downward), quasi-permanent', clause: 'EN 1992-1-1 7.4.1(4)', actual: wt.longTerm.down, limit: wt.limitTotal, unit: 'mm', location: `Span ${wt.span + 1}`, note: `span/${opt.deflection.ratioTotal}; downward positive; Ec,eff = Ecm/(1 + φ), eq. (7.20)` }))
+  checks.push(ratioCheck({ id: 'sls.deflection.total', group: 'sls', title: 'Long-term deflection (sag, downward), quasi-permanent', clause: 'EN 1992-1-1 7.4.1(4)', actual: wt.longTerm.down, limit: wt.limitTotal, unit: 'mm', location: where(wt), note: `${basis(wt, opt.deflection.ratioTotal)}; downward positive; Ec,eff = Ecm/(1 + φ), eq. (7.20)` }))
   // an upward long-term deflection is a camber: checked against its own limit (common practice, appearance)
-  const wc = worstSpan((s) => -s.longTerm.up / s.L)
+  const camberLimit = (s: SpanDeflection): number => (s.cantilever ? 2 * s.L : s.L) / opt.deflection.ratioCamber
+  const wc = worstSpan((s) => -s.longTerm.up / camberLimit(s))
   if (wc.longTerm.up < -1e-3) { // below a micrometre an upward deflection is round-off
-    const limitCamber = wc.L / opt.deflection.ratioCamber
-    checks.push(ratioCheck({ id: 'sls.deflection.camber', group: 'sls', title: 'Long-term upward deflection (camber), quasi-permanent', clause: 'common practice (appearance): span/250 upward, as 7.4.1(4) for the sag', actual: -wc.longTerm.up, limit: limitCamber, unit: 'mm', location: `Span ${wc.span + 1}`, note: `span/${opt.deflection.ratioCamber}; the camber is shown negative in the table (downward positive)` }))
+    checks.push(ratioCheck({ id: 'sls.deflection.camber', group: 'sls', title: 'Long-term upward deflection (camber), quasi-permanent', clause: 'common practice (appearance): span/250 upward, as 7.4.1(4) for the sag', actual: -wc.longTerm.up, limit: camberLimit(wc), unit: 'mm', location: where(wc), note: `${basis(wc, opt.deflection.ratioCamber)}; the camber is shown negative in the table (downward positive)` }))
   }
   const wa = worstSpan((s) => s.afterConstruction / s.limitAfter)
-  checks.push(ratioCheck({ id: 'sls.deflection.after', group: 'sls', title: 'Deflection after construction', clause: 'EN 1992-1-1 7.4.1(5)', actual: wa.afterConstruction, limit: wa.limitAfter, unit: 'mm', location: `Span ${wa.span + 1}`, note: `span/${opt.deflection.ratioAfter}; taken as the long-term less the short-term deflection (common practice)` }))
+  checks.push(ratioCheck({ id: 'sls.deflection.after', group: 'sls', title: 'Deflection after construction', clause: 'EN 1992-1-1 7.4.1(5)', actual: wa.afterConstruction, limit: wa.limitAfter, unit: 'mm', location: where(wa), note: `${basis(wa, opt.deflection.ratioAfter)}; taken as the long-term less the short-term deflection (common practice)` }))
   if (opt.deflection.limit !== undefined) {
     const lim = opt.deflection.limit
     const we = worstSpan(longMax)

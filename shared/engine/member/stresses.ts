@@ -109,8 +109,11 @@ interface SectionSite { id: string; label: string; kind: ServiceSection['kind'];
  * meet an interior support its moment steps by the columns' moment, so the support is checked on
  * both sides: the left side as a section of its own.
  */
-function criticalSites(spans: number[], lowAt: number[], stations: Station[], framed: (support: number) => boolean): SectionSite[] {
+function criticalSites(spans: number[], lowAt: number[], stations: Station[], framed: (support: number) => boolean, free: (support: number) => boolean): SectionSite[] {
   const n = spans.length
+  // a free end is the tip of a cantilever, not a support; a cantilever has no low point
+  const supportLabel = (j: number): string => (free(j) ? `Tip of the cantilever (span ${j === 0 ? 1 : n})` : `Support ${j + 1}`)
+  const cantilever = (i: number): boolean => (i === 0 && free(0)) || (i === n - 1 && free(n))
   const out: SectionSite[] = []
   const find = stationFinder(stations)
   const seen = new Set<number>()
@@ -122,15 +125,15 @@ function criticalSites(spans: number[], lowAt: number[], stations: Station[], fr
   for (let i = 0; i < n; i++) {
     const L = at(spans, i)
     if (i > 0 && framed(i)) add({ id: `support-${i + 1}-left`, label: `Support ${i + 1}, left side`, kind: 'support', k: find(i - 1, at(spans, i - 1)) })
-    add({ id: `support-${i + 1}`, label: framed(i) && i > 0 ? `Support ${i + 1}, right side` : `Support ${i + 1}`, kind: 'support', k: find(i, 0) })
+    add({ id: `support-${i + 1}`, label: framed(i) && i > 0 ? `Support ${i + 1}, right side` : supportLabel(i), kind: 'support', k: find(i, 0) })
     const lowX = at(lowAt, i) * L
     const tenths = [1, 2, 3, 4, 5, 6, 7, 8, 9].map((t) => ({ t, x: (t * L) / 10 }))
-    const items: SectionSite[] = [{ id: `span-${i + 1}-low`, label: `Span ${i + 1}, low point`, kind: 'lowPoint', k: find(i, lowX) }]
+    const items: SectionSite[] = cantilever(i) ? [] : [{ id: `span-${i + 1}-low`, label: `Span ${i + 1}, low point`, kind: 'lowPoint', k: find(i, lowX) }]
     for (const { t, x } of tenths) items.push({ id: `span-${i + 1}-${t}`, label: `Span ${i + 1}, ${t / 10}L`, kind: 'tenth', k: find(i, x) })
     items.sort((a, b) => a.k - b.k)
     items.forEach(add)
   }
-  add({ id: `support-${n + 1}`, label: `Support ${n + 1}`, kind: 'support', k: find(n - 1, at(spans, n - 1)) })
+  add({ id: `support-${n + 1}`, label: supportLabel(n), kind: 'support', k: find(n - 1, at(spans, n - 1)) })
   return out
 }
 
@@ -156,7 +159,7 @@ export function stressesStage(i: StressesInput): StageOutcome<ServiceStresses> {
     for (const stage of STAGES) s[stage] = stressAt(c, k, stage, M[stage])
     return s
   }
-  const sites = criticalSites(input.geometry.spans, profile.lowAt, stations, (j) => (loads.springs?.[j] ?? 0) > 0)
+  const sites = criticalSites(input.geometry.spans, profile.lowAt, stations, (j) => (loads.springs?.[j] ?? 0) > 0, (j) => loads.supports[j] === 'free')
   const stressBySection: Array<Record<Stage, StageStress>> = []
   const momentsBySection: Array<Record<Stage, MomentRange>> = []
   const sections: ServiceSection[] = sites.map((site) => {

@@ -101,6 +101,7 @@ export function shearAtSupports({ input, section, profile, losses, sections, act
   const byId = new Map(sections.map((s) => [s.id, s]))
   const shear: UlsShear[] = []
   for (let j = 0; j <= n; j++) {
+    if (input.geometry.supports?.[j] === 'free') continue // the tip of a cantilever: no support, no shear there
     const sides: Array<{ side: 'left' | 'right'; span: number; x: number }> = []
     if (j > 0) sides.push({ side: 'left', span: j - 1, x: spans[j - 1] as number })
     if (j < n) sides.push({ side: 'right', span: j, x: 0 })
@@ -153,6 +154,7 @@ export function punchingAtColumn({ input, section, profile, losses, sections, ac
   const { envelope, secondaryEnds, dTopBars } = actions
   const j = p.support - 1
   if (j > n) throw new EngineInputError('punching.support', `the member has ${n + 1} supports`)
+  if (input.geometry.supports?.[j] === 'free') throw new EngineInputError('punching.support', `support ${j + 1} is the free tip of a cantilever: it has no column`)
   const R2 = (['transfer', 'service'] as const).map((stage) => {
     const slope = (span: number): number => {
       const e = secondaryEnds[stage][span] as { start: number; end: number }

@@ -6,7 +6,7 @@
  */
 import { EngineInputError } from '../contract'
 import type { BeamLoad } from '../analysis/continuous-beam'
-import { drapes, resolveProfile, slopeIn, spanPieces } from './profile'
+import { drapes, isCantileverSpan, resolveProfile, slopeIn, spanPieces } from './profile'
 import type { ProfilePiece, TendonProfile } from './profile'
 
 export interface BalancingForce {
@@ -14,13 +14,20 @@ export interface BalancingForce {
   governing: number
 }
 
-/** Force per span to balance the line load w (N/mm): P = w L² / (8 a) (Lin). */
+/**
+ * Force per span to balance the line load w (N/mm): P = w L² / (8 a) (Lin); a cantilever is half a
+ * parabola of span 2L, so P = w L² / (2 a) with a its fall from root to tip.
+ */
 export function balancingForce(profile: TendonProfile, w: number | number[]): BalancingForce {
   const a = drapes(profile)
   const perSpan = profile.spans.map((L, i) => {
     const wi = Array.isArray(w) ? w[i] : w
     if (wi === undefined || !Number.isFinite(wi)) throw new EngineInputError(`w.${i}`, 'the balanced load must be a finite number')
     const ai = a[i] as number
+    if (isCantileverSpan(profile, i)) {
+      if (!(ai > 0)) throw new EngineInputError(`profile.supportEcc.${i === 0 ? 0 : i + 1}`, `the cantilever (span ${i + 1}) has no drape: the anchorage at its tip must lie below the tendon at the root`)
+      return (wi * L * L) / (2 * ai) // Lin, half a parabola of span 2L: P = w L² / 2a
+    }
     if (!(ai > 0)) throw new EngineInputError(`profile.spanEcc.${i}`, `span ${i + 1} has no drape: the low point must lie below the chord of its support points`)
     return (wi * L * L) / (8 * ai) // Lin: P = w L² / 8a
   })
@@ -76,8 +83,8 @@ function loadsOf(profile: TendonProfile, P: number, bySpan: ReadonlyArray<readon
   return loads
 }
 
-/** Uniform balanced load per span implied by P and the drapes, w = 8Pa/L² (Lin). */
+/** Uniform balanced load per span implied by P and the drapes, w = 8Pa/L² (Lin); 2Pa/L² on a cantilever. */
 export function balancedLoad(profile: TendonProfile, P: number): number[] {
   const a = drapes(profile)
-  return profile.spans.map((L, i) => (8 * P * (a[i] as number)) / (L * L)) // Lin: w = 8Pa/L²
+  return profile.spans.map((L, i) => ((isCantileverSpan(profile, i) ? 2 : 8) * P * (a[i] as number)) / (L * L)) // Lin: w = 8Pa/L²; half parabola 2Pa/L²
 }

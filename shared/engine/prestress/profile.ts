@@ -5,7 +5,10 @@
  * its vertex at the support; it meets the sagging parabola with a common tangent at the inflection
  * point, which lies on the straight line joining the high and low points (Lin & Burns; Bhatt,
  * Prestressed Concrete Design to Eurocodes). At the end anchorages the sagging parabola runs
- * straight to the anchor. Eccentricity e is positive below the centroid, in mm.
+ * straight to the anchor. A cantilever (an end span whose outer end is free) has one parabola with
+ * its vertex at the root support, where it meets the back span's reverse curve with zero slope,
+ * running to the anchorage at the tip (the end entry of supportEcc); its low point is not used.
+ * Eccentricity e is positive below the centroid, in mm.
  */
 import { EngineInputError } from '../contract'
 
@@ -20,6 +23,23 @@ export interface TendonProfile {
   lowPointAt?: number | number[]
   /** reverse-curve length each side of an interior support as a fraction of the span (default 0.1; 0 = kink) */
   inflection?: number
+  /** the first and/or last span is a cantilever: free at its outer end, the tendon anchored at the tip */
+  cantilever?: { left?: boolean; right?: boolean }
+}
+
+/** Whether span i of the profile is a cantilever (its outer end free). */
+export function isCantileverSpan(profile: TendonProfile, span: number): boolean {
+  const n = profile.spans.length
+  return (span === 0 && profile.cantilever?.left === true) || (span === n - 1 && profile.cantilever?.right === true)
+}
+
+/** The profile with its cantilevers marked from the supports ('free' at an end). */
+export function withCantilevers(profile: TendonProfile, supports: readonly string[] | undefined): TendonProfile {
+  if (!supports) return profile
+  const left = supports[0] === 'free'
+  const right = supports[supports.length - 1] === 'free'
+  if (!left && !right && !profile.cantilever) return profile
+  return { ...profile, cantilever: { left, right } }
 }
 
 /** One parabolic piece: e(x) = ev + c·(x − xv)² on [x0, x1] (x from the span's left support). */
@@ -51,7 +71,9 @@ function validate(profile: TendonProfile): void {
   profile.spanEcc.forEach((e, i) => {
     if (!Number.isFinite(e)) throw new EngineInputError(`profile.spanEcc.${i}`, 'must be a finite number')
   })
+  if (n === 1 && profile.cantilever?.left && profile.cantilever?.right) throw new EngineInputError('profile.cantilever', 'a single span cannot be a cantilever at both ends')
   for (let i = 0; i < n; i++) {
+    if (isCantileverSpan(profile, i)) continue
     const beta = lowPointFraction(profile, i)
     if (!(beta > 0 && beta < 1)) throw new EngineInputError(`profile.lowPointAt.${i}`, 'the low point must lie inside the span (0 < fraction < 1)')
   }
@@ -68,6 +90,11 @@ export function spanPieces(profile: TendonProfile, span: number): ProfilePiece[]
   const eLow = profile.spanEcc[span] as number
   const eLeft = profile.supportEcc[span] as number
   const eRight = profile.supportEcc[span + 1] as number
+  if (isCantileverSpan(profile, span)) {
+    // one parabola, vertex (zero slope) at the root support, to the anchorage at the tip
+    if (span === 0 && profile.cantilever?.left) return [{ x0: 0, x1: L, xv: L, ev: eRight, c: (eLeft - eRight) / (L * L) }]
+    return [{ x0: 0, x1: L, xv: 0, ev: eLeft, c: (eRight - eLeft) / (L * L) }]
+  }
   const pieces: ProfilePiece[] = []
   const lamL = span > 0 ? lambdaFrac * L : 0
   const lamR = span < n - 1 ? lambdaFrac * L : 0
@@ -134,10 +161,18 @@ export function tendonSlope(profile: TendonProfile, span: number, x: number): nu
   return slopeIn(spanPieces(profile, span), x)
 }
 
-/** Per span: sag of the tendon at its low point below the chord joining its two support points. */
+/**
+ * Per span: sag of the tendon at its low point below the chord joining its two support points; for
+ * a cantilever, the fall of the tendon from the root support to the anchorage at the tip.
+ */
 export function drapes(profile: TendonProfile): number[] {
   validate(profile)
   return profile.spans.map((_, i) => {
+    if (isCantileverSpan(profile, i)) {
+      const root = i === 0 ? profile.supportEcc[1] : profile.supportEcc[i]
+      const tip = i === 0 ? profile.supportEcc[0] : profile.supportEcc[i + 1]
+      return (tip as number) - (root as number)
+    }
     const beta = lowPointFraction(profile, i)
     const chord = (profile.supportEcc[i] as number) * (1 - beta) + (profile.supportEcc[i + 1] as number) * beta // straight chord
     return (profile.spanEcc[i] as number) - chord

@@ -15,7 +15,11 @@ import type { ProfilePiece, TendonProfile } from './profile'
 export interface PrestressMomentsInput {
   spans: number[]
   EI?: number | SpanEI[]
-  /** as analyseContinuousBeam; at a free end (cantilever) the tendon anchors at the tip */
+  /**
+   * as analyseContinuousBeam; at a free end (cantilever) the tendon anchors at the tip (the end entry
+   * of supportEcc) and follows the profile as given: its low point, or, with profile.cantilever set,
+   * one parabola from the root
+   */
   supports?: SupportKind[]
   /** rotational stiffness of the columns at each support, N·mm/rad (see columnStiffness) */
   springs?: number[]

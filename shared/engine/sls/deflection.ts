@@ -4,7 +4,10 @@
  * Ec,eff = Ecm/(1 + φ) (EN 1992-1-1 eq. (7.20)). Curvatures are computed at frequent stations and
  * integrated twice in each span (7.4.3(7), the rigorous method); where a section cracks the curvature
  * is interpolated between the uncracked and the fully cracked state with ζ = 1 − β(Mcr/M)²
- * (eqs. (7.18), (7.19), with σsr/σs = Mcr/M for bending). Deflection positive downward, mm.
+ * (eqs. (7.18), (7.19), with σsr/σs = Mcr/M for bending). A cantilever is integrated from its root
+ * with the slope of the member there (the back span's, or the support's rotation where none), and its
+ * tip deflection is limited to 2 × overhang / ratio (common practice: a cantilever as half of a span
+ * twice its length). Deflection positive downward, mm.
  */
 import { analyseContinuousBeam } from '../analysis/continuous-beam'
 import type { BeamLoad, SupportKind } from '../analysis/continuous-beam'
@@ -60,6 +63,8 @@ export interface SpanDeflection {
   /** largest of |long-term| / limit-total, after / limit-after, |long-term| / engineer's limit */
   utilisation: number
   cracked: boolean
+  /** the span is a cantilever: its deflection is the tip's, its limits taken on twice the overhang */
+  cantilever: boolean
 }
 
 export interface DeflectionResult {
@@ -87,16 +92,48 @@ export function interpolate(zeta: number, uncracked: number, cracked: number): n
   return zeta * cracked + (1 - zeta) * uncracked // EN 1992-1-1 eq. (7.18)
 }
 
-/** Deflection w(x) of one span from curvatures at equal stations: w'' = −κ, w(0) = w(L) = 0. */
-export function deflectionFromCurvature(kappa: number[], L: number): number[] {
+/** ∫κ and ∫∫κ from x = 0 at equal stations (trapezoidal rule). */
+function integrals(kappa: number[], L: number): { slope: number[]; I2: number[] } {
   const n = kappa.length - 1
   const h = L / n
   const slope: number[] = [0]
   for (let j = 1; j <= n; j++) slope.push((slope[j - 1] as number) + ((kappa[j - 1] as number) + (kappa[j] as number)) * h / 2) // ∫κ, trapezoidal rule
   const I2: number[] = [0]
   for (let j = 1; j <= n; j++) I2.push((I2[j - 1] as number) + ((slope[j - 1] as number) + (slope[j] as number)) * h / 2) // ∫∫κ
+  return { slope, I2 }
+}
+
+/** Deflection w(x) of one span from curvatures at equal stations: w'' = −κ, w(0) = w(L) = 0. */
+export function deflectionFromCurvature(kappa: number[], L: number): number[] {
+  const n = kappa.length - 1
+  const { I2 } = integrals(kappa, L)
   const end = I2[n] as number
   return I2.map((v, j) => -v + (end * j) / n) // the chord term restores w(L) = 0
+}
+
+/** Slopes w' at the two ends of a span supported at both, from its curvatures (w = −∫∫κ + x·end/L). */
+export function endSlopes(kappa: number[], L: number): { start: number; end: number } {
+  const n = kappa.length - 1
+  const { slope, I2 } = integrals(kappa, L)
+  const chord = (I2[n] as number) / L
+  return { start: chord, end: -(slope[n] as number) + chord }
+}
+
+/**
+ * Deflection of a cantilever from its curvatures, w'' = −κ, with w = 0 and w' = rootSlope at the
+ * root: at x = L for a cantilever on the left of the member ('left'), at x = 0 on the right.
+ */
+export function cantileverDeflection(kappa: number[], L: number, side: 'left' | 'right', rootSlope: number): number[] {
+  const n = kappa.length - 1
+  const { slope, I2 } = integrals(kappa, L)
+  if (side === 'right') return I2.map((v, j) => rootSlope * ((L * j) / n) - v) // w = θ·x − ∫∫κ
+  // root at L: w(x) = w'(L)·(x − L) − [∫∫κ(x) − ∫∫κ(L) − ∫κ(L)·(x − L)]
+  const SL = slope[n] as number
+  const IL = I2[n] as number
+  return I2.map((v, j) => {
+    const d = (L * j) / n - L
+    return rootSlope * d - (v - IL - SL * d)
+  })
 }
 
 export function memberDeflection(i: DeflectionInput): DeflectionResult {
@@ -122,24 +159,48 @@ export function memberDeflection(i: DeflectionInput): DeflectionResult {
   // moments do not depend on a uniform modulus, only on the relative stiffness of the spans
   const beam = analyseContinuousBeam({ spans: i.spans, EI: Is, ...(i.supports ? { supports: i.supports } : {}), ...(i.springs ? { springs: i.springs } : {}), loads: i.loads })
   const series = { x: [] as number[], span: [] as number[], shortTerm: [] as number[], longTerm: [] as number[] }
-  let x0 = 0
-  const spans = i.spans.map((L, s) => {
+  const free = (j: number): boolean => i.supports?.[j] === 'free'
+  const sideOf = (s: number): 'left' | 'right' | null => (s === 0 && free(0) ? 'left' : s === n - 1 && free(n) ? 'right' : null)
+  const xs = (L: number): number[] => Array.from({ length: stations + 1 }, (_, j) => (L * j) / stations)
+  const crackedSpans = new Set<number>()
+  /** curvatures of span s under modulus E, interpolated where it cracks (7.4.3) */
+  const curvatures = (s: number, E: number): number[] => {
+    const L = i.spans[s] as number
     const I = Is[s] as number
     const c = cracking?.[s] ?? null
-    let cracked = false
-    const curv = (M: number, E: number): number => {
+    return xs(L).map((x) => {
+      const M = beam.momentAt(s, x)
       const uncr = M / (E * I)
       if (!c) return uncr
       const Mcr = M >= 0 ? c.McrSagging : c.McrHogging
       const Icr = M >= 0 ? c.IcrSagging : c.IcrHogging
       const zeta = Math.abs(M) > 0 ? distributionCoefficient(beta, Mcr / Math.abs(M)) : 0
-      if (zeta > 0) cracked = true
-      return interpolate(zeta, uncr, M / (E * Icr))
+      if (zeta > 0) crackedSpans.add(s)
+      return interpolate(zeta, uncr, M / (E * Icr)) // EN 1992-1-1 eq. (7.18)
+    })
+  }
+  /** w along span s under modulus E: between supports, or a cantilever from the slope at its root */
+  const deflected = (s: number, E: number): number[] => {
+    const L = i.spans[s] as number
+    const side = sideOf(s)
+    if (!side) return deflectionFromCurvature(curvatures(s, E), L)
+    const back = side === 'left' ? 1 : n - 2
+    const root = side === 'left' ? 1 : n - 1
+    let rootSlope: number
+    if (back >= 0 && back < n && !sideOf(back)) {
+      const ends = endSlopes(curvatures(back, E), i.spans[back] as number) // slope continuity over the root support
+      rootSlope = side === 'left' ? ends.start : ends.end
+    } else {
+      rootSlope = -(beam.rotations[root] as number) / E // the support's rotation (counter-clockwise +) with w downward: w' = −θ
     }
+    return cantileverDeflection(curvatures(s, E), L, side, rootSlope)
+  }
+  let x0 = 0
+  const spans = i.spans.map((L, s) => {
+    const side = sideOf(s)
     const xs = Array.from({ length: stations + 1 }, (_, j) => (L * j) / stations)
-    const Ms = xs.map((x) => beam.momentAt(s, x))
-    const wShort = deflectionFromCurvature(Ms.map((M) => curv(M, i.Ecm)), L)
-    const wLong = deflectionFromCurvature(Ms.map((M) => curv(M, EcEff)), L)
+    const wShort = deflected(s, i.Ecm)
+    const wLong = deflected(s, EcEff)
     const extreme = (w: number[]): { down: number; up: number; at: number } => {
       let down = 0
       let up = 0
@@ -156,8 +217,9 @@ export function memberDeflection(i: DeflectionInput): DeflectionResult {
     const shortTerm = extreme(wShort)
     const longTerm = extreme(wLong)
     const afterConstruction = Math.max(...wLong.map((v, j) => Math.abs(v - (wShort[j] as number))))
-    const limitTotal = L / ratioTotal // EN 1992-1-1 7.4.1(4): span/250 under quasi-permanent loads
-    const limitAfter = L / ratioAfter // EN 1992-1-1 7.4.1(5): span/500 after construction
+    const Lref = side ? 2 * L : L // a cantilever: twice the overhang (common practice)
+    const limitTotal = Lref / ratioTotal // EN 1992-1-1 7.4.1(4): span/250 under quasi-permanent loads
+    const limitAfter = Lref / ratioAfter // EN 1992-1-1 7.4.1(5): span/500 after construction
     const limitEngineer = i.limit ?? null
     const longMax = Math.max(longTerm.down, -longTerm.up)
     const utilisation = Math.max(longMax / limitTotal, afterConstruction / limitAfter, limitEngineer ? longMax / limitEngineer : 0)
@@ -169,7 +231,7 @@ export function memberDeflection(i: DeflectionInput): DeflectionResult {
       series.longTerm.push(wLong[j] as number)
     })
     x0 += L
-    return { span: s, L, shortTerm, longTerm, afterConstruction, limitTotal, limitAfter, limitEngineer, utilisation, cracked }
+    return { span: s, L, shortTerm, longTerm, afterConstruction, limitTotal, limitAfter, limitEngineer, utilisation, cracked: crackedSpans.has(s), cantilever: side !== null }
   })
   return { EcEff, spans, series }
 }
