@@ -27,7 +27,7 @@ const FIELD_LABELS: Record<string, string> = {
 
 /** Words for the engine's option ids, per field (list fields by the field's path). */
 const OPTION_WORDS: Record<string, Record<string, string>> = {
-  'geometry.supports': { pinned: 'Pinned', fixed: 'Fixed' },
+  'geometry.supports': { pinned: 'Pinned', fixed: 'Fixed', free: 'Free (cantilever tip)' },
   'section.kind': { 'slab-strip': 'Slab strip', 'tee-beam': 'T band beam', 'ell-beam': 'L band beam', 'rectangle': 'Rectangle', 'flanged': 'Flanged section' },
   'materials.cement': { R: 'Class R (rapid hardening)', N: 'Class N (normal)', S: 'Class S (slow)' },
   'tendon.strand': { '12.5': '12.5 mm strand', '12.9': '12.9 mm strand', '15.2': '15.2 mm strand', '15.7': '15.7 mm strand' },

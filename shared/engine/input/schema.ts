@@ -304,6 +304,10 @@ function refineMember(v: z.output<z.ZodObject<typeof memberInputShape>>, ctx: Ct
   if (sup && sup.length === n + 1 && sup[0] === 'free' && sup[n] === 'free' && n <= 2) {
     issue(['geometry', 'supports', 0], n === 1 ? 'A single span free at both ends has no support' : 'Two cantilevers need a span between two supports: give at least three spans, or make one end pinned or fixed')
   }
+  if (sup && sup.length === n + 1 && n === 1 && (sup[0] === 'free') !== (sup[1] === 'free')) {
+    const root = sup[0] === 'free' ? 1 : 0
+    if (sup[root] !== 'fixed' && v.columns.where !== 'all') issue(['geometry', 'supports', root], `Support ${root + 1}: a lone cantilever turns about a pinned root; make the root fixed or give it columns`)
+  }
   if (v.columns.where !== 'none' && v.columns.heightBelow === 0 && v.columns.heightAbove === 0) {
     issue(['columns', 'heightBelow'], 'Give the height of the columns below or above the member')
   }

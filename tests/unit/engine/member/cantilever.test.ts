@@ -157,3 +157,10 @@ describe('a free support in the wrong place', () => {
     expect(() => designMember({ ...EDGE, punching: { column: 'edge', support: 1 } })).toThrow(/free tip of a cantilever/)
   })
 })
+
+describe('a lone cantilever', () => {
+  it('needs a fixed root or columns, said in words', () => {
+    expect(() => parseMemberInput({ ...EDGE, geometry: { spans: [2000], supports: ['free', 'pinned'] } })).toThrow(/Support 2: a lone cantilever turns about a pinned root/)
+    expect(() => parseMemberInput({ ...EDGE, geometry: { spans: [2000], supports: ['free', 'fixed'] } })).not.toThrow()
+  })
+})
