@@ -5,8 +5,14 @@
  * since the response of a continuous beam to a load on one span dies away geometrically with the
  * distance, only the pairs near a point can decide its envelope: the rest give 0 to within
  * FAR_SHARE of the nearest responses, and are counted as 0.
+ *
+ * What a span carries when it is loaded is by default 1 N/mm over it; `spanLoads` may give each span
+ * its own set instead (the uniform imposed load with the point, line and partial loads on that span,
+ * each at its combination value), and the values are then those of the sets, not per N/mm.
  */
-import type { ContinuousBeamResult, SpanUnitResponses } from './continuous-beam'
+import type { BeamLoad, ContinuousBeamResult, SpanUnitResponses } from './continuous-beam'
+import { simpleSpan } from './span'
+import type { SimpleSpan } from './span'
 
 /** A response quantity linear in the loads: a moment or shear at x in a span, a support's reaction or its couple (the columns' moment). */
 export type ResponseQuantity =
@@ -42,12 +48,27 @@ export function quantityOf(r: ContinuousBeamResult, q: ResponseQuantity): number
  */
 interface UnitTrace { span: number; lo: number; hi: number; MA: Float64Array; MB: Float64Array; R: Float64Array; C: Float64Array }
 
-export function patternLoading(responses: SpanUnitResponses, patterns: ReadonlyArray<readonly number[]>): PatternLoading {
+export function patternLoading(responses: SpanUnitResponses, patterns: ReadonlyArray<readonly number[]>, spanLoads?: (span: number) => BeamLoad[]): PatternLoading {
   const spans = responses.model.spans
   const n = spans.length
+  // the loads a loaded span carries, and their simple-span statics (kept once computed)
+  const setOf = (span: number): BeamLoad[] => (spanLoads ? spanLoads(span) : [{ kind: 'udl', span, w: 1 }])
+  const statics = new Map<number, SimpleSpan[]>()
+  const staticsOf = (span: number): SimpleSpan[] => {
+    let list = statics.get(span)
+    if (!list) {
+      list = setOf(span).map((l) => simpleSpan(l, spans[span] as number))
+      statics.set(span, list)
+    }
+    return list
+  }
   // patterns of one or two spans are local; the others are solved once each
   const local = patterns.map((p) => p.length <= 2 && p.length > 0)
-  const solved = patterns.map((p, i) => (local[i] ? null : responses.combine(Array.from({ length: n }, (_, s) => (p.includes(s) ? 1 : 0)))))
+  const solved = patterns.map((p, i) => {
+    if (local[i]) return null
+    if (!spanLoads) return responses.combine(Array.from({ length: n }, (_, s) => (p.includes(s) ? 1 : 0)))
+    return responses.model.analyse(p.flatMap((s) => setOf(s)))
+  })
   const byFirst = new Map<number, number[]>()
   let localCount = 0
   patterns.forEach((p, i) => {
@@ -60,7 +81,7 @@ export function patternLoading(responses: SpanUnitResponses, patterns: ReadonlyA
   const trace = (span: number): UnitTrace => {
     const known = traces.get(span)
     if (known) return known
-    const r = responses.model.analyse([{ kind: 'udl', span, w: 1 }])
+    const r = responses.model.analyse(setOf(span))
     const MA = new Float64Array(n)
     const MB = new Float64Array(n)
     let peak = 0
@@ -81,7 +102,9 @@ export function patternLoading(responses: SpanUnitResponses, patterns: ReadonlyA
     return t
   }
   // q of the unit response of a span: end moments between the supports plus the loaded span's own
-  // simple-span moment w·x(L − x)/2 and shear w(L/2 − x) (statics), 0 beyond the trace
+  // simple-span moment w·x(L − x)/2 and shear w(L/2 − x) (statics), or its set's, 0 beyond the trace
+  const ownMoment = (s: number, x: number, L: number): number => (spanLoads ? staticsOf(s).reduce((m, p) => m + p.M0(x), 0) : (x * (L - x)) / 2)
+  const ownShear = (s: number, x: number, L: number): number => (spanLoads ? staticsOf(s).reduce((v, p) => v + p.V0(x), 0) : L / 2 - x)
   const unitValue = (s: number, q: ResponseQuantity): number => {
     const t = trace(s)
     if (q.kind === 'reaction') return q.support >= t.lo && q.support <= t.hi + 1 ? (t.R[q.support - t.lo] as number) : 0
@@ -90,8 +113,8 @@ export function patternLoading(responses: SpanUnitResponses, patterns: ReadonlyA
     const L = spans[q.span] as number
     const a = t.MA[q.span - t.lo] as number
     const b = t.MB[q.span - t.lo] as number
-    if (q.kind === 'moment') return a * (1 - q.x / L) + (b * q.x) / L + (q.span === s ? (q.x * (L - q.x)) / 2 : 0)
-    return (b - a) / L + (q.span === s ? L / 2 - q.x : 0)
+    if (q.kind === 'moment') return a * (1 - q.x / L) + (b * q.x) / L + (q.span === s ? ownMoment(s, q.x, L) : 0)
+    return (b - a) / L + (q.span === s ? ownShear(s, q.x, L) : 0)
   }
   const value = (q: ResponseQuantity, p: number): number => {
     const r = solved[p]

@@ -80,6 +80,49 @@ const spanSchema = z.number({ error: 'Span length: enter a number' })
   .max(40000, 'A span must not exceed 40 m')
   .meta(meta({ label: 'Span length', unit: 'm', precision: 2, group: 'geometry', symbol: 'L' }))
 
+/**
+ * Loads beyond the uniform ones, each on one span, permanent or imposed with its own ψ factors
+ * (EN 1990 Table A1.1): a point load on the member, a line load across it (a wall or façade, per
+ * metre of the width it crosses, taken over the loaded width) and a uniform load over part of a span.
+ */
+function addedLoad<T extends z.ZodRawShape>(what: string, shape: T) {
+  const m = (label: string, unit: DisplayUnit, precision: number, extra: Partial<FieldMeta> = {}): FieldMeta => ({ label, unit, precision, group: 'loads', ...extra })
+  return z.object({
+    span: z.number({ error: `${what}: enter the span number` }).int(`${what}: the span is a whole number`).min(1, `${what}: spans are numbered from 1`).max(1000, `${what}: at most span 1000`)
+      .meta(m('Span (numbered from 1)', '', 0)),
+    ...shape,
+    type: z.enum(['permanent', 'imposed'], { error: `${what}: permanent or imposed` }).default('imposed')
+      .meta(m('Action', '', 0, { help: 'permanent (a wall, a façade) or imposed (a plant load, a store)' })),
+    psi0: z.number({ error: `${what}, ψ0: enter a number` }).min(0, `${what}: ψ0 must be at least 0`).max(1, `${what}: ψ0 must not exceed 1`).default(0.7)
+      .meta(m('ψ0', '', 2, { symbol: '\psi_0', clause: 'EN 1990 Table A1.1' })),
+    psi1: z.number({ error: `${what}, ψ1: enter a number` }).min(0, `${what}: ψ1 must be at least 0`).max(1, `${what}: ψ1 must not exceed 1`).default(0.5)
+      .meta(m('ψ1', '', 2, { symbol: '\psi_1', clause: 'EN 1990 Table A1.1' })),
+    psi2: z.number({ error: `${what}, ψ2: enter a number` }).min(0, `${what}: ψ2 must be at least 0`).max(1, `${what}: ψ2 must not exceed 1`).default(0.3)
+      .meta(m('ψ2', '', 2, { symbol: '\psi_2', clause: 'EN 1990 Table A1.1' })),
+  })
+}
+
+const position = (what: string, label: string) => z.number({ error: `${what}: enter the ${label.toLowerCase()}` }).min(0, `${what}: the ${label.toLowerCase()} must not be negative`).max(40000, `${what}: the ${label.toLowerCase()} must not exceed 40 m`)
+  .meta(meta({ label, unit: 'm', precision: 2, group: 'loads' }))
+
+const pointLoadSchema = addedLoad('Point load', {
+  at: position('Point load', 'Distance from the left support of the span'),
+  P: z.number({ error: 'Point load: enter the load' }).min(-1e7, 'Point load: at most 10 000 kN').max(1e7, 'Point load: at most 10 000 kN')
+    .meta(meta({ label: 'Load (downward +)', unit: 'kN', precision: 1, group: 'loads', symbol: 'F', help: 'on the member; for a slab strip, the share of one metre of strip width' })),
+})
+const lineLoadSchema = addedLoad('Line load', {
+  at: position('Line load', 'Distance from the left support of the span'),
+  w: z.number({ error: 'Line load: enter the load' }).min(-1000, 'Line load: at most 1000 kN/m').max(1000, 'Line load: at most 1000 kN/m')
+    .meta(meta({ label: 'Load per metre of the line (downward +)', unit: 'kN/m', precision: 2, group: 'loads', symbol: 'w_l', help: 'a wall or façade across the member, taken over the width loaded' })),
+})
+const partialLoadSchema = addedLoad('Partial load', {
+  from: position('Partial load', 'Start, from the left support of the span'),
+  length: z.number({ error: 'Partial load: enter the length' }).positive('Partial load: the length must be more than zero').max(40000, 'Partial load: the length must not exceed 40 m')
+    .meta(meta({ label: 'Length loaded', unit: 'm', precision: 2, group: 'loads' })),
+  q: z.number({ error: 'Partial load: enter the load' }).min(-0.05, 'Partial load: at most 50 kN/m²').max(0.05, 'Partial load: at most 50 kN/m²')
+    .meta(meta({ label: 'Load per unit area (downward +)', unit: 'kN/m²', precision: 2, group: 'loads', symbol: 'q_p', help: 'over the length given, on the width loaded' })),
+})
+
 const eccSchema = z.number({ error: 'Eccentricity: enter a number' })
   .min(-2000, 'The eccentricity must lie within the section').max(2000, 'The eccentricity must lie within the section')
   .meta(meta({ label: 'Eccentricity (below centroid +)', unit: 'mm', precision: 1, group: 'profile', symbol: 'e' }))
@@ -174,6 +217,12 @@ export const memberInputShape = {
     balanceSelfWeight: fraction({ label: 'Self-weight balanced', precision: 0, group: 'loads', help: 'commonly 60–100 % in slabs' }, 0, 1.5).default(0.9),
     balanceSuperimposed: fraction({ label: 'Superimposed dead load balanced', precision: 0, group: 'loads' }, 0, 1).default(0),
     balanceImposed: fraction({ label: 'Imposed load balanced', precision: 0, group: 'loads' }, 0, 1).default(0),
+    points: z.array(pointLoadSchema).max(100, 'At most 100 point loads').default([])
+      .meta(meta({ label: 'Point loads', unit: '', precision: 0, group: 'loads', help: 'each on one span, at a distance from its left support' })),
+    lines: z.array(lineLoadSchema).max(100, 'At most 100 line loads').default([])
+      .meta(meta({ label: 'Line loads across the member', unit: '', precision: 0, group: 'loads', help: 'walls and façades crossing the member, per metre of their length' })),
+    partials: z.array(partialLoadSchema).max(100, 'At most 100 partial loads').default([])
+      .meta(meta({ label: 'Uniform loads over part of a span', unit: '', precision: 0, group: 'loads' })),
   }),
   losses: z.object({
     model: z.enum(['detailed', 'percentage']).default('detailed')
@@ -314,6 +363,21 @@ function refineMember(v: z.output<z.ZodObject<typeof memberInputShape>>, ctx: Ct
   if (v.columns.where !== 'none' && sup?.some((k, j) => k === 'fixed' && (v.columns.where === 'all' || (j > 0 && j < n)))) {
     issue(['columns', 'where'], 'A fixed support already stops rotation: give columns only at pinned supports')
   }
+  const within = (kind: 'points' | 'lines' | 'partials', what: string): void => {
+    v.loads[kind].forEach((l, k) => {
+      const L = v.geometry.spans[l.span - 1]
+      if (L === undefined) {
+        issue(['loads', kind, k, 'span'], `${what} ${k + 1}: there is no span ${l.span}; the member has ${n} span${n === 1 ? '' : 's'}`)
+        return
+      }
+      const start = 'at' in l ? l.at : l.from
+      const end = 'length' in l ? l.from + l.length : start
+      if (end > L + 1e-6) issue(['loads', kind, k, 'at' in l ? 'at' : 'length'], `${what} ${k + 1}: it lies beyond the end of span ${l.span} (${(L / 1000).toFixed(2)} m long)`)
+    })
+  }
+  within('points', 'Point load')
+  within('lines', 'Line load')
+  within('partials', 'Partial load')
   const s = v.section
   if (s.kind === 'rectangle' && s.b === undefined) issue(['section', 'b'], 'Give the width of the rectangle')
   if (s.kind === 'tee-beam' || s.kind === 'ell-beam' || s.kind === 'flanged') {

@@ -26,18 +26,17 @@ export interface ColumnMoments extends ColumnJoint {
 export function columnMoments(loads: MemberLoads, profile: MemberProfile, losses: MemberLosses): ColumnMoments[] {
   const cols = loads.columns
   if (!cols) return []
-  const G = loads.selfWeight + loads.superimposed
-  const permanent = loads.responses.combine(loads.responses.model.spans.map(() => G))
+  const permanent = loads.permanent
   // the couple reaction acts on the member; the columns take it the other way round
   return cols.joints.map((j) => {
-    const imposed = loads.patternLoading.range({ kind: 'couple', support: j.support })
+    const imposed = loads.imposedRange({ kind: 'couple', support: j.support }, 'characteristic')
     const k = j.kBelow + j.kAbove
     return {
       ...j,
       shareBelow: k > 0 ? j.kBelow / k : 0,
       permanent: -(permanent.reactionCouples[j.support] as number),
-      imposedMin: -loads.imposed * imposed.max,
-      imposedMax: -loads.imposed * imposed.min,
+      imposedMin: -imposed.max,
+      imposedMax: -imposed.min,
       prestressTransfer: -(profile.couplesPerUnitForce[j.support] as number) * losses.transfer.Pmean,
       prestressService: -(profile.couplesPerUnitForce[j.support] as number) * losses.service.Pmean,
     }

@@ -30,7 +30,7 @@ import type { MemberFire } from './fire'
 import { anchorageStage } from './anchorage-zone'
 import { columnMoments } from './column-moments'
 import { quantitiesStage } from './quantities'
-import { designLoads } from './design-loads'
+import { designForces, designLoads } from './design-loads'
 import type { DesignLoad } from './design-loads'
 import type { MemberQuantities } from './quantities'
 import type { ColumnMoments } from './column-moments'
@@ -98,6 +98,8 @@ export interface Design {
   anchorages: AnchorageEnd[]
   /** each load with its combination factors and values (EN 1990 6.4.3, 6.5.3) */
   designLoads: DesignLoad[]
+  /** each point load and line load across the member with its combination factors and values, N */
+  designForces: DesignLoad[]
   /** post-tensioning quantities for the cost plan */
   quantities: MemberQuantities
   /** the columns at the supports: their stiffness and the moments the member passes into them, or null */
@@ -192,7 +194,7 @@ function designRecord(d: ServiceDesign, later: LaterResults): Design {
       supportMoments: {
         selfWeight: supportMoments(loads.cases.selfWeight),
         superimposed: supportMoments(loads.cases.superimposed),
-        imposed: loads.patterns.map((_, p) => supportLine.map((q) => loads.imposed * loads.patternLoading.value(q, p))),
+        imposed: loads.patterns.map((_, p) => supportLine.map((q) => loads.arrangements('characteristic').value(q, p))),
       },
     },
     limits: stresses.limits,
@@ -213,6 +215,7 @@ function designRecord(d: ServiceDesign, later: LaterResults): Design {
     anchorages: later.anchorages,
     quantities: later.quantities,
     designLoads: designLoads(input, loads),
+    designForces: designForces(input, loads),
     columns: loads.columns ? { Ecm: loads.columns.Ecm, I: loads.columns.I, joints: columnMoments(loads, profile, losses) } : null,
   }
 }

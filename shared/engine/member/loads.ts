@@ -1,15 +1,19 @@
 /**
- * Loads stage: line loads from the section and the loaded width, the imposed-load arrangements,
- * and the moments of the load cases at the stations: the beam is factored once, a load on every
- * span is one O(n) solve, and the arrangements' envelope at each station comes from the pattern
- * loading (analysis/pattern-loading.ts), linear in the spans.
+ * Loads stage: line loads from the section and the loaded width, the point, line and partial loads
+ * (added-loads.ts), the imposed-load arrangements, and the moments of the load cases at the
+ * stations: the beam is factored once, a load on every span is one O(n) solve, and the
+ * arrangements' envelope at each station comes from the pattern loading (analysis/pattern-loading.ts),
+ * linear in the spans. An imposed point, line or partial load follows the arrangement of its span,
+ * at its own ψ in each combination.
  */
 import type { StageOutcome } from '../common/stage'
 import type { MemberInput } from '../input/schema'
 import { spanUnitResponses } from '../analysis/continuous-beam'
-import type { SpanUnitResponses, SupportKind } from '../analysis/continuous-beam'
+import type { BeamLoad, ContinuousBeamResult, SpanUnitResponses, SupportKind } from '../analysis/continuous-beam'
 import { patternLoading } from '../analysis/pattern-loading'
-import type { PatternLoading } from '../analysis/pattern-loading'
+import type { PatternLoading, ResponseQuantity } from '../analysis/pattern-loading'
+import { addedLoads, combinationFactor, scaledLoad } from './added-loads'
+import type { AddedLoad, CombinationValue } from './added-loads'
 import type { MemberSection } from './section'
 import { memberColumns } from './columns'
 import type { MemberColumns } from './columns'
@@ -21,10 +25,15 @@ export interface CaseMoments {
   /** N·mm at each station */
   selfWeight: number[]
   superimposed: number[]
-  /** the imposed load on every span */
-  imposedAll: number[]
-  /** least and greatest moment of the imposed load over the arrangements (an unloaded one not counted) */
+  /** the permanent point, line and partial loads */
+  addedPermanent: number[]
+  /** the imposed loads on every span at their quasi-permanent values ψ2·Qk (EN 1990 eq. (6.16b)) */
+  imposedAllQuasiPermanent: number[]
+  /** least and greatest moment of the imposed loads over the arrangements (an unloaded one not counted), characteristic */
   imposedRange: { min: number[]; max: number[] }
+  /** the same at the frequent (ψ1) and quasi-permanent (ψ2) values of each imposed load */
+  imposedRangeFrequent: { min: number[]; max: number[] }
+  imposedRangeQuasiPermanent: { min: number[]; max: number[] }
 }
 
 export interface MemberLoads {
@@ -42,6 +51,14 @@ export interface MemberLoads {
   responses: SpanUnitResponses
   /** the arrangements of the imposed load on that beam, per N/mm on the loaded spans */
   patternLoading: PatternLoading
+  /** the point, line and partial loads */
+  added: AddedLoad[]
+  /** the member under its permanent loads: self-weight, superimposed and the added permanent loads */
+  permanent: ContinuousBeamResult
+  /** the arrangements of all imposed loads, each at its value in the combination: N and N·mm, not per N/mm */
+  arrangements(c: CombinationValue): PatternLoading
+  /** least and greatest value of q over the arrangements of the imposed loads in the combination */
+  imposedRange(q: ResponseQuantity, c: CombinationValue): { min: number; max: number }
   cases: CaseMoments
 }
 
@@ -83,18 +100,66 @@ export function loadsStage(input: MemberInput, section: MemberSection, stations:
   const springs = columns?.springs
   const responses = spanUnitResponses({ spans, EI: section.EI, supports, ...(springs ? { springs } : {}) })
   const patterns = loadPatterns(input)
-  const arrangements = patternLoading(responses, patterns.map((p) => p.loadedSpans))
+  const unitArrangements = patternLoading(responses, patterns.map((p) => p.loadedSpans))
+  const added = addedLoads(input, trib)
+  const addedImposed = added.filter((l) => l.type === 'imposed')
+  const addedPermanentLoads = added.filter((l) => l.type === 'permanent').map((l) => l.beam)
+  const psiOf: Record<CombinationValue, number> = { characteristic: 1, psi0: input.loads.psi0, frequent: input.loads.psi1, quasiPermanent: input.loads.psi2 } // EN 1990 Table A1.1
+  // each combination's arrangements: with no added imposed load, the unit arrangements scaled by ψ·q;
+  // otherwise each loaded span carries ψ·q and its own added imposed loads at their own ψ
+  const byCombination = new Map<CombinationValue, PatternLoading>()
+  const arrangements = (c: CombinationValue): PatternLoading => {
+    let a = byCombination.get(c)
+    if (a) return a
+    const q = psiOf[c] * imposed
+    if (addedImposed.length === 0) {
+      a = {
+        patterns: unitArrangements.patterns,
+        value: (x, p) => q * unitArrangements.value(x, p),
+        range: (x) => {
+          const r = unitArrangements.range(x)
+          return q >= 0 ? { min: q * r.min, max: q * r.max } : { min: q * r.max, max: q * r.min }
+        },
+      }
+    } else {
+      const onSpan = new Map<number, BeamLoad[]>()
+      for (const l of addedImposed) onSpan.set(l.span, [...(onSpan.get(l.span) ?? []), scaledLoad(l.beam, combinationFactor(l, c))])
+      a = patternLoading(responses, patterns.map((p) => p.loadedSpans), (span) => [{ kind: 'udl', span, w: q }, ...(onSpan.get(span) ?? [])])
+    }
+    byCombination.set(c, a)
+    return a
+  }
+  const imposedRange = (q: ResponseQuantity, c: CombinationValue): { min: number; max: number } => arrangements(c).range(q)
   // linear elastic analysis (EN 1992-1-1 5.4): each case is the sum of the unit-span cases, found in one solve
-  const along = (w: number): number[] => {
-    const r = responses.combine(spans.map(() => w))
-    return stations.map((st) => r.momentAt(st.span, st.x))
+  const along = (r: ContinuousBeamResult): number[] => stations.map((st) => r.momentAt(st.span, st.x))
+  const uniform = (w: number): ContinuousBeamResult => responses.combine(spans.map(() => w))
+  const permanent = responses.model.analyse([...spans.map((_, span) => ({ kind: 'udl' as const, span, w: selfWeight + superimposed })), ...addedPermanentLoads])
+  const rangesOf = (c: CombinationValue): { min: number[]; max: number[] } => {
+    const r = stations.map((st) => imposedRange({ kind: 'moment', span: st.span, x: st.x }, c))
+    return { min: r.map((v) => v.min), max: r.map((v) => v.max) }
   }
-  const ranges = stations.map((st) => arrangements.range({ kind: 'moment', span: st.span, x: st.x }))
+  const qp = responses.model.analyse([
+    ...spans.map((_, span) => ({ kind: 'udl' as const, span, w: psiOf.quasiPermanent * imposed })),
+    ...addedImposed.map((l) => scaledLoad(l.beam, combinationFactor(l, 'quasiPermanent'))),
+  ]) // EN 1990 eq. (6.16b): ψ2·Qk of every imposed load
+  const characteristic = rangesOf('characteristic')
   const cases: CaseMoments = {
-    selfWeight: along(selfWeight),
-    superimposed: along(superimposed),
-    imposedAll: along(imposed),
-    imposedRange: { min: ranges.map((r) => imposed * r.min), max: ranges.map((r) => imposed * r.max) },
+    selfWeight: along(uniform(selfWeight)),
+    superimposed: along(uniform(superimposed)),
+    addedPermanent: addedPermanentLoads.length > 0 ? along(responses.model.analyse(addedPermanentLoads)) : stations.map(() => 0),
+    imposedAllQuasiPermanent: along(qp),
+    imposedRange: characteristic,
+    imposedRangeFrequent: addedImposed.length > 0 ? rangesOf('frequent') : scaleRange(characteristic, psiOf.frequent),
+    imposedRangeQuasiPermanent: addedImposed.length > 0 ? rangesOf('quasiPermanent') : scaleRange(characteristic, psiOf.quasiPermanent),
   }
-  return { result: { supports, columns, springs, selfWeight, superimposed, imposed, patterns, responses, patternLoading: arrangements, cases }, checks: [], warnings: [] }
+  return {
+    result: { supports, columns, springs, selfWeight, superimposed, imposed, patterns, responses, patternLoading: unitArrangements, added, permanent, arrangements, imposedRange, cases },
+    checks: [],
+    warnings: [],
+  }
+}
+
+/** A range at a factor ψ ≥ 0. */
+function scaleRange(r: { min: number[]; max: number[] }, psi: number): { min: number[]; max: number[] } {
+  return { min: r.min.map((v) => psi * v), max: r.max.map((v) => psi * v) }
 }

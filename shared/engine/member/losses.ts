@@ -151,10 +151,9 @@ export function lossesStage({ input, section, loads, profile, balancing, station
     const shr = (t: number): number => shrinkageStrain({ fck, RH, h0: sec.h0, ts: input.losses.curingEnd, t, cement: input.materials.cement }).total
     epsCs = shr(tEnd) - shr(t0) // only the shrinkage after stressing shortens the tendon
     const cls = Number(input.losses.relaxationClass) as 1 | 2 | 3
-    const psi2 = input.loads.psi2
-    const qpAll = cases.imposedAll // quasi-permanent imposed load on all spans
+    const qpAll = cases.imposedAllQuasiPermanent // quasi-permanent imposed loads on all spans, each at ψ2
     const sigmaQP = stations.map((_, k) => {
-      const Mext = at(cases.selfWeight, k) + at(cases.superimposed, k) + psi2 * at(qpAll, k) // EN 1990 eq. (6.16b)
+      const Mext = at(cases.selfWeight, k) + at(cases.superimposed, k) + at(cases.addedPermanent, k) + at(qpAll, k) // EN 1990 eq. (6.16b)
       const Mtot = Mext - at(P0, k) * at(e, k) + mean0 * at(m2Unit, k)
       return sigmaAtTendon(at(P0, k), k, Mtot)
     })

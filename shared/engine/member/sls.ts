@@ -18,6 +18,7 @@ import type { CrackedSectionInput, CrackedSectionResult, SteelLayer } from '../s
 import { crackRequirement, crackWidth, decompressionCheck } from '../sls/cracking'
 import type { Combination } from '../sls/cracking'
 import type { MemberLoads } from './loads'
+import { combinationFactor, scaledLoad } from './added-loads'
 import type { MemberLosses } from './losses'
 import type { MemberProfile } from './profile'
 import type { MemberSection } from './section'
@@ -127,7 +128,9 @@ export function slsStage({ input, section, loads, profile, losses, stresses }: S
     fck: c28.fck, RH: input.materials.RH * 100, h0: sec.h0, t0: input.materials.ageAtStressing, t: input.losses.serviceLife, cement: input.materials.cement,
   })
   const wQP = loads.selfWeight + loads.superimposed + input.loads.psi2 * loads.imposed // EN 1990 eq. (6.16b)
-  const beamLoads: BeamLoad[] = [...spans.map((_, i) => ({ kind: 'udl' as const, span: i, w: wQP })), ...equivalentLoads(profile.profile, P)]
+  // the added loads: permanent ones whole, imposed ones at their own ψ2 (EN 1990 eq. (6.16b))
+  const addedQP = loads.added.map((l) => scaledLoad(l.beam, combinationFactor(l, 'quasiPermanent')))
+  const beamLoads: BeamLoad[] = [...spans.map((_, i) => ({ kind: 'udl' as const, span: i, w: wQP })), ...addedQP, ...equivalentLoads(profile.profile, P)]
   const Icr = (faceName: 'sagging' | 'hogging', e: number): number => {
     const steel: SteelLayer[] = []
     const dBars = faceName === 'sagging' ? h - bb.cover - bb.diameter / 2 : h - bt.cover - bt.diameter / 2

@@ -1,7 +1,8 @@
 /**
  * The stations along the member where every stage evaluates forces, moments and stresses: a grid
- * of twentieths of each span, the low point, and the ends of the profile's parabolas (where the
- * curvature of the tendon jumps), so that no change of the profile falls between two stations.
+ * of twentieths of each span, the low point, the ends of the profile's parabolas (where the
+ * curvature of the tendon jumps) and the point, line and partial loads' positions (where the moment
+ * peaks or changes its law), so that no change of the profile or the loads falls between two stations.
  */
 import { at } from '../common/numeric'
 import type { MemberInput } from '../input/schema'
@@ -37,9 +38,15 @@ export function stationGrid(input: MemberInput): Station[] {
   const lowAt = lowPointShares(input)
   const lambda = input.profile.inflection
   const out: Station[] = []
+  // where the added loads sit (the schema keeps them within their spans)
+  const loadsAt = new Map<number, number[]>()
+  const mark = (span: number, ...x: number[]): void => void loadsAt.set(span - 1, [...(loadsAt.get(span - 1) ?? []), ...x])
+  for (const l of input.loads.points) mark(l.span, l.at)
+  for (const l of input.loads.lines) mark(l.span, l.at)
+  for (const l of input.loads.partials) mark(l.span, l.from, l.from + l.length)
   let offset = 0
   spans.forEach((L, i) => {
-    const xs: number[] = []
+    const xs: number[] = [...(loadsAt.get(i) ?? [])]
     for (let k = 0; k <= 20; k++) xs.push((L * k) / 20)
     xs.push(at(lowAt, i) * L)
     const lamL = i > 0 ? lambda * L : 0

@@ -32,16 +32,19 @@ export interface StressesInput {
 
 /** External moment at a station for each stage: [min, max]; transfer carries self-weight only. */
 export function stageMoments(input: MemberInput, loads: MemberLoads, k: number): Record<Stage, MomentRange> {
-  const G = at(loads.cases.selfWeight, k) + at(loads.cases.superimposed, k)
-  const qMax = Math.max(0, at(loads.cases.imposedRange.max, k)) // an unloaded arrangement is always possible (imposed load absent)
-  const qMin = Math.min(0, at(loads.cases.imposedRange.min, k))
-  const psi = { characteristic: 1, frequent: input.loads.psi1, quasiPermanent: input.loads.psi2 } // EN 1990 6.5.3
-  const t = at(loads.cases.selfWeight, k)
+  const c = loads.cases
+  const G = at(c.selfWeight, k) + at(c.superimposed, k) + at(c.addedPermanent, k)
+  // each imposed load at its value in the combination (ψ per load); an unloaded arrangement is always possible (imposed load absent)
+  const range = (r: { min: number[]; max: number[] }): { qMin: number; qMax: number } => ({ qMin: Math.min(0, at(r.min, k)), qMax: Math.max(0, at(r.max, k)) })
+  const ch = range(c.imposedRange)
+  const fr = range(c.imposedRangeFrequent)
+  const qp = range(c.imposedRangeQuasiPermanent)
+  const t = at(c.selfWeight, k)
   return {
     transfer: { min: t, max: t },
-    characteristic: { min: G + psi.characteristic * qMin, max: G + psi.characteristic * qMax }, // EN 1990 eq. (6.14b)
-    frequent: { min: G + psi.frequent * qMin, max: G + psi.frequent * qMax }, // EN 1990 eq. (6.15b)
-    quasiPermanent: { min: G + psi.quasiPermanent * qMin, max: G + psi.quasiPermanent * qMax }, // EN 1990 eq. (6.16b)
+    characteristic: { min: G + ch.qMin, max: G + ch.qMax }, // EN 1990 eq. (6.14b)
+    frequent: { min: G + fr.qMin, max: G + fr.qMax }, // EN 1990 eq. (6.15b): ψ1 of each imposed load
+    quasiPermanent: { min: G + qp.qMin, max: G + qp.qMax }, // EN 1990 eq. (6.16b): ψ2 of each imposed load
   }
 }
 

@@ -32,19 +32,19 @@ export function ulsActions(input: MemberInput, section: MemberSection, loads: Me
   const factors = { gammaGsup: u.gammaG, gammaQ: u.gammaQ, psi0: input.loads.psi0, xi: u.xi, gammaP: u.gammaP }
   const cases = ulsCaseNames(n, u.combination, factors).filter((c) => input.loads.pattern !== 'all-spans' || c.id.endsWith('.all'))
   const expressions = ulsExpressions(u.combination, factors)
-  const G = loads.selfWeight + loads.superimposed
-  const Q = loads.imposed
-  const permanent = loads.responses.combine(spans.map(() => G)) // G on every span, one solve
+  const permanent = loads.permanent // every permanent load, one solve
   // each case: γG·G on every span and γQ·Q on the loaded ones; γQ ≥ 0, so the extremes over the
-  // arrangements of the imposed load give the extremes over the cases (superposition)
+  // arrangements of the imposed loads give the extremes over the cases (superposition); eq. (6.10a)
+  // takes each imposed load at its own ψ0
   const envelope = (q: ResponseQuantity): { min: number; max: number } => {
     const g = quantityOf(permanent, q)
-    const r = loads.patternLoading.range(q)
     let min = Infinity
     let max = -Infinity
     for (const e of expressions) {
-      min = Math.min(min, e.gG * g + e.gQ * Q * r.min)
-      max = Math.max(max, e.gG * g + e.gQ * Q * r.max)
+      const r = e.key === '6.10a' ? loads.imposedRange(q, 'psi0') : loads.imposedRange(q, 'characteristic')
+      const gQ = e.key === '6.10a' ? u.gammaQ : e.gQ // EN 1990 eq. (6.10a): γQ·ψ0,i·Qk,i
+      min = Math.min(min, e.gG * g + gQ * r.min)
+      max = Math.max(max, e.gG * g + gQ * r.max)
     }
     return { min, max }
   }

@@ -12,7 +12,8 @@ describe('loads stage', () => {
     expect(l.selfWeight).toBeCloseTo(6.25, 12)
     const mid = st.findIndex((s) => s.x === 4000)
     expect(l.cases.selfWeight[mid]).toBeCloseTo((6.25 * 8000 ** 2) / 8, 3)
-    expect(l.cases.imposedAll[mid]!).toBeCloseTo((4 * 8000 ** 2) / 8, 3) // 4 kN/m² over the 1 m strip
+    expect(l.cases.imposedRange.max[mid]!).toBeCloseTo((4 * 8000 ** 2) / 8, 3) // 4 kN/m² over the 1 m strip
+    expect(l.cases.imposedAllQuasiPermanent[mid]!).toBeCloseTo((0.3 * 4 * 8000 ** 2) / 8, 3) // ψ2 = 0.3 (EN 1990 Table A1.1, the schema's default)
   })
   it('two equal spans: −wL²/8 over the middle support under load on both spans (handbook coefficient 0.125)', () => {
     const input = parsed(TWO_SPAN_SLAB)

@@ -1,7 +1,9 @@
 /**
  * Properties of the whole member design over seeded random members: 1–30 spans of 2–15 m, slab
- * strips and band beams 150–600 mm deep, bonded and unbonded, pinned and fixed ends, columns
- * below and above (frame action), fire ratings, every profile kind (reverse curves and kinks over the supports), each stressing end. Invented members.
+ * strips and band beams 150–600 mm deep, bonded and unbonded, pinned and fixed ends, cantilevers at
+ * either end, columns below and above (frame action), point, line and partial loads (permanent and
+ * imposed, each with its own ψ), fire ratings, every profile kind (reverse curves and kinks over the
+ * supports), each stressing end. Invented members.
  */
 import { describe, expect, it } from 'vitest'
 import { designMember } from '../../../../shared/engine/index'
@@ -23,10 +25,20 @@ function randomMember(r: () => number, maxSpans = 30): MemberInputDraft {
   const long = length > 60000
   const friction = Math.min(1, 60000 / length)
   const ends = long ? 'both' as const : (['left', 'right', 'both'] as const)[Math.floor(r() * 3)]
-  const supports = Array.from({ length: n + 1 }, (_, j) => ((j === 0 || j === n) && r() < 0.15 ? 'fixed' as const : 'pinned' as const))
+  const supports: Array<'pinned' | 'fixed' | 'free'> = Array.from({ length: n + 1 }, (_, j) => ((j === 0 || j === n) && r() < 0.15 ? 'fixed' as const : 'pinned' as const))
+  // a cantilever at either end of a member of three spans or more
+  if (n >= 3 && r() < 0.2) { supports[0] = 'free'; spans[0] = Math.round(between(r, 1000, 3500) / 10) * 10 }
+  if (n >= 3 && r() < 0.2) { supports[n] = 'free'; spans[n - 1] = Math.round(between(r, 1000, 3500) / 10) * 10 }
+  // point, line and partial loads on random spans
+  const type = (): 'permanent' | 'imposed' => (r() < 0.5 ? 'permanent' : 'imposed')
+  const psis = (): { psi0: number; psi1: number; psi2: number } => ({ psi0: 0.7, psi1: between(r, 0.3, 0.9), psi2: between(r, 0.2, 0.8) })
+  const onSpan = (): { span: number; L: number } => { const i = Math.floor(r() * n); return { span: i + 1, L: spans[i] as number } }
+  const points = r() < 0.4 ? Array.from({ length: 1 + Math.floor(r() * 3) }, () => { const { span, L } = onSpan(); return { span, at: Math.round(between(r, 0, 1) * L), P: between(r, 2, 25) * 1e3, type: type(), ...psis() } }) : []
+  const lines = r() < 0.4 ? Array.from({ length: 1 + Math.floor(r() * 2) }, () => { const { span, L } = onSpan(); return { span, at: Math.round(between(r, 0, 1) * L), w: between(r, 2, 12), type: type(), ...psis() } }) : []
+  const partials = r() < 0.4 ? Array.from({ length: 1 + Math.floor(r() * 2) }, () => { const { span, L } = onSpan(); const from = Math.round(between(r, 0, 0.6) * L); return { span, from, length: Math.round(between(r, 0.1, 0.4) * L), q: between(r, 1, 5) * 1e-3, type: type(), ...psis() } }) : []
   // columns below (and sometimes above) at pinned supports: frame action in every load case and in the prestress
   const framed = r() < 0.3
-  const where = supports.some((k) => k === 'fixed') ? 'interior' as const : r() < 0.5 ? 'all' as const : 'interior' as const
+  const where = supports.some((k) => k === 'fixed' || k === 'free') ? 'interior' as const : r() < 0.5 ? 'all' as const : 'interior' as const
   return {
     geometry: { spans, supports },
     ...(framed ? { columns: { where, c1: Math.round(between(r, 250, 700)), c2: Math.round(between(r, 250, 700)), heightBelow: Math.round(between(r, 2800, 4500)), heightAbove: r() < 0.5 ? 0 : 3200 } } : {}),
@@ -37,7 +49,7 @@ function randomMember(r: () => number, maxSpans = 30): MemberInputDraft {
       ? { strand: '12.9', strandsPerTendon: 4, spacing: Math.round(between(r, 400, 1200) / 50) * 50, coverTop: 25, coverBottom: 25, bond: r() < 0.5 ? 'bonded' : 'unbonded', stressing: ends }
       : { strand: '12.9', strandsPerTendon: 5, count: 2 + Math.floor(r() * 4), ductShape: 'flat', ductHeight: 20, ductWidth: 75, coverTop: 40, coverBottom: 40, bond: r() < 0.5 ? 'bonded' : 'unbonded', stressing: ends },
     profile: { mode: 'deepest', inflection, lowPointAt: spans.map(() => between(r, 0.4, 0.6)) },
-    loads: { superimposed: between(r, 0.5, 2.5) * 1e-3, imposed: between(r, 1.5, 5) * 1e-3, pattern: r() < 0.8 ? 'alternate-and-adjacent' : 'all-spans' },
+    loads: { superimposed: between(r, 0.5, 2.5) * 1e-3, imposed: between(r, 1.5, 5) * 1e-3, pattern: r() < 0.8 ? 'alternate-and-adjacent' : 'all-spans', points, lines, partials },
     losses: { mu: between(r, 0.04, 0.2) * friction, wobble: between(r, 0, 1e-5) * friction, drawIn: between(r, 2, 8) },
     uls: { barsBottom: { area: Math.round(between(r, 0, 800)) }, barsTop: { area: Math.round(between(r, 0, 1200)) } },
   }
@@ -47,11 +59,19 @@ function randomMember(r: () => number, maxSpans = 30): MemberInputDraft {
 function mirrored(m: MemberInputDraft): MemberInputDraft {
   const g = m.geometry!
   const swap: Record<Ends, Ends> = { left: 'right', right: 'left', both: 'both' }
+  const n = g.spans!.length
+  const span = (k: number): number => g.spans![k - 1] as number
   return {
     ...m,
     geometry: { ...g, spans: [...g.spans!].reverse(), ...(g.supports ? { supports: [...g.supports].reverse() } : {}) },
     tendon: { ...m.tendon, stressing: swap[(m.tendon?.stressing ?? 'both') as Ends] },
     profile: { ...m.profile, lowPointAt: (m.profile!.lowPointAt as number[]).map((b) => 1 - b).reverse() },
+    loads: {
+      ...m.loads!,
+      points: (m.loads!.points ?? []).map((l) => ({ ...l, span: n + 1 - l.span, at: span(l.span) - l.at })),
+      lines: (m.loads!.lines ?? []).map((l) => ({ ...l, span: n + 1 - l.span, at: span(l.span) - l.at })),
+      partials: (m.loads!.partials ?? []).map((l) => ({ ...l, span: n + 1 - l.span, from: span(l.span) - l.from - l.length })),
+    },
   }
 }
 
@@ -119,6 +139,8 @@ describe('the member design over random members (seeded)', () => {
       const profile = {
         spans, supportEcc: Array.from({ length: n + 1 }, ecc), spanEcc: spans.map(() => between(r, 0.1, 0.4) * h),
         lowPointAt: spans.map(() => between(r, 0.35, 0.65)), inflection: r() < 0.3 ? 0 : between(r, 0.03, 0.15),
+        // cantilevers: one parabola from the root to the anchorage at the tip
+        ...(n >= 2 ? { cantilever: { left: r() < 0.25, right: r() < 0.25 } } : {}),
       }
       const P = 1e6
       let F = 0
