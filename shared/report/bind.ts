@@ -39,7 +39,7 @@ function indexOf(model: ReportModel): ModelIndex {
   const inputPrefixes = new Set<string>()
   for (const field of model.inputFields) {
     const pattern = patternOf(field.path.split('.'))
-    if (field.kind === 'array') {
+    if (field.kind === 'array' || field.kind === 'table') {
       inputs.set(pattern, { source: 'input', pattern, kind: 'array', spec: field.spec, field })
       inputs.set(`${pattern}[]`, { source: 'input', pattern: `${pattern}[]`, kind: 'leaf', spec: field.spec, field })
     } else {

@@ -9,7 +9,7 @@ import type { CheckResult, QuantitySpec } from '../engine/contract'
 export interface ModelInputField {
   path: string
   spec: QuantitySpec & { group: string; help?: string }
-  kind: 'number' | 'enum' | 'array'
+  kind: 'number' | 'enum' | 'array' | 'table'
   options?: string[]
 }
 

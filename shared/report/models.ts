@@ -56,6 +56,18 @@ function stressFigure(stage: 'Transfer' | 'Service', words: string): ModelFigure
   }
 }
 
+/** The point, line and partial loads of a design, placed along the member for the figures. */
+function addedLoadMarks(d: Design): Array<{ label: string; X: number; X2?: number }> {
+  const spans = d.input.geometry.spans
+  const start = (span: number): number => spans.slice(0, span - 1).reduce((a, b) => a + b, 0)
+  const l = d.input.loads
+  return [
+    ...(l.points ?? []).map((p, k) => ({ label: `P${k + 1}`, X: start(p.span) + p.at })),
+    ...(l.lines ?? []).map((p, k) => ({ label: `W${k + 1}`, X: start(p.span) + p.at })),
+    ...(l.partials ?? []).map((p, k) => ({ label: `Q${k + 1}`, X: start(p.span) + p.from, X2: start(p.span) + p.from + p.length })),
+  ]
+}
+
 const figures: Record<string, ModelFigure> = {
   tendon: {
     label: 'Tendon profile with the eccentricity limits',
@@ -99,6 +111,7 @@ const figures: Record<string, ModelFigure> = {
         ],
         supportsX: supportsX(d),
         unit: 'kNm',
+        loads: addedLoadMarks(d),
       })
     },
   },
@@ -155,8 +168,11 @@ function resultShape(): Map<string, ShapeKind> {
   if (!shape) {
     const s = shapeOf(designMember(DEMO_PS2))
     shapeOf(designMember(DEMO_BB1), s)
-    // the optional parts (columns, fire) have their keys whether or not a demo sheet uses them
-    shapeOf(designMember({ ...DEMO_PS2, columns: { where: 'all' }, fire: { rating: 'R60' } }, { proposal: false }), s)
+    // the optional parts (columns, fire, point and line loads, a cantilever) have their keys whether or not a demo sheet uses them
+    shapeOf(designMember({
+      ...DEMO_PS2, columns: { where: 'all' }, fire: { rating: 'R60' },
+      loads: { ...DEMO_PS2.loads, points: [{ span: 1, at: 1000, P: 1000 }], lines: [{ span: 1, at: 2000, w: 1 }], partials: [{ span: 1, from: 0, length: 1000, q: 1e-3 }] },
+    }, { proposal: false }), s)
     shape = s
   }
   return shape

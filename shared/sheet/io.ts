@@ -17,7 +17,37 @@ export const ENGINE_UNITS_FORMAT = 'tendonbook-inputs/1'
 export interface FieldUnit {
   path: string
   unit: DisplayUnit
-  kind: 'number' | 'enum' | 'array' | 'boolean' | 'text'
+  kind: 'number' | 'enum' | 'array' | 'boolean' | 'text' | 'table'
+  /** a table's columns, paths relative to a row */
+  columns?: FieldUnit[]
+}
+
+/** The field of a path: a field, an element of a list, or a cell of a table ('loads.points.0.at') as its column. */
+function fieldOfPath(fields: FieldUnit[], path: string): FieldUnit | undefined {
+  const direct = fieldFor(fields, path)
+  if (direct) return direct
+  for (const t of fields) {
+    if (t.kind !== 'table' || !path.startsWith(`${t.path}.`)) continue
+    const [row, ...rest] = path.slice(t.path.length + 1).split('.')
+    if (!/^\d+$/.test(row ?? '')) return undefined
+    const column = t.columns?.find(c => c.path === rest.join('.'))
+    return column ? { ...column, path } : undefined
+  }
+  return undefined
+}
+
+/** A table's rows with each numeric cell in its column's display unit, or back (toEngine). */
+function rowsIn(rows: unknown, table: FieldUnit, convert: (v: number, unit: DisplayUnit) => number): unknown {
+  if (!Array.isArray(rows)) return rows
+  return rows.map((row) => {
+    if (!row || typeof row !== 'object') return row
+    const out: Record<string, unknown> = { ...(row as Record<string, unknown>) }
+    for (const c of table.columns ?? []) {
+      const v = out[c.path]
+      if (typeof v === 'number') out[c.path] = convert(v, c.unit)
+    }
+    return out
+  })
 }
 
 export class InputsFileError extends Error {
@@ -44,6 +74,11 @@ export function exportJson(model: string, inputs: unknown, fields: FieldUnit[], 
   for (const field of fields) {
     const value = getPath(inputs, field.path)
     if (value === undefined) continue
+    if (field.kind === 'table') {
+      const units = Object.fromEntries((field.columns ?? []).filter(c => c.unit !== '').map(c => [c.path, unitLabel(c.unit)]))
+      out = setPath(out, field.path, { label: inputLabel(field.path), value: rowsIn(value, field, shown), units })
+      continue
+    }
     const numbers = field.kind === 'number' || (field.kind === 'array' && Array.isArray(value) && value.every(v => typeof v === 'number'))
     const entry = !numbers
       ? { value: clonePlain(value) }
@@ -56,7 +91,7 @@ export function exportJson(model: string, inputs: unknown, fields: FieldUnit[], 
 export function exportCsv(inputs: unknown, fields: FieldUnit[]) {
   const rows = leafPaths(inputs).map((path) => {
     const value = getPath(inputs, path)
-    const field = fieldFor(fields, path)
+    const field = fieldOfPath(fields, path)
     const label = field ? inputLabel(path) : ''
     if (typeof value === 'number' && field) return [path, String(shown(value, field.unit)), unitLabel(field.unit), label]
     return [path, value === null || value === undefined ? '' : String(value), '', label]
@@ -109,6 +144,20 @@ function fromTypedUnits(inputs: object, fields: FieldUnit[]) {
       problems.push(`${label}: expected { "value": …, "unit": … }`)
       continue
     }
+    if (field.kind === 'table') {
+      const units = (entry as { units?: unknown }).units
+      const named = units && typeof units === 'object' ? units as Record<string, unknown> : {}
+      if (!Array.isArray(entry.value)) {
+        problems.push(`${label} must be a list of rows`)
+        continue
+      }
+      for (const c of field.columns ?? []) {
+        const given = named[c.path]
+        if (c.unit !== '' && given !== undefined && unitNamed(String(given)) !== c.unit) problems.push(`${label}, ${c.path}: given in "${String(given)}", not ${unitLabel(c.unit)}`)
+      }
+      out = setPath(out, field.path, rowsIn(entry.value, field, (v, unit) => toEngine(v, unit)))
+      continue
+    }
     const unitText = typeof entry.unit === 'string' ? entry.unit : ''
     const numeric = field.kind === 'number' || (field.kind === 'array' && unitText !== '') || (field.kind === 'array' && Array.isArray(entry.value) && entry.value.some(v => typeof v === 'number'))
     if (!numeric) {
@@ -148,7 +197,7 @@ function importCsv(text: string, base: unknown, fields: FieldUnit[]) {
   rows.slice(1).forEach((row, i) => {
     const line = i + 2
     const [path = '', raw = '', unitText = ''] = row.map(c => c.trim())
-    const field = fieldFor(fields, path)
+    const field = fieldOfPath(fields, path)
     if (!field) {
       problems.push(`line ${line}: "${path || '(empty)'}" is not an input of this sheet`)
       return

@@ -17,6 +17,9 @@ const ELEMENT_LABELS: Record<string, (n: number) => string> = {
   'profile.spanEcc': n => `Eccentricity at the low point of span ${n}`,
   'profile.lowPointAt': n => `Low point in span ${n}`,
   'site.measured': n => `Measured extension, tendon ${n}`,
+  'loads.points': n => `Point load ${n}`,
+  'loads.lines': n => `Line load ${n}`,
+  'loads.partials': n => `Partial load ${n}`,
 }
 
 /** Where the engine's own label does not tell two fields apart. */
@@ -44,6 +47,19 @@ const OPTION_WORDS: Record<string, Record<string, string>> = {
   'punching.column': { none: 'No column head', interior: 'Interior column', edge: 'Edge column', corner: 'Corner column' },
   'cracking.duration': { long: 'Long-term', short: 'Short-term' },
   'site.alternateEnds': { no: 'No', yes: 'Yes' },
+  'loads.points.type': { permanent: 'Permanent', imposed: 'Imposed' },
+  'loads.lines.type': { permanent: 'Permanent', imposed: 'Imposed' },
+  'loads.partials.type': { permanent: 'Permanent', imposed: 'Imposed' },
+}
+
+/** A cell of a table field ('loads.points.0.at'): the table, the row from 0 and the column, or null. */
+export function tableCell(path: string): { table: InputFieldSpec, row: number, column: InputFieldSpec | undefined } | null {
+  const bare = path.replace(/^inputs\./, '')
+  const table = SPECS.find(f => f.kind === 'table' && bare.startsWith(`${f.path}.`))
+  if (!table) return null
+  const [row, ...rest] = bare.slice(table.path.length + 1).split('.')
+  if (!/^\d+$/.test(row ?? '')) return null
+  return { table, row: Number(row), column: rest.length ? table.columns?.find(c => c.path === rest.join('.')) : undefined }
 }
 
 /** The input field a path belongs to (the field itself, or an element of a list field). */
@@ -54,6 +70,11 @@ export function inputSpecFor(path: string): InputFieldSpec | undefined {
 /** The label of an input path: "Span 2", "Overall depth"; an unknown path is returned as it is. */
 export function inputLabel(path: string): string {
   const bare = path.replace(/^inputs\./, '')
+  const cell = tableCell(bare)
+  if (cell) {
+    const row = ELEMENT_LABELS[cell.table.path]?.(cell.row + 1) ?? `${cell.table.spec.label}, row ${cell.row + 1}`
+    return cell.column ? `${row}, ${cell.column.spec.label.charAt(0).toLowerCase()}${cell.column.spec.label.slice(1)}` : row
+  }
   const field = inputSpecFor(bare)
   if (!field) return bare
   if (field.path === bare) return FIELD_LABELS[bare] ?? field.spec.label
@@ -63,8 +84,9 @@ export function inputLabel(path: string): string {
 
 /** The words for an option of an enum field: `optionLabel('section.kind', 'tee-beam')` → "T band beam". */
 export function optionLabel(path: string, option: string): string {
+  const cell = tableCell(path)
   const field = inputSpecFor(path)
-  const words = field ? OPTION_WORDS[field.path]?.[option] : undefined
+  const words = cell?.column ? OPTION_WORDS[`${cell.table.path}.${cell.column.path}`]?.[option] : field ? OPTION_WORDS[field.path]?.[option] : undefined
   if (words) return words
   return option.charAt(0).toUpperCase() + option.slice(1).replace(/-/g, ' ')
 }

@@ -10,8 +10,12 @@ import type { FieldMeta } from './schema'
 export interface InputFieldSpec {
   path: string
   spec: QuantitySpec & { group: string; help?: string }
-  kind: 'number' | 'enum' | 'array'
+  /** 'table': a list of rows, each with the fields in `columns` (paths relative to the row) */
+  kind: 'number' | 'enum' | 'array' | 'table'
   options?: string[]
+  columns?: InputFieldSpec[]
+  /** a table's new row: each column's default, or its least sensible value */
+  emptyRow?: Record<string, unknown>
 }
 
 interface ZodDefLike {
@@ -70,10 +74,28 @@ function walk(schema: z.ZodType, path: string, out: InputFieldSpec[]): void {
   else if (d.type === 'array' && d.element) {
     const el = unwrap(d.element)
     const ed = defOf(el)
+    if (ed.type === 'object' && ed.shape) {
+      const columns: InputFieldSpec[] = []
+      for (const [k, v] of Object.entries(ed.shape)) walk(v, k, columns)
+      const emptyRow = Object.fromEntries(Object.entries(ed.shape).map(([k, v]) => [k, defaultOf(v, columns.find((c) => c.path === k))]))
+      out.push({ path, spec: toSpec(m), kind: 'table', columns, emptyRow })
+      return
+    }
     const em = metaOf(d.element) ?? m
     const spec = toSpec({ ...em, label: m.label })
     out.push(ed.type === 'enum' && ed.entries ? { path, spec, kind: 'array', options: Object.values(ed.entries) } : { path, spec, kind: 'array' })
   } else throw new Error(`input field ${path} has an unsupported type ${d.type}`)
+}
+
+/** A column's default for a new row: the schema's default, else its first option, else the least non-negative value it takes (1 m for a length). */
+function defaultOf(schema: z.ZodType, column: InputFieldSpec | undefined): unknown {
+  const d = defOf(schema) as ZodDefLike & { defaultValue?: unknown }
+  if (d.type === 'default') return typeof d.defaultValue === 'function' ? (d.defaultValue as () => unknown)() : d.defaultValue
+  if (column?.kind === 'enum') return column.options?.[0]
+  const inner = unwrap(schema)
+  const min = (inner as unknown as { minValue?: number | null }).minValue
+  const candidates = [Math.max(0, typeof min === 'number' && Number.isFinite(min) ? min : 0), column?.spec.unit === 'm' ? 1000 : 1]
+  return candidates.find((v) => inner.safeParse(v).success) ?? 0
 }
 
 /** Every input field with its label, unit, precision and group, in form order. */

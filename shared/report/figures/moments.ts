@@ -2,7 +2,7 @@
  * Bending-moment diagrams along the member, drawn on the tension side as engineers draw them:
  * sagging (+) below the axis, hogging above. Values in N·mm, shown in kNm.
  */
-import { PALETTE, bandPath, esc, extent, frame, hline, legend, linear, seriesPath, supports, svgOpen, xAxis, yAxis } from './svg'
+import { PALETTE, bandPath, esc, extent, frame, hline, legend, linear, n, seriesPath, supports, svgOpen, text, xAxis, yAxis } from './svg'
 import type { Dash, LegendItem } from './svg'
 
 export interface MomentCurve {
@@ -28,10 +28,32 @@ export interface MomentDiagramData {
   supportsX: readonly number[]
   /** moment unit label, e.g. 'kNm' or 'kNm per strip' */
   unit: string
+  /** point, line and partial loads drawn on the member above the plot: X (and X2 for a partial load) in mm */
+  loads?: ReadonlyArray<{ label: string; X: number; X2?: number }>
+}
+
+/** Each load as an arrow (point and line loads) or a bar with arrows (partial loads) above the plot, with its label. */
+function loadMarks(d: MomentDiagramData, x: (v: number) => number, top: number): string {
+  let out = ''
+  for (const l of d.loads ?? []) {
+    const x1 = x(l.X / 1000)
+    const tip = top + 2
+    const tail = top - 16
+    if (l.X2 === undefined) {
+      out += `<line x1="${n(x1)}" y1="${n(tail)}" x2="${n(x1)}" y2="${n(tip - 5)}" stroke="${PALETTE.ink}" stroke-width="1.4"/>`
+        + `<path d="M${n(x1 - 3.5)},${n(tip - 6)} L${n(x1 + 3.5)},${n(tip - 6)} L${n(x1)},${n(tip)} Z" fill="${PALETTE.ink}"/>`
+    } else {
+      const x2 = x(l.X2 / 1000)
+      out += `<rect x="${n(x1)}" y="${n(tail)}" width="${n(Math.max(1, x2 - x1))}" height="6" fill="${PALETTE.band}" stroke="${PALETTE.ink}" stroke-width="0.8"/>`
+      for (const xi of [x1, (x1 + x2) / 2, x2]) out += `<line x1="${n(xi)}" y1="${n(tail + 6)}" x2="${n(xi)}" y2="${n(tip)}" stroke="${PALETTE.ink}" stroke-width="0.8"/>`
+    }
+    out += text(x1 + 4, tail + 2, l.label, 'font-size="9"')
+  }
+  return out
 }
 
 export function momentDiagramSvg(d: MomentDiagramData): string {
-  const f = frame(720, 270)
+  const f = d.loads?.length ? frame(720, 290, { top: 48 }) : frame(720, 270)
   const length = Math.max(...d.X, ...d.supportsX, 1)
   const kNm = (v: readonly number[]): number[] => v.map((m) => m / 1e6)
   const all = [...d.curves.flatMap((c) => kNm(c.values)), ...(d.band ? [...kNm(d.band.min), ...kNm(d.band.max)] : []), 0]
@@ -58,5 +80,6 @@ export function momentDiagramSvg(d: MomentDiagramData): string {
     + hline(f.left, f.width - f.right, y(0), PALETTE.ink, 'stroke-width="1"')
     + body
     + supports(d.supportsX.map((v) => v / 1000), x, y(0))
+    + loadMarks(d, x, f.top)
     + '</svg>'
 }
