@@ -349,7 +349,10 @@ function renderEach(meta: BlockMeta, inner: readonly Token[], env: ReportEnv): s
   const bodyOpen = inner.findIndex((t) => t.type === 'tbody_open')
   const bodyClose = inner.findIndex((t) => t.type === 'tbody_close')
   if (inner[0]?.type === 'table_open' && inner[inner.length - 1]?.type === 'table_close' && bodyOpen > 0 && bodyClose > bodyOpen) {
-    return renderTokens(inner.slice(0, bodyOpen + 1), env) + each(inner.slice(bodyOpen + 1, bodyClose)) + renderTokens(inner.slice(bodyClose), env)
+    // an empty list says so in one row across the table rather than leaving a bare header
+    const columns = inner.slice(0, bodyOpen).filter((t) => t.type === 'th_open').length
+    const body = selected.length > 0 ? each(inner.slice(bodyOpen + 1, bodyClose)) : `<tr class="tb-none"><td colspan="${Math.max(1, columns)}">None.</td></tr>\n`
+    return renderTokens(inner.slice(0, bodyOpen + 1), env) + body + renderTokens(inner.slice(bodyClose), env)
   }
   return each(inner)
 }

@@ -20,6 +20,7 @@ const ELEMENT_LABELS: Record<string, (n: number) => string> = {
   'loads.points': n => `Point load ${n}`,
   'loads.lines': n => `Line load ${n}`,
   'loads.partials': n => `Partial load ${n}`,
+  'section.drops': n => `Drop ${n}`,
 }
 
 /** Where the engine's own label does not tell two fields apart. */

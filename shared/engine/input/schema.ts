@@ -123,6 +123,23 @@ const partialLoadSchema = addedLoad('Partial load', {
     .meta(meta({ label: 'Load per unit area (downward +)', unit: 'kN/m²', precision: 2, group: 'loads', symbol: 'q_p', help: 'over the length given, on the width loaded' })),
 })
 
+/**
+ * A drop panel or a thickened band over a support: the section deepened below its soffit over a
+ * length each side of the support (m), across a width of the section (a slab strip: per metre).
+ */
+const dropSchema = z.object({
+  support: z.number({ error: 'Drop: enter the support number' }).int('Drop: the support is a whole number').min(1, 'Drop: supports are numbered from 1').max(1001, 'Drop: at most support 1001')
+    .meta(meta({ label: 'Support (numbered from 1)', unit: '', precision: 0, group: 'section' })),
+  left: z.number({ error: 'Drop: enter the length to the left of the support' }).min(0, 'Drop: the length to the left must not be negative').max(20000, 'Drop: the length to the left must not exceed 20 m')
+    .meta(meta({ label: 'Length to the left of the support', unit: 'm', precision: 2, group: 'section', help: 'from the support\'s centre line; 0 at the first support' })),
+  right: z.number({ error: 'Drop: enter the length to the right of the support' }).min(0, 'Drop: the length to the right must not be negative').max(20000, 'Drop: the length to the right must not exceed 20 m')
+    .meta(meta({ label: 'Length to the right of the support', unit: 'm', precision: 2, group: 'section', help: 'from the support\'s centre line; 0 at the last support' })),
+  depth: z.number({ error: 'Drop: enter the depth below the soffit' }).min(25, 'Drop: the depth below the soffit must be at least 25 mm').max(2000, 'Drop: the depth below the soffit must not exceed 2000 mm')
+    .meta(meta({ label: 'Depth below the soffit', unit: 'mm', precision: 0, group: 'section', symbol: 'h_d' })),
+  width: z.number({ error: 'Drop: enter the width' }).min(100, 'Drop: the width must be at least 100 mm').max(20000, 'Drop: the width must not exceed 20 m').optional()
+    .meta(meta({ label: 'Width of the thickening', unit: 'mm', precision: 0, group: 'section', symbol: 'b_d', help: 'a slab strip: the drop\'s width per metre of strip (its width over the column line\'s width × 1000); left out: the whole width (a beam: its web)' })),
+})
+
 const eccSchema = z.number({ error: 'Eccentricity: enter a number' })
   .min(-2000, 'The eccentricity must lie within the section').max(2000, 'The eccentricity must lie within the section')
   .meta(meta({ label: 'Eccentricity (below centroid +)', unit: 'mm', precision: 1, group: 'profile', symbol: 'e' }))
@@ -157,6 +174,8 @@ export const memberInputShape = {
     bf: length({ label: 'Effective flange width', precision: 0, group: 'section', symbol: 'b_{eff}', clause: 'EN 1992-1-1 5.3.2.1' }, 100, 20000).optional(),
     hf: length({ label: 'Flange (slab) thickness', precision: 0, group: 'section', symbol: 'h_f' }, 50, 1000).optional(),
     tributaryWidth: length({ label: 'Width loaded (tributary)', precision: 0, group: 'section', symbol: 'b_{trib}', help: 'width whose area loads the member; the slab strip is 1 m; a band beam defaults to its flange width' }, 100, 30000).optional(),
+    drops: z.array(dropSchema).max(1001, 'At most one drop per support').default([])
+      .meta(meta({ label: 'Drops and thickenings over supports', unit: '', precision: 0, group: 'section', help: 'a deeper section each side of a support: drop panel, thickened band' })),
   }),
   materials: z.object({
     concreteClass: z.enum(CLASS_NAMES, { error: 'Choose a concrete class of EN 1992-1-1 Table 3.1' })
@@ -379,6 +398,7 @@ function refineMember(v: z.output<z.ZodObject<typeof memberInputShape>>, ctx: Ct
   within('lines', 'Line load')
   within('partials', 'Partial load')
   const s = v.section
+  refineDrops(v, issue)
   if (s.kind === 'rectangle' && s.b === undefined) issue(['section', 'b'], 'Give the width of the rectangle')
   if (s.kind === 'tee-beam' || s.kind === 'ell-beam' || s.kind === 'flanged') {
     if (s.bw === undefined) issue(['section', 'bw'], 'Give the web or band width')
@@ -400,6 +420,44 @@ function refineMember(v: z.output<z.ZodObject<typeof memberInputShape>>, ctx: Ct
   if (p.supportEcc && p.supportEcc.length !== n + 1) issue(['profile', 'supportEcc'], `Give ${n + 1} support eccentricities for ${n} spans`)
   if (p.spanEcc && p.spanEcc.length !== n) issue(['profile', 'spanEcc'], `Give ${n} low-point eccentricities`)
   if (p.lowPointAt && p.lowPointAt.length !== n) issue(['profile', 'lowPointAt'], `Give ${n} low-point positions`)
+}
+
+/** Drops sit over a support of the member, within the spans each side, apart from one another. */
+function refineDrops(v: z.output<z.ZodObject<typeof memberInputShape>>, issue: (path: Array<string | number>, message: string) => void): void {
+  const spans = v.geometry.spans
+  const n = spans.length
+  const m = (x: number): string => `${(x / 1000).toFixed(2)} m`
+  const s = v.section
+  const full = s.kind === 'slab-strip' ? 1000 : s.kind === 'rectangle' ? s.b : s.bw
+  const taken = new Map<number, number>()
+  v.section.drops.forEach((d, k) => {
+    const what = `Drop ${k + 1}`
+    const j = d.support - 1
+    if (j > n) return issue(['section', 'drops', k, 'support'], `${what}: there is no support ${d.support}; the member has ${n + 1} supports`)
+    if (v.geometry.supports?.[j] === 'free') return issue(['section', 'drops', k, 'support'], `${what}: support ${d.support} is the free tip of a cantilever; a drop sits over a support`)
+    const before = taken.get(j)
+    if (before !== undefined) return issue(['section', 'drops', k, 'support'], `${what}: support ${d.support} already has drop ${before + 1}`)
+    taken.set(j, k)
+    if (j === 0 && d.left > 0) issue(['section', 'drops', k, 'left'], `${what}: support 1 is the left end; the drop can only run to the right of it (give 0 m to the left)`)
+    if (j === n && d.right > 0) issue(['section', 'drops', k, 'right'], `${what}: support ${n + 1} is the right end; the drop can only run to the left of it (give 0 m to the right)`)
+    if (d.left + d.right <= 0) issue(['section', 'drops', k, j === 0 ? 'right' : 'left'], `${what}: give the length of the drop each side of the support`)
+    const Lleft = spans[j - 1]
+    const Lright = spans[j]
+    if (Lleft !== undefined && d.left >= Lleft) issue(['section', 'drops', k, 'left'], `${what}: ${m(d.left)} to the left is not shorter than span ${j} (${m(Lleft)})`)
+    if (Lright !== undefined && d.right >= Lright) issue(['section', 'drops', k, 'right'], `${what}: ${m(d.right)} to the right is not shorter than span ${j + 1} (${m(Lright)})`)
+    const beam = s.kind !== 'slab-strip' && s.kind !== 'rectangle'
+    if (beam && d.width !== undefined && d.width !== s.bw) issue(['section', 'drops', k, 'width'], `${what}: under a beam the drop deepens the web over its own width; leave the width out`)
+    else if (d.width !== undefined && full !== undefined && d.width > full) issue(['section', 'drops', k, 'width'], `${what}: the width ${d.width.toFixed(0)} mm exceeds the ${s.kind === 'slab-strip' ? 'strip\'s 1000 mm' : `section's ${full.toFixed(0)} mm`}`)
+  })
+  // two drops in one span must not meet
+  for (const [j, k] of taken) {
+    const other = taken.get(j + 1)
+    const L = spans[j]
+    if (other === undefined || L === undefined) continue
+    const a = v.section.drops[k]
+    const b = v.section.drops[other]
+    if (a && b && a.right + b.left >= L) issue(['section', 'drops', other, 'left'], `Drop ${other + 1}: it meets drop ${k + 1} in span ${j + 1} (${m(a.right)} + ${m(b.left)} of ${m(L)}); give one longer drop as a deeper section or shorten them`)
+  }
 }
 
 export const memberInputSchema = z.object(memberInputShape).superRefine(refineMember)

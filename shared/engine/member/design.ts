@@ -102,8 +102,34 @@ export interface Design {
   designForces: DesignLoad[]
   /** post-tensioning quantities for the cost plan */
   quantities: MemberQuantities
+  /** drops and thickened bands over supports: where they run and their sections */
+  drops: DropRecord[]
   /** the columns at the supports: their stiffness and the moments the member passes into them, or null */
   columns: { Ecm: number; I: number; joints: ColumnMoments[] } | null
+}
+
+export interface DropRecord {
+  /** the support, numbered from 1 */
+  support: number
+  /** where the drop starts and ends along the member, mm */
+  from: number
+  to: number
+  depth: number
+  width: number
+  /** overall depth over the drop, and its section */
+  h: number
+  A: number
+  yt: number
+  I: number
+  Zt: number
+  Zb: number
+  /** the local centroid's distance below the plain one's, mm */
+  shift: number
+  /** eccentricity limits from the local centroid, mm */
+  eTop: number
+  eBottom: number
+  /** the drop's own weight beyond the plain section's, N/mm */
+  weight: number
 }
 
 export interface DesignOptions {
@@ -216,6 +242,17 @@ function designRecord(d: ServiceDesign, later: LaterResults): Design {
     quantities: later.quantities,
     designLoads: designLoads(input, loads),
     designForces: designForces(input, loads),
+    drops: section.drops.map((z) => {
+      const starts = spans.slice(0, z.support).reduce((a, b) => a + b, 0) // X of the support
+      const left = z.parts.find((p) => p.span === z.support - 1)
+      const right = z.parts.find((p) => p.span === z.support)
+      const p = z.local.properties
+      return {
+        support: z.support + 1, from: starts - (left ? left.to - left.from : 0), to: starts + (right ? right.to - right.from : 0),
+        depth: z.depth, width: z.width, h: p.h, A: p.A, yt: p.yt, I: p.I, Zt: p.Zt, Zb: p.Zb, shift: z.local.shift,
+        eTop: z.local.eccentricity.top, eBottom: z.local.eccentricity.bottom, weight: input.materials.density * (p.A - section.properties.A),
+      }
+    }),
     columns: loads.columns ? { Ecm: loads.columns.Ecm, I: loads.columns.I, joints: columnMoments(loads, profile, losses) } : null,
   }
 }

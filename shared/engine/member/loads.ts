@@ -53,6 +53,8 @@ export interface MemberLoads {
   patternLoading: PatternLoading
   /** the point, line and partial loads */
   added: AddedLoad[]
+  /** the drops' own weight, N/mm over each drop's length (part of the self-weight) */
+  dropWeights: BeamLoad[]
   /** the member under its permanent loads: self-weight, superimposed and the added permanent loads */
   permanent: ContinuousBeamResult
   /** the arrangements of all imposed loads, each at its value in the combination: N and N·mm, not per N/mm */
@@ -98,7 +100,11 @@ export function loadsStage(input: MemberInput, section: MemberSection, stations:
 
   const columns = memberColumns(input, section)
   const springs = columns?.springs
-  const responses = spanUnitResponses({ spans, EI: section.EI, supports, ...(springs ? { springs } : {}) })
+  const responses = spanUnitResponses({ spans, EI: section.spanEI, supports, ...(springs ? { springs } : {}) })
+  // a drop's own weight: the area it adds, over its length (EN 1991-1-1 5.2, nominal dimensions)
+  const dropWeights: BeamLoad[] = section.drops.flatMap((d) => d.parts.map((p) => ({
+    kind: 'patch' as const, span: p.span, from: p.from, to: p.to, w: input.materials.density * (d.local.properties.A - section.properties.A),
+  })))
   const patterns = loadPatterns(input)
   const unitArrangements = patternLoading(responses, patterns.map((p) => p.loadedSpans))
   const added = addedLoads(input, trib)
@@ -133,7 +139,7 @@ export function loadsStage(input: MemberInput, section: MemberSection, stations:
   // linear elastic analysis (EN 1992-1-1 5.4): each case is the sum of the unit-span cases, found in one solve
   const along = (r: ContinuousBeamResult): number[] => stations.map((st) => r.momentAt(st.span, st.x))
   const uniform = (w: number): ContinuousBeamResult => responses.combine(spans.map(() => w))
-  const permanent = responses.model.analyse([...spans.map((_, span) => ({ kind: 'udl' as const, span, w: selfWeight + superimposed })), ...addedPermanentLoads])
+  const permanent = responses.model.analyse([...spans.map((_, span) => ({ kind: 'udl' as const, span, w: selfWeight + superimposed })), ...dropWeights, ...addedPermanentLoads])
   const rangesOf = (c: CombinationValue): { min: number[]; max: number[] } => {
     const r = stations.map((st) => imposedRange({ kind: 'moment', span: st.span, x: st.x }, c))
     return { min: r.map((v) => v.min), max: r.map((v) => v.max) }
@@ -144,7 +150,7 @@ export function loadsStage(input: MemberInput, section: MemberSection, stations:
   ]) // EN 1990 eq. (6.16b): ψ2·Qk of every imposed load
   const characteristic = rangesOf('characteristic')
   const cases: CaseMoments = {
-    selfWeight: along(uniform(selfWeight)),
+    selfWeight: along(dropWeights.length > 0 ? responses.model.analyse([...spans.map((_, span) => ({ kind: 'udl' as const, span, w: selfWeight })), ...dropWeights]) : uniform(selfWeight)),
     superimposed: along(uniform(superimposed)),
     addedPermanent: addedPermanentLoads.length > 0 ? along(responses.model.analyse(addedPermanentLoads)) : stations.map(() => 0),
     imposedAllQuasiPermanent: along(qp),
@@ -153,7 +159,7 @@ export function loadsStage(input: MemberInput, section: MemberSection, stations:
     imposedRangeQuasiPermanent: addedImposed.length > 0 ? rangesOf('quasiPermanent') : scaleRange(characteristic, psiOf.quasiPermanent),
   }
   return {
-    result: { supports, columns, springs, selfWeight, superimposed, imposed, patterns, responses, patternLoading: unitArrangements, added, permanent, arrangements, imposedRange, cases },
+    result: { supports, columns, springs, selfWeight, superimposed, imposed, patterns, responses, patternLoading: unitArrangements, added, dropWeights, permanent, arrangements, imposedRange, cases },
     checks: [],
     warnings: [],
   }

@@ -52,9 +52,12 @@ export function magnelConditions(i: MagnelInput, k: number, M: Record<Stage, Mom
 
 /** The Magnel region of each critical section, in the order of the sections. */
 export function magnelStage(i: MagnelInput): StageOutcome<MagnelResult[]> {
-  const sec = i.section.properties
-  const { top, bottom } = i.section.eccentricity
-  const result = i.stresses.sectionStations.map((k, r) =>
-    magnelRegion({ A: sec.A, Zt: sec.Zt, Zb: sec.Zb }, magnelConditions(i, k, i.stresses.momentsBySection[r] as Record<Stage, MomentRange>, (i.stresses.sections[r] as ServiceSection).force), -top, bottom))
+  const result = i.stresses.sectionStations.map((k, r) => {
+    const s = i.stresses.sections[r] as ServiceSection
+    const local = i.section.at(s.span, s.x) // over a drop: its section, e from its centroid
+    const sec = local.properties
+    const { top, bottom } = local.eccentricity
+    return magnelRegion({ A: sec.A, Zt: sec.Zt, Zb: sec.Zb }, magnelConditions(i, k, i.stresses.momentsBySection[r] as Record<Stage, MomentRange>, s.force), -top, bottom)
+  })
   return { result, checks: [], warnings: [] }
 }

@@ -24,6 +24,8 @@ export interface MemberProfile {
   e: number[]
   /** secondary moment of prestress at each station under P = 1 N (EN 1992-1-1 5.10.7), N·mm/N */
   secondaryPerUnitForce: number[]
+  /** the share of secondaryPerUnitForce that the drops' steps of the centroid cause, N·mm/N (0 without drops) */
+  shiftSecondaryPerUnitForce: number[]
   /** couple reaction of each support per unit force (the columns' share of the prestress), N·mm per N */
   couplesPerUnitForce: number[]
   drapes: number[]
@@ -58,18 +60,27 @@ export function profileStage(input: MemberInput, section: MemberSection, loads: 
   // a cantilever's tendon runs from its root to the anchorage at the tip (the end entry of supportEcc)
   const profile: TendonProfile = withCantilevers({ spans, supportEcc, spanEcc, lowPointAt: lowAt, inflection: p.inflection }, loads.supports)
   const pieces = resolveProfile(profile)
-  const e = stations.map((s) => eccentricityIn(pieces[s.span] as ProfilePiece[], s.x))
-  // parabolas stay between their end values, but a custom profile may still leave the section
+  // e from the local centroid: over a drop the centroid lies lower by its shift (the profile is drawn from the plain one's)
+  const e = stations.map((s) => eccentricityIn(pieces[s.span] as ProfilePiece[], s.x) - section.at(s.span, s.x).shift)
+  // parabolas stay between their end values, but a custom profile may still leave the section (a drop's own limits over it)
   e.forEach((v, k) => {
-    if (v < -eTop - 1e-6 || v > eBot + 1e-6) {
+    const lim = section.at((stations[k] as Station).span, (stations[k] as Station).x).eccentricity
+    if (v < -lim.top - 1e-6 || v > lim.bottom + 1e-6) {
       const st = stations[k] as Station
       fail('profile.inflection', `the tendon leaves the concrete in span ${st.span + 1} at x = ${(st.x / 1000).toFixed(2)} m`)
     }
   })
 
   // secondary moment per unit force (EN 1992-1-1 5.10.7), scaled later by the mean force of each stage
-  const unitPs = prestressMoments({ spans, EI: section.EI, supports: loads.supports, ...(loads.springs ? { springs: loads.springs } : {}), profile, P: 1 })
+  const centroidShifts = section.drops.flatMap((d) => d.parts.map((p) => ({ ...p, shift: d.local.shift })))
+  const unitPs = prestressMoments({ spans, EI: section.spanEI, supports: loads.supports, ...(loads.springs ? { springs: loads.springs } : {}), profile, P: 1, centroidShifts })
   const secondaryPerUnitForce = stations.map((s) => unitPs.secondaryAt(s.span, s.x))
+  // the part of it that the drops' centroid steps cause alone (the proposal keeps it while it moves the profile)
+  const flat: TendonProfile = { ...profile, supportEcc: supportEcc.map(() => 0), spanEcc: spanEcc.map(() => 0) }
+  const shiftPs = centroidShifts.length > 0
+    ? prestressMoments({ spans, EI: section.spanEI, supports: loads.supports, ...(loads.springs ? { springs: loads.springs } : {}), profile: flat, P: 1, centroidShifts })
+    : null
+  const shiftSecondaryPerUnitForce = stations.map((s) => (shiftPs ? shiftPs.secondaryAt(s.span, s.x) : 0))
   const couplesPerUnitForce = unitPs.reactionCouples // the columns' share of the prestress, per unit force
 
   let offset = 0
@@ -79,7 +90,7 @@ export function profileStage(input: MemberInput, section: MemberSection, loads: 
     return x
   })
   return {
-    result: { profile, pieces, lowAt, e, secondaryPerUnitForce, couplesPerUnitForce, drapes: drapes(profile), lowPointX, length: sum(spans) },
+    result: { profile, pieces, lowAt, e, secondaryPerUnitForce, shiftSecondaryPerUnitForce, couplesPerUnitForce, drapes: drapes(profile), lowPointX, length: sum(spans) },
     checks: [],
     warnings: [],
   }

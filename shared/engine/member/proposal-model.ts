@@ -30,7 +30,7 @@ export function profileBasis(d: ServiceDesign, ks: number[]): ProfileBasis {
   const spans = d.input.geometry.spans
   const n = spans.length
   const m = 2 * n + 1
-  const model = continuousBeamModel({ spans, EI: d.section.EI, supports: d.loads.supports, ...(d.loads.springs ? { springs: d.loads.springs } : {}) }) // factored once for every unit profile
+  const model = continuousBeamModel({ spans, EI: d.section.spanEI, supports: d.loads.supports, ...(d.loads.springs ? { springs: d.loads.springs } : {}) }) // factored once for every unit profile
   const rowsOfSpan: number[][] = spans.map(() => [])
   ks.forEach((k, r) => (rowsOfSpan[(d.stations[k] as Station).span] as number[]).push(r))
   const entries: Array<{ j: number[]; phi: number[]; psi: number[] }> = ks.map(() => ({ j: [], phi: [], psi: [] }))
@@ -111,11 +111,15 @@ export function linearModel(d: ServiceDesign, basis: ProfileBasis, margin: numbe
   const rows: Array<{ a: number; b: number; c0: number; c1: number }> = []
   const { rsup, rinf, limits, momentsBySection } = d.stresses
   const rs = forceFactors(rsup, rinf)
-  const sec = d.section.properties
   const sections = d.stresses.sections.length
   const rowStart = new Int32Array(sections + 1)
   d.stresses.sections.forEach((s, r) => {
     const M = momentsBySection[r] as Record<Stage, MomentRange>
+    // over a drop: its own section, e smaller by the centroid's shift, and the secondary moment of the steps
+    const ks = d.stresses.sectionStations[r] as number
+    const local = d.section.at(s.span, s.x)
+    const sec = local.properties
+    const m2Steps = d.profile.shiftSecondaryPerUnitForce[ks] ?? 0
     for (const stage of STAGES) {
       const f = stage === 'transfer' ? d.losses.transfer : d.losses.service
       const P = stage === 'transfer' ? s.force.transfer : s.force.service
@@ -130,8 +134,9 @@ export function linearModel(d: ServiceDesign, basis: ProfileBasis, margin: numbe
           const mC = fibre === 'top' ? M[stage].max : M[stage].min
           const mT = fibre === 'top' ? M[stage].min : M[stage].max
           // σ = s·(rP/A + g·p) + kM·M within [−ft, fc], divided by s
-          if (L.compression !== null) rows.push({ a, b, c0: L.compression - margin - kM * mC, c1: (rr * P) / sec.A })
-          if (L.tension !== null) rows.push({ a: -a, b: -b, c0: L.tension - margin + kM * mT, c1: (-rr * P) / sec.A })
+          const fixed = (rr * P) / sec.A - a * local.shift + b * m2Steps // the parts that do not move with the profile
+          if (L.compression !== null) rows.push({ a, b, c0: L.compression - margin - kM * mC, c1: fixed })
+          if (L.tension !== null) rows.push({ a: -a, b: -b, c0: L.tension - margin + kM * mT, c1: -fixed })
         }
       }
     }

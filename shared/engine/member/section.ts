@@ -1,6 +1,8 @@
 /**
  * Section stage: gross section, concrete at 28 days and at stressing, strand and jacking, the
- * strands in the width modelled, and the eccentricity limits the covers and ducts leave.
+ * strands in the width modelled, and the eccentricity limits the covers and ducts leave. A drop or
+ * thickened band over a support deepens the section below its soffit over a length each side: its
+ * own properties, stiffness, outline and eccentricity limits, with e measured from its own centroid.
  */
 import { fail } from '../common/guards'
 import type { StageOutcome } from '../common/stage'
@@ -24,6 +26,27 @@ export interface EccentricityLimits {
   dBottom: number
   /** least cover to the duct for bond, EN 1992-1-1 Table 4.2, mm */
   coverForBond: number
+}
+
+/** The section over a drop (or the plain one): what the stages take at a point of the member. */
+export interface LocalSection {
+  properties: SectionProperties
+  outline: SectionOutline
+  /** Ecm·Ic of the local gross section, N·mm² */
+  EI: number
+  /** how far the local centroid lies below the plain section's, mm (0 outside a drop) */
+  shift: number
+  eccentricity: EccentricityLimits
+}
+
+export interface DropZone {
+  /** the support it sits over, from 0 */
+  support: number
+  depth: number
+  width: number
+  /** the stretch of each span it covers, x from the span's left support, mm */
+  parts: Array<{ span: number; from: number; to: number }>
+  local: LocalSection
 }
 
 export interface MemberSection {
@@ -54,6 +77,12 @@ export interface MemberSection {
   Pjack: number
   eccentricity: EccentricityLimits
   bonded: boolean
+  /** drops and thickened bands over supports, left to right */
+  drops: DropZone[]
+  /** the section at a point of a span: a drop's inside it (its ends at a support included, its ends in the span not), else the plain one */
+  at(span: number, x: number): LocalSection
+  /** each span's flexural stiffness: a number, or segments where drops deepen it */
+  spanEI: Array<number | Array<{ from: number; to: number; EI: number }>>
 }
 
 /** The section's outline for the section-level checks (a slab strip is a 1 m wide rectangle). */
@@ -105,14 +134,79 @@ export function sectionStage(input: MemberInput): StageOutcome<MemberSection> {
     if (r > sdMax) warnings.push(`Span ${i + 1}: span/depth ${r.toFixed(1)} exceeds the usual ${sdMax} for this kind of member; check deflection.`)
   })
 
+  const eccentricity = { top: eTop, bottom: eBottom, dTop, dBottom, coverForBond }
+  const plain: LocalSection = { properties: sec, outline: sectionOutline(input), EI: at28.Ecm * sec.I, shift: 0, eccentricity }
+  const drops = dropZones(input, plain, at28.Ecm)
+  const at = (span: number, x: number): LocalSection => {
+    for (const d of drops) {
+      for (const p of d.parts) {
+        if (p.span !== span) continue
+        const L = spans[span] as number
+        // the ends at a support belong to the drop; its ends within the span to the plain section
+        const fromOk = p.from === 0 ? x >= -1e-6 : x > p.from + 1e-6
+        const toOk = p.to === L ? x <= L + 1e-6 : x < p.to - 1e-6
+        if (fromOk && toOk) return d.local
+      }
+    }
+    return plain
+  }
+  const spanEI = spans.map((L, i) => {
+    const parts = drops.flatMap((d) => d.parts.filter((p) => p.span === i).map((p) => ({ ...p, EI: d.local.EI }))).sort((a, b) => a.from - b.from)
+    if (parts.length === 0) return plain.EI
+    const segs: Array<{ from: number; to: number; EI: number }> = []
+    let x = 0
+    for (const p of parts) {
+      if (p.from > x) segs.push({ from: x, to: p.from, EI: plain.EI })
+      segs.push({ from: p.from, to: p.to, EI: p.EI })
+      x = p.to
+    }
+    if (x < L) segs.push({ from: x, to: L, EI: plain.EI })
+    return segs
+  })
+
   return {
     result: {
-      properties: sec, outline: sectionOutline(input), isSlab, width, tributaryWidth: trib, spanDepth,
-      fck, at28, atTransfer, EI: at28.Ecm * sec.I, strand, jacking, tendonsPerWidth, strands, Ap, sigmaJack, Pjack,
-      eccentricity: { top: eTop, bottom: eBottom, dTop, dBottom, coverForBond },
+      properties: sec, outline: plain.outline, isSlab, width, tributaryWidth: trib, spanDepth,
+      fck, at28, atTransfer, EI: plain.EI, strand, jacking, tendonsPerWidth, strands, Ap, sigmaJack, Pjack,
+      eccentricity,
       bonded: t.bond === 'bonded',
+      drops, at, spanEI,
     },
     checks: [],
     warnings,
   }
+}
+
+/**
+ * The drops of the member: each a deeper section (the plain one with a thickening of depth h_d and
+ * width b_d below its soffit) over its stretch of the spans each side of its support. e is measured
+ * from the local centroid, which lies lower by the shift; the top limit is the plain one's, the
+ * bottom limit comes from the drop's soffit (the tendon may follow it).
+ */
+function dropZones(input: MemberInput, plain: LocalSection, Ecm: number): DropZone[] {
+  const spans = input.geometry.spans
+  const g = input.section
+  const base = plain.properties
+  return [...g.drops].sort((a, b) => a.support - b.support).map((d) => {
+    const j = d.support - 1
+    const beam = g.kind !== 'slab-strip' && g.kind !== 'rectangle'
+    const b = g.kind === 'slab-strip' ? 1000 : g.kind === 'rectangle' ? (g.b as number) : (g.bw as number)
+    const width = beam ? b : Math.min(d.width ?? b, b)
+    const h = g.h + d.depth
+    // a slab or rectangle with a narrower drop is a flanged section: the slab the flange, the drop its web
+    const properties = beam ? sectionProperties({ ...g, h }) : width >= b ? sectionProperties({ kind: g.kind, h, b }) : { ...sectionProperties({ kind: 'flanged', h, bw: width, bf: b, hf: g.h }), kind: g.kind, u: base.u, h0: base.h0 }
+    const outline: SectionOutline = beam
+      ? { kind: 'flanged', bw: g.bw as number, h, bf: g.bf as number, hf: g.hf as number }
+      : width >= b ? { kind: 'rectangle', b, h } : { kind: 'flanged', bw: width, h, bf: b, hf: g.h }
+    const shift = properties.yt - base.yt
+    const e = plain.eccentricity
+    const local: LocalSection = {
+      properties, outline, EI: Ecm * properties.I, shift,
+      eccentricity: { ...e, top: properties.yt - e.dTop, bottom: properties.yb - e.dBottom },
+    }
+    const parts: DropZone['parts'] = []
+    if (j > 0 && d.left > 0) parts.push({ span: j - 1, from: (spans[j - 1] as number) - d.left, to: spans[j - 1] as number })
+    if (j < spans.length && d.right > 0) parts.push({ span: j, from: 0, to: d.right })
+    return { support: j, depth: d.depth, width, parts, local }
+  })
 }

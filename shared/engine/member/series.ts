@@ -57,16 +57,16 @@ export function memberSeries({ stations, section, profile, losses, analysis, str
   const lines = stresses.lines
   const limits = stresses.limits
   const serviceTensionLimit = limits.frequent.tension ?? limits.quasiPermanent.tension ?? 0
-  const { top: eTop, bottom: eBot } = section.eccentricity
+  const local = stations.map((s) => section.at(s.span, s.x)) // over a drop, its own section
   return {
     X,
     span: stations.map((s) => s.span),
     x: stations.map((s) => s.x),
     e: profile.e,
-    eLimitTop: X.map(() => -eTop),
-    eLimitBottom: X.map(() => eBot),
-    depth: X.map(() => section.properties.h),
-    centroid: X.map(() => section.properties.yt),
+    eLimitTop: local.map((l) => -l.eccentricity.top),
+    eLimitBottom: local.map((l) => l.eccentricity.bottom),
+    depth: local.map((l) => l.properties.h),
+    centroid: local.map((l) => l.properties.yt),
     forceFriction: losses.afterFriction,
     forceDrawIn: losses.afterDrawIn,
     forceTransfer: losses.transfer.P,

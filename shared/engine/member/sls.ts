@@ -130,7 +130,8 @@ export function slsStage({ input, section, loads, profile, losses, stresses }: S
   const wQP = loads.selfWeight + loads.superimposed + input.loads.psi2 * loads.imposed // EN 1990 eq. (6.16b)
   // the added loads: permanent ones whole, imposed ones at their own ψ2 (EN 1990 eq. (6.16b))
   const addedQP = loads.added.map((l) => scaledLoad(l.beam, combinationFactor(l, 'quasiPermanent')))
-  const beamLoads: BeamLoad[] = [...spans.map((_, i) => ({ kind: 'udl' as const, span: i, w: wQP })), ...addedQP, ...equivalentLoads(profile.profile, P)]
+  // the drops: their weight (their stiffness and the step of the centroid under them are left out: the plain member's deflection)
+  const beamLoads: BeamLoad[] = [...spans.map((_, i) => ({ kind: 'udl' as const, span: i, w: wQP })), ...loads.dropWeights, ...addedQP, ...equivalentLoads(profile.profile, P)]
   const Icr = (faceName: 'sagging' | 'hogging', e: number): number => {
     const steel: SteelLayer[] = []
     const dBars = faceName === 'sagging' ? h - bb.cover - bb.diameter / 2 : h - bt.cover - bt.diameter / 2
@@ -196,6 +197,12 @@ export function slsStage({ input, section, loads, profile, losses, stresses }: S
     const Mext = sag ? s.moments[stage].max : s.moments[stage].min
     const Mnet = Mext + s.moments.totalService // external + total moment of prestress, about the centroid
     const bars = sag ? bb : bt
+    // over a drop: its depth, outline and centroid (e is measured from it)
+    const ls = section.at(s.span, s.x)
+    const h = ls.properties.h
+    const yt = ls.properties.yt
+    const o = ls.outline
+    const sec = ls.properties
     const dBars = h - bars.cover - bars.diameter / 2
     const dp = sag ? yt + s.e : h - (yt + s.e)
     const steel: SteelLayer[] = []
@@ -227,7 +234,8 @@ export function slsStage({ input, section, loads, profile, losses, stresses }: S
       const env = s.envelope[st]
       // the two linear distributions of the extreme moments: sagging (top max, bottom min) and hogging
       const pairs: Array<[number, number]> = [[env.topMax, env.bottomMin], [env.topMin, env.bottomMax]]
-      const results = pairs.map(([top, bottom]) => decompressionCheck({ sigmaTop: top, sigmaBottom: bottom, h, tendonDepth: Math.min(h, Math.max(0, yt + s.e)), ductHeight: ductReach }))
+      const ls = section.at(s.span, s.x).properties // over a drop, its own depth and centroid
+      const results = pairs.map(([top, bottom]) => decompressionCheck({ sigmaTop: top, sigmaBottom: bottom, h: ls.h, tendonDepth: Math.min(ls.h, Math.max(0, ls.yt + s.e)), ductHeight: ductReach }))
       const worst = results.reduce((a, b) => (b.stress < a.stress ? b : a))
       decompressionSections.push({ id: s.id, label: s.label, X: s.X, level: worst.level, stress: worst.stress, pass: worst.pass })
     }

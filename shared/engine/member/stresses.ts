@@ -48,14 +48,15 @@ export function stageMoments(input: MemberInput, loads: MemberLoads, k: number):
   }
 }
 
-interface StressContext { section: MemberSection; limits: StressLimits; rs: number[]; e: number[]; force: Record<'transfer' | 'service', StageForce>; secondary: Record<'transfer' | 'service', number[]> }
+interface StressContext { section: MemberSection; stations: Station[]; limits: StressLimits; rs: number[]; e: number[]; force: Record<'transfer' | 'service', StageForce>; secondary: Record<'transfer' | 'service', number[]> }
 
 function stressAt(ctx: StressContext, k: number, stage: Stage, M: MomentRange): StageStress {
   const which = stage === 'transfer' ? 'transfer' : 'service'
   const P = at(ctx.force[which].P, k)
   const e = at(ctx.e, k)
   const M2 = at(ctx.secondary[which], k)
-  const sec = ctx.section.properties
+  const st = ctx.stations[k] as Station
+  const sec = ctx.section.at(st.span, st.x).properties // over a drop, its own section
   let topMin = Infinity
   let topMax = -Infinity
   let bottomMin = Infinity
@@ -147,7 +148,7 @@ export function stressesStage(i: StressesInput): StageOutcome<ServiceStresses> {
   const rsup = bonded ? input.annex.rsupBonded : input.annex.rsupUnbonded
   const rinf = bonded ? input.annex.rinfBonded : input.annex.rinfUnbonded
   const ctx: StressContext = {
-    section, limits, rs: forceFactors(rsup, rinf), e: profile.e,
+    section, stations, limits, rs: forceFactors(rsup, rinf), e: profile.e,
     force: { transfer: losses.transfer, service: losses.service },
     secondary: { transfer: analysis.transfer.secondary, service: analysis.service.secondary },
   }

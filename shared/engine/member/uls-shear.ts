@@ -106,7 +106,8 @@ export function shearAtSupports({ input, section, profile, losses, sections, act
     if (j > 0) sides.push({ side: 'left', span: j - 1, x: spans[j - 1] as number })
     if (j < n) sides.push({ side: 'right', span: j, x: 0 })
     const s = byId.get(`support-${j + 1}`)
-    const e = s?.e ?? (profile.profile.supportEcc[j] as number)
+    // the plain section's depth (a drop's is left out of the shear check: conservative), e from its centroid
+    const e = s ? s.e + section.at(s.span, s.x).shift : (profile.profile.supportEcc[j] as number)
     const P = s?.force.service ?? losses.service.Pmean
     for (const sd of sides) {
       const V2 = (['transfer', 'service'] as const).map((stage) => u.gammaP * slope2(stage, sd.span))
@@ -165,8 +166,13 @@ export function punchingAtColumn({ input, section, profile, losses, sections, ac
   const perWidth = (envelope({ kind: 'reaction', support: j }).max + Math.max(...R2)) / 1000 // N per mm of strip width
   const VEd = perWidth * p.panelWidth // the strip reaction over the panel width (common practice)
   const s = sections.find((x) => x.id === `support-${j + 1}`)
-  const e = s?.e ?? (profile.profile.supportEcc[j] as number)
-  const dTendon = h - (yt + e)
+  const e = s ? s.e + section.at(s.span, s.x).shift : (profile.profile.supportEcc[j] as number) // from the plain centroid
+  // a drop over the column counts where the basic control perimeter (2d from the column face) lies within it
+  // (EN 1992-1-1 6.4.2(8)); otherwise the slab's own depth is taken, the perimeter outside the drop (conservative)
+  const drop = section.drops.find((d) => d.support === j)
+  const reachOf = (d: number): boolean => drop !== undefined && drop.parts.every((pt) => (pt.to - pt.from) - p.c1 / 2 >= 2 * d) && drop.parts.length === (j > 0 && j < n ? 2 : 1)
+  const dDrop = drop ? drop.local.properties.h - (yt + e) : 0
+  const dTendon = drop && reachOf(dDrop) ? dDrop : h - (yt + e)
   const dp = Math.max(dTendon, bt.area > 0 ? dTopBars : 0)
   const P = s?.force.service ?? losses.service.Pmean
   const pPerMm = P / 1000

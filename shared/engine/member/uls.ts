@@ -15,6 +15,7 @@ import { reinforcementLimits, supportBondedSteel } from '../uls/reinforcement'
 import type { PrestressAnalysis } from './analysis'
 import type { MemberLoads } from './loads'
 import type { MemberLosses } from './losses'
+import type { LocalSection } from './section'
 import type { MemberProfile } from './profile'
 import type { MemberSection } from './section'
 import type { ServiceStresses } from './stress-limits'
@@ -109,19 +110,24 @@ export function ulsStage({ input, section, loads, profile, losses, analysis, str
   const Ap = section.Ap
   const epsUk = u.epsUdTendon / 0.9 // 3.3.6(7) note: εud = 0.9 εuk
 
-  const face = (faceName: 'sagging' | 'hogging', e: number, Pservice: number, MEd: number): UlsBendingFace => {
-    const dp = faceName === 'sagging' ? yt + e : h - (yt + e)
+  const face = (faceName: 'sagging' | 'hogging', local: LocalSection, e: number, Pservice: number, MEd: number): UlsBendingFace => {
+    // over a drop: its depth and outline, e from its centroid, the bottom bars at its soffit
+    const hl = local.properties.h
+    const dh = hl - h
+    const dBottomBars = actions.dBottomBars + dh
+    const dTopBars = actions.dTopBars + dh
+    const dp = faceName === 'sagging' ? local.properties.yt + e : hl - (local.properties.yt + e)
     const tendon: TendonLayer = {
-      Ap, d: Math.min(h, Math.max(0, dp)), fpk: strand.fpk, fp01k: strand.fp01k, Ep: strand.Ep,
+      Ap, d: Math.min(hl, Math.max(0, dp)), fpk: strand.fpk, fp01k: strand.fp01k, Ep: strand.Ep,
       sigmaPmInf: Math.min(strand.fp01k, Math.max(0, Pservice / Ap)), bonded, epsUk, deltaSigmaULS: u.deltaSigmaUnbonded,
     }
     const tension = faceName === 'sagging' ? { area: bb.area, d: dBottomBars } : { area: bt.area, d: dTopBars }
-    const compression = faceName === 'sagging' ? { area: bt.area, d: h - dTopBars } : { area: bb.area, d: h - dBottomBars }
+    const compression = faceName === 'sagging' ? { area: bt.area, d: hl - dTopBars } : { area: bb.area, d: hl - dBottomBars }
     const bars: BarLayer[] = []
     if (tension.area > 0) bars.push({ As: tension.area, d: tension.d, ...barProps })
     if (compression.area > 0) bars.push({ As: compression.area, d: compression.d, ...barProps })
     const r: BendingResult = bendingResistance({
-      section: section.outline, face: faceName, fck: section.at28.fck, tendons: [tendon], bars, branch: u.branch,
+      section: local.outline, face: faceName, fck: section.at28.fck, tendons: [tendon], bars, branch: u.branch,
       gammaC: u.gammaC, gammaS: u.gammaS, alphaCC: u.alphaCC, MEd, addedBar: { d: tension.d, fyk: u.fyk },
     })
     const t = r.tendons[0] as { stress: number; strain: number }
@@ -147,8 +153,9 @@ export function ulsStage({ input, section, loads, profile, losses, analysis, str
     const { secondary, max, min } = envelopes[r] as (typeof envelopes)[number]
     const MEdMax = rounded(max)
     const MEdMin = rounded(min)
-    const sagging = MEdMax > 0 ? face('sagging', s.e, s.force.service, MEdMax) : null
-    const hogging = MEdMin < 0 ? face('hogging', s.e, s.force.service, -MEdMin) : null
+    const local = section.at(s.span, s.x)
+    const sagging = MEdMax > 0 ? face('sagging', local, s.e, s.force.service, MEdMax) : null
+    const hogging = MEdMin < 0 ? face('hogging', local, s.e, s.force.service, -MEdMin) : null
     return {
       id: s.id, label: s.label, span: s.span, x: s.x, X: s.X, MEdMax, MEdMin, secondary, sagging, hogging,
       utilisation: Math.max(sagging?.utilisation ?? 0, hogging?.utilisation ?? 0),
@@ -224,7 +231,8 @@ export function ulsStage({ input, section, loads, profile, losses, analysis, str
       for (const f of ['sagging', 'hogging'] as const) {
         const r = s[f]
         if (!r) continue
-        const Mcr = f === 'sagging' ? sec.Zb * (fctm + P / sec.A) + P * ss.e : sec.Zt * (fctm + P / sec.A) - P * ss.e // moment at first cracking with the primary prestress
+        const ls = section.at(s.span, s.x).properties // over a drop, its own section
+        const Mcr = f === 'sagging' ? ls.Zb * (fctm + P / ls.A) + P * ss.e : ls.Zt * (fctm + P / ls.A) - P * ss.e // moment at first cracking with the primary prestress
         // a resistance or a cracking moment that is not positive leaves no meaningful ratio: that section governs and fails
         const uu = r.MRd > 0 && Mcr > 0 ? (1.15 * Mcr) / r.MRd : UTILISATION_CAP
         if (!worst || uu > worst.u) worst = { u: uu, MRd: r.MRd, Mcr, label: atStation(s.label, s.X) }

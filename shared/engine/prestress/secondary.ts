@@ -7,7 +7,7 @@
  * carries its own end values; a cantilever is statically determinate and has no secondary moment.
  */
 import { continuousBeamModel } from '../analysis/continuous-beam'
-import type { SpanEI, SupportKind } from '../analysis/continuous-beam'
+import type { BeamLoad, SpanEI, SupportKind } from '../analysis/continuous-beam'
 import { equivalentLoads } from './equivalent-loads'
 import { eccentricityIn, resolveProfile } from './profile'
 import type { ProfilePiece, TendonProfile } from './profile'
@@ -25,7 +25,14 @@ export interface PrestressMomentsInput {
   springs?: number[]
   profile: TendonProfile
   P: number
+  /**
+   * where the section deepens (a drop): the local centroid lies lower by `shift` (mm) over [from, to]
+   * of a span, so e measured from it is smaller by the shift; optional, none by default
+   */
+  centroidShifts?: CentroidShift[]
 }
+
+export interface CentroidShift { span: number; from: number; to: number; shift: number }
 
 export interface PrestressMoments {
   /** at each support, N·mm: total and secondary are taken just right of the support (the last just left) */
@@ -45,18 +52,29 @@ export interface PrestressMoments {
 }
 
 export function prestressMoments(input: PrestressMomentsInput): PrestressMoments {
-  const beam = continuousBeamModel({ spans: input.spans, EI: input.EI, supports: input.supports, springs: input.springs })
-    .analyse(equivalentLoads(input.profile, input.P))
-  const pieces = resolveProfile(input.profile)
+  const shifts = input.centroidShifts ?? []
   const P = input.P
-  const primary = input.profile.supportEcc.map((e) => -P * e) // primary moment M1 = −P·e
+  // a step δ of the centroid steps e by −δ and M1 = −P·e by +P·δ: a couple −P·δ where the shift starts, +P·δ where it ends
+  const steps: BeamLoad[] = shifts.flatMap((s) => [
+    { kind: 'couple' as const, span: s.span, at: s.from, M: -P * s.shift },
+    { kind: 'couple' as const, span: s.span, at: s.to, M: P * s.shift },
+  ])
+  const beam = continuousBeamModel({ spans: input.spans, EI: input.EI, supports: input.supports, springs: input.springs })
+    .analyse([...equivalentLoads(input.profile, P), ...steps])
+  const pieces = resolveProfile(input.profile)
+  const shiftAt = (span: number, x: number): number => {
+    const s = shifts.find((z) => z.span === span && x >= z.from - 1e-6 && x <= z.to + 1e-6)
+    return s ? s.shift : 0
+  }
+  const eAt = (span: number, x: number): number => eccentricityIn(pieces[span] as ProfilePiece[], x) - shiftAt(span, x)
+  const n = input.spans.length
+  const primary = input.profile.supportEcc.map((e, j) => -P * (e - shiftAt(j < n ? j : n - 1, j < n ? 0 : (input.spans[n - 1] as number)))) // primary moment M1 = −P·e
   const total = beam.supportMoments
   const secondary = total.map((m, j) => m - (primary[j] as number)) // EN 1992-1-1 5.10.7: M2 = M − M1
   const secondaryEnds = input.spans.map((L, i) => {
-    const p = pieces[i] as ProfilePiece[]
     return {
-      start: beam.momentAt(i, 0) + P * eccentricityIn(p, 0), // M2 = M − (−P·e)
-      end: beam.momentAt(i, L) + P * eccentricityIn(p, L),
+      start: beam.momentAt(i, 0) + P * eAt(i, 0), // M2 = M − (−P·e)
+      end: beam.momentAt(i, L) + P * eAt(i, L),
     }
   })
   const secondaryAt = (span: number, x: number): number => {

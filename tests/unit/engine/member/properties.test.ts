@@ -2,7 +2,7 @@
  * Properties of the whole member design over seeded random members: 1–30 spans of 2–15 m, slab
  * strips and band beams 150–600 mm deep, bonded and unbonded, pinned and fixed ends, cantilevers at
  * either end, columns below and above (frame action), point, line and partial loads (permanent and
- * imposed, each with its own ψ), fire ratings, every profile kind (reverse curves and kinks over the
+ * imposed, each with its own ψ), drops over supports, fire ratings, every profile kind (reverse curves and kinks over the
  * supports), each stressing end. Invented members.
  */
 import { describe, expect, it } from 'vitest'
@@ -39,7 +39,7 @@ function randomMember(r: () => number, maxSpans = 30): MemberInputDraft {
   // columns below (and sometimes above) at pinned supports: frame action in every load case and in the prestress
   const framed = r() < 0.3
   const where = supports.some((k) => k === 'fixed' || k === 'free') ? 'interior' as const : r() < 0.5 ? 'all' as const : 'interior' as const
-  return {
+  const member: MemberInputDraft = {
     geometry: { spans, supports },
     ...(framed ? { columns: { where, c1: Math.round(between(r, 250, 700)), c2: Math.round(between(r, 250, 700)), heightBelow: Math.round(between(r, 2800, 4500)), heightAbove: r() < 0.5 ? 0 : 3200 } } : {}),
     ...(r() < 0.3 ? { fire: { rating: (['R60', 'R90', 'R120'] as const)[Math.floor(r() * 3)] } } : {}),
@@ -53,6 +53,17 @@ function randomMember(r: () => number, maxSpans = 30): MemberInputDraft {
     losses: { mu: between(r, 0.04, 0.2) * friction, wobble: between(r, 0, 1e-5) * friction, drawIn: between(r, 2, 8) },
     uls: { barsBottom: { area: Math.round(between(r, 0, 800)) }, barsTop: { area: Math.round(between(r, 0, 1200)) } },
   }
+  // drops over some supports (never a free tip): a share of each adjacent span, a full or part width
+  if (r() < 0.3) {
+    const drops = supports.flatMap((k, j) => {
+      if (k === 'free' || r() < 0.5) return []
+      const left = j > 0 ? Math.round(between(r, 0.1, 0.3) * (spans[j - 1] as number)) : 0
+      const right = j < n ? Math.round(between(r, 0.1, 0.3) * (spans[j] as number)) : 0
+      return [{ support: j + 1, left, right, depth: Math.round(between(r, 80, 250)), ...(slab && r() < 0.5 ? { width: Math.round(between(r, 300, 900)) } : {}) }]
+    })
+    member.section = { ...member.section!, drops }
+  }
+  return member
 }
 
 /** The same member seen from the other end: spans, supports and low points reversed, the stressing end swapped. */
@@ -66,6 +77,7 @@ function mirrored(m: MemberInputDraft): MemberInputDraft {
     geometry: { ...g, spans: [...g.spans!].reverse(), ...(g.supports ? { supports: [...g.supports].reverse() } : {}) },
     tendon: { ...m.tendon, stressing: swap[(m.tendon?.stressing ?? 'both') as Ends] },
     profile: { ...m.profile, lowPointAt: (m.profile!.lowPointAt as number[]).map((b) => 1 - b).reverse() },
+    section: { ...m.section!, drops: (m.section!.drops ?? []).map((d) => ({ ...d, support: n + 2 - d.support, left: d.right, right: d.left })) },
     loads: {
       ...m.loads!,
       points: (m.loads!.points ?? []).map((l) => ({ ...l, span: n + 1 - l.span, at: span(l.span) - l.at })),
