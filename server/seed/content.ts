@@ -6,6 +6,8 @@ import type { MySql2Database } from 'drizzle-orm/mysql2'
 import * as schema from '../database/schema'
 import { appendToLog } from '../database/history-log'
 import { compileSheet, starterInputsFor } from '../../shared/sheet/runtime'
+import { memberInputSchema } from '../../shared/engine/input/schema'
+import { DEMO_PS3 } from '../../shared/engine/input/demo'
 
 export interface SeedOwners {
   projectId: number
@@ -19,7 +21,8 @@ const root = resolve(dirname(fileURLToPath(import.meta.url)), '..', '..')
 const DEMO_SHEETS = [
   { reference: 'PS-2', title: 'Podium slab strip, grid 1–5', partOfStructure: 'Podium slab, level 1', template: /slab-strip/ },
   { reference: 'BB-1', title: 'Band beam on grid C', partOfStructure: 'Podium band beams, level 1', template: /band-beam/ },
-]
+  { reference: 'PS-3', title: 'Podium edge strip with cantilever, grid A', partOfStructure: 'Podium slab, level 1', template: /slab-strip/, inputs: DEMO_PS3 },
+] as Array<{ reference: string, title: string, partOfStructure: string, template: RegExp, inputs?: unknown }>
 
 type Db = MySql2Database<typeof schema>
 
@@ -63,7 +66,7 @@ export async function seedContent(db: Db, owners: SeedOwners) {
     if (exists) continue
     await db.insert(schema.sheets).values({
       projectId: owners.projectId, reference: demo.reference, title: demo.title, partOfStructure: demo.partOfStructure,
-      templateId: templates[slug]!, inputs: starterInputsFor(slug), createdBy: owners.engineerId, updatedBy: owners.engineerId,
+      templateId: templates[slug]!, inputs: demo.inputs ? memberInputSchema.parse(demo.inputs) : starterInputsFor(slug), createdBy: owners.engineerId, updatedBy: owners.engineerId,
     })
   }
 }

@@ -168,9 +168,9 @@ function resultShape(): Map<string, ShapeKind> {
   if (!shape) {
     const s = shapeOf(designMember(DEMO_PS2))
     shapeOf(designMember(DEMO_BB1), s)
-    // the optional parts (columns, fire, point and line loads, a cantilever) have their keys whether or not a demo sheet uses them
+    // the optional parts (columns, fire, point and line loads, drops, a cantilever) have their keys whether or not a demo sheet uses them
     shapeOf(designMember({
-      ...DEMO_PS2, columns: { where: 'all' }, fire: { rating: 'R60' },
+      ...DEMO_PS2, columns: { where: 'all' }, fire: { rating: 'R60' }, section: { ...DEMO_PS2.section, drops: [{ support: 2, left: 1500, right: 1500, depth: 150 }] },
       loads: { ...DEMO_PS2.loads, points: [{ span: 1, at: 1000, P: 1000 }], lines: [{ span: 1, at: 2000, w: 1 }], partials: [{ span: 1, from: 0, length: 1000, q: 1e-3 }] },
     }, { proposal: false }), s)
     shape = s

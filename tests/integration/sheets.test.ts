@@ -14,13 +14,13 @@ async function firstTemplate(client: Awaited<ReturnType<typeof signedIn>>) {
 }
 
 describe('calc sheets', () => {
-  it('seeds the demo sheets PS-2 and BB-1 from the built-in templates', async () => {
+  it('seeds the demo sheets PS-2, BB-1 and PS-3 from the built-in templates', async () => {
     const client = await signedIn('engineer')
     const project = (await client.get(`/api/projects/${await demoProject(client)}`)).body
     // the end-to-end tests run beside these on the same database and add sheets of their own to the
     // demo project, each with a reference ending in a base-36 time stamp ("RET-mx6e8tar"): leave those out
     const refs = project.sheets.map((s: { reference: string }) => s.reference) as string[]
-    expect(refs.filter(r => !/-[0-9a-z]{6,}$/.test(r))).toEqual(['BB-1', 'PS-2'])
+    expect(refs.filter(r => !/-[0-9a-z]{6,}$/.test(r))).toEqual(['BB-1', 'PS-2', 'PS-3'])
   })
 
   it('creates a sheet from a template with complete starter inputs', async () => {

@@ -470,7 +470,11 @@ export function inputSpecsList(): InputFieldSpec[] {
 }
 
 /** Input specs keyed by the input dot path ('tendon.spacing'). */
-export const INPUT_SPECS: Record<string, InputFieldSpec['spec']> = Object.fromEntries(inputSpecsList().map((f) => [f.path, f.spec]))
+export const INPUT_SPECS: Record<string, InputFieldSpec['spec']> = Object.fromEntries(inputSpecsList().flatMap((f) => [
+  [f.path, f.spec] as const,
+  // a table's columns under the table's path ('loads.lines.w')
+  ...(f.columns ?? []).map((c) => [`${f.path}.${c.path}`, c.spec] as const),
+]))
 
 /** The spec of a concrete result path ('sections.3.stress.transfer.top'), or of an input path. */
 export function specFor(path: string): QuantitySpec | undefined {

@@ -6,7 +6,7 @@
 import { readFileSync } from 'node:fs'
 import { fileURLToPath } from 'node:url'
 import { describe, expect, it } from 'vitest'
-import { DEMO_BB1, DEMO_PS2 } from '../../../shared/engine/input/demo'
+import { DEMO_BB1, DEMO_PS2, DEMO_PS3 } from '../../../shared/engine/input/demo'
 import { designMember } from '../../../shared/engine/member/design'
 import { BUILTIN_TEMPLATES, TEMPLATE_LANGUAGE_DOC, builtinTemplate } from '../../../shared/report/builtins/index'
 import { loadBuiltinTemplates } from '../../../shared/report/builtins/node'
@@ -21,11 +21,11 @@ import { startTags } from './helpers'
 const root = fileURLToPath(new URL('../../../', import.meta.url))
 const read = (file: string): string => readFileSync(`${root}${file}`, 'utf8')
 
-const DEMOS = { 'PS-2': DEMO_PS2, 'BB-1': DEMO_BB1 } as const
-const DESIGNS = { 'PS-2': designMember(DEMO_PS2), 'BB-1': designMember(DEMO_BB1) }
+const DEMOS = { 'PS-2': DEMO_PS2, 'BB-1': DEMO_BB1, 'PS-3': DEMO_PS3 } as const
+const DESIGNS = { 'PS-2': designMember(DEMO_PS2), 'BB-1': designMember(DEMO_BB1), 'PS-3': designMember(DEMO_PS3) }
 /** which demo sheets each template is for (design.md §6: PS-2 a slab strip, BB-1 a band beam) */
 const SHEETS: Record<string, Array<keyof typeof DEMOS>> = {
-  'pt-slab-strip': ['PS-2'],
+  'pt-slab-strip': ['PS-2', 'PS-3'],
   'pt-band-beam': ['BB-1'],
   'pt-section-check': ['PS-2', 'BB-1'],
 }
