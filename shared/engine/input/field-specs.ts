@@ -77,7 +77,7 @@ function walk(schema: z.ZodType, path: string, out: InputFieldSpec[]): void {
     if (ed.type === 'object' && ed.shape) {
       const columns: InputFieldSpec[] = []
       for (const [k, v] of Object.entries(ed.shape)) walk(v, k, columns)
-      const emptyRow = Object.fromEntries(Object.entries(ed.shape).map(([k, v]) => [k, defaultOf(v, columns.find((c) => c.path === k))]))
+      const emptyRow = Object.fromEntries(Object.entries(ed.shape).map(([k, v]) => [k, defaultOf(v, columns.find((c) => c.path === k))]).filter(([, v]) => v !== undefined))
       out.push({ path, spec: toSpec(m), kind: 'table', columns, emptyRow })
       return
     }
@@ -91,6 +91,7 @@ function walk(schema: z.ZodType, path: string, out: InputFieldSpec[]): void {
 function defaultOf(schema: z.ZodType, column: InputFieldSpec | undefined): unknown {
   const d = defOf(schema) as ZodDefLike & { defaultValue?: unknown }
   if (d.type === 'default') return typeof d.defaultValue === 'function' ? (d.defaultValue as () => unknown)() : d.defaultValue
+  if (d.type === 'optional') return undefined // left out: the engine's own default applies
   if (column?.kind === 'enum') return column.options?.[0]
   const inner = unwrap(schema)
   const min = (inner as unknown as { minValue?: number | null }).minValue

@@ -130,11 +130,11 @@ const partialLoadSchema = addedLoad('Partial load', {
 const dropSchema = z.object({
   support: z.number({ error: 'Drop: enter the support number' }).int('Drop: the support is a whole number').min(1, 'Drop: supports are numbered from 1').max(1001, 'Drop: at most support 1001')
     .meta(meta({ label: 'Support (numbered from 1)', unit: '', precision: 0, group: 'section' })),
-  left: z.number({ error: 'Drop: enter the length to the left of the support' }).min(0, 'Drop: the length to the left must not be negative').max(20000, 'Drop: the length to the left must not exceed 20 m')
+  left: z.number({ error: 'Drop: enter the length to the left of the support' }).min(0, 'Drop: the length to the left must not be negative').max(20000, 'Drop: the length to the left must not exceed 20 m').default(0)
     .meta(meta({ label: 'Length to the left of the support', unit: 'm', precision: 2, group: 'section', help: 'from the support\'s centre line; 0 at the first support' })),
-  right: z.number({ error: 'Drop: enter the length to the right of the support' }).min(0, 'Drop: the length to the right must not be negative').max(20000, 'Drop: the length to the right must not exceed 20 m')
+  right: z.number({ error: 'Drop: enter the length to the right of the support' }).min(0, 'Drop: the length to the right must not be negative').max(20000, 'Drop: the length to the right must not exceed 20 m').default(1200)
     .meta(meta({ label: 'Length to the right of the support', unit: 'm', precision: 2, group: 'section', help: 'from the support\'s centre line; 0 at the last support' })),
-  depth: z.number({ error: 'Drop: enter the depth below the soffit' }).min(25, 'Drop: the depth below the soffit must be at least 25 mm').max(2000, 'Drop: the depth below the soffit must not exceed 2000 mm')
+  depth: z.number({ error: 'Drop: enter the depth below the soffit' }).min(25, 'Drop: the depth below the soffit must be at least 25 mm').max(2000, 'Drop: the depth below the soffit must not exceed 2000 mm').default(150)
     .meta(meta({ label: 'Depth below the soffit', unit: 'mm', precision: 0, group: 'section', symbol: 'h_d' })),
   width: z.number({ error: 'Drop: enter the width' }).min(100, 'Drop: the width must be at least 100 mm').max(20000, 'Drop: the width must not exceed 20 m').optional()
     .meta(meta({ label: 'Width of the thickening', unit: 'mm', precision: 0, group: 'section', symbol: 'b_d', help: 'a slab strip: the drop\'s width per metre of strip (its width over the column line\'s width × 1000); left out: the whole width (a beam: its web)' })),
