@@ -31,6 +31,7 @@ export function siteStage(input: MemberInput, section: MemberSection, profile: M
   const heights = tendonHeightSchedule({
     profile: profile.profile, h: section.properties.h, centroidHeight: section.properties.yb, spacing: s.spacing,
     centroidToUnderside: { sagging: half + offset, hogging: Math.max(0, half - offset) }, roundTo: s.roundTo,
+    ...(section.drops.length > 0 ? { drops: { depthAt: (span: number, x: number) => section.at(span, x).properties.h - section.properties.h, edges: section.drops.flatMap((d) => d.parts.flatMap((p) => [{ span: p.span, x: p.from }, { span: p.span, x: p.to }])) } } : {}),
   })
   if (heights.outside > 0) warnings.push('Tendon heights: the duct leaves the section at some station; check the profile and covers.')
 

@@ -27,6 +27,11 @@ export interface TendonHeightInput {
   centroidToUnderside: number | { sagging: number; hogging: number }
   /** the schedule rounds heights to this, mm (5 mm is common practice); 0 leaves them unrounded */
   roundTo?: number
+  /**
+   * where a drop deepens the section: the depth below the plain soffit at (span, x), mm, and the ends
+   * of each drop within its spans; the heights there are taken from the drop's soffit, where its chairs stand
+   */
+  drops?: { depthAt(span: number, x: number): number; edges: Array<{ span: number; x: number }> }
 }
 
 export interface HeightRow {
@@ -88,17 +93,19 @@ export function tendonHeightSchedule(i: TendonHeightInput): TendonHeightSchedule
     add(lowPointFraction(i.profile, s) * L, 'low')
     if (lambda > 0 && s > 0) add(lambda * L, 'inflection')
     if (lambda > 0 && s < n - 1) add(L - lambda * L, 'inflection')
+    for (const edge of i.drops?.edges ?? []) if (edge.span === s) add(edge.x, 'station')
     const spanRows = [...points.entries()]
       .sort((a, b) => a[0] - b[0])
       .map(([x, kind]) => {
         const spanPieces = pieces[s] as NonNullable<(typeof pieces)[number]>
         const e = eccentricityIn(spanPieces, x)
-        const centroid = i.centroidHeight - e // e below the centroid lowers the tendon
+        const dropDepth = i.drops ? i.drops.depthAt(s, x) : 0
+        const centroid = i.centroidHeight + dropDepth - e // e below the centroid lowers the tendon; over a drop its soffit is lower
         const c = (spanPieces.find((p) => x <= p.x1) ?? (spanPieces[spanPieces.length - 1] as ProfilePiece)).c
         // e'' < 0: the tendon curves upwards (sagging), e'' > 0 downwards; a straight piece takes the mean
         const drop = c < 0 ? below.sagging : c > 0 ? below.hogging : (below.sagging + below.hogging) / 2
         const underside = centroid - drop
-        if (underside < 0 || centroid > i.h) outside++
+        if (underside < 0 || centroid > i.h + dropDepth) outside++
         const chair = roundTo > 0 ? Math.round(underside / roundTo) * roundTo : underside
         return { span: s, x, xGlobal: x0 + x, kind, e, centroid, underside, chair }
       })

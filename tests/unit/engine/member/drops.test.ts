@@ -131,6 +131,16 @@ describe('a member with a drop', () => {
     expect(MRd(dropped)).toBeGreaterThan(1.2 * MRd(plain))
   })
 
+  it('the chairs over a drop stand on its soffit: their heights grow by the drop\'s depth where the tendon is the same (geometry)', () => {
+    const plain = designMember(TWO_SPAN_SLAB, { proposal: false })
+    const dropped = designMember(DROPPED, { proposal: false })
+    const row = (d: typeof plain, span: number, x: number) => d.site.heights.rows.find((r) => r.span === span && Math.abs(r.x - x) < 1)!
+    expect(row(dropped, 0, 8000).underside - row(plain, 0, 8000).underside).toBeCloseTo(150, 6) // over the support, inside the drop
+    expect(row(dropped, 0, 4000).underside).toBeCloseTo(row(plain, 0, 4000).underside, 6) // mid-span, plain soffit
+    expect(dropped.site.heights.rows.some((r) => r.span === 0 && Math.abs(r.x - 6400) < 1)).toBe(true) // a row at the drop's edge
+    expect(dropped.site.heights.outside).toBe(0)
+  })
+
   it('mirror symmetry: the symmetric member with its symmetric drop has symmetric stresses', () => {
     const d = designMember(DROPPED)
     const find = (id: string) => d.sections.find((s) => s.id === id)!
