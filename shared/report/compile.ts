@@ -13,6 +13,7 @@ import type { ReportModel } from './model'
 import { parseTemplate } from './parse'
 import type { MathMeta, TemplateMeta } from './parse'
 import { BLOCK_ATTRIBUTES, isName, parseKey } from './syntax'
+import { calcNames, lintCalcBlock } from '../calc/quantities'
 
 export interface CompiledTemplate {
   meta: TemplateMeta
@@ -26,13 +27,25 @@ export interface CompiledTemplate {
 
 type Use = 'in' | 'val' | 'each' | 'at'
 
+/** :val[calc.name] shows a quantity a calculation block defines */
+export const CALC_PREFIX = 'calc'
+
 function frontMatterLine(text: string, field: string): number {
   const lines = text.replace(/\r\n?/g, '\n').split('\n')
   const at = lines.findIndex((l) => new RegExp(`^${field}\\s*:`).test(l))
   return at >= 0 ? at + 1 : 1
 }
 
+/** The quantities the template's calculation blocks define (calc.name keys), per check. */
+let calcDefined: ReadonlySet<string> = new Set()
+
 function checkKey(model: ReportModel, key: string, segments: readonly string[], use: Use, line: number, scopes: readonly PatternScope[], errors: TemplateError[], used: Set<string>): string | null {
+  if (segments[0] === CALC_PREFIX && !scopes.some((s) => s.name === CALC_PREFIX)) {
+    const name = segments[1]
+    if (use !== 'val') errors.push(new TemplateKeyError(line, key, `"${key}" is a quantity of a calculation block: show it with :val[${key}]`))
+    else if (segments.length !== 2 || name === undefined || !calcDefined.has(name)) errors.push(new TemplateKeyError(line, key, `no calculation block defines "${segments.slice(1).join('.')}"`))
+    return null
+  }
   const resolved = resolvePattern(segments, scopes)
   if (resolved.kind === 'bad') {
     errors.push(new TemplateKeyError(line, key, resolved.problem))
@@ -86,6 +99,20 @@ function checkBlock(model: ReportModel, meta: BlockMeta, scopes: PatternScope[],
   if (directive === 'checks' && attrs.group !== undefined && !model.checkGroups.includes(attrs.group)) {
     errors.push(new TemplateSyntaxError(line, `unknown check group "${attrs.group}": the model ${model.id} has ${model.checkGroups.join(', ')} (leave the group out for every check)`))
   }
+  if (directive === 'calc') {
+    if (scopes.length > 0) errors.push(new TemplateSyntaxError(line, 'a calculation block stands on its own, not inside ::: each'))
+    const keyProblem = (key: string): string | null => {
+      const parsed = parseKey(key)
+      if ('problem' in parsed) return `val("…") needs a key, but ${parsed.problem}`
+      const before = errors.length
+      checkKey(model, key, parsed.segments, 'val', line, [], errors, used)
+      const found = errors.splice(before)
+      return found.length > 0 ? found.map((e) => e.detail).join('; ') : null
+    }
+    for (const p of lintCalcBlock(meta.source ?? '', calcKnown, keyProblem)) {
+      errors.push(new TemplateSyntaxError(line + p.line, `calculation${p.name ? ` of ${p.name}` : ''}: ${p.message}`))
+    }
+  }
   if (directive === 'overview' && !model.overview) {
     errors.push(new TemplateSyntaxError(line, `the model ${model.id} has no front page of results: remove the ::: overview block`))
   }
@@ -136,8 +163,14 @@ function checkAt(model: ReportModel, at: string, wanted: string | undefined, lin
   if (pattern !== null && pattern !== wanted) errors.push(new TemplateKeyError(line, at, `at=${at} must name one element of ${wanted.replace(/\[\]$/, '')} (e.g. an each over it)`))
 }
 
+/** Names defined so far by the calculation blocks, in document order, during one check. */
+let calcKnown = new Set<string>()
+
 function checkBody(model: ReportModel, tokens: readonly Token[], errors: TemplateError[]): Set<string> {
   const used = new Set<string>()
+  // every quantity the blocks define may be shown anywhere; inside the blocks, only those above
+  calcDefined = new Set(tokens.filter((t) => t.type === 'tb_block_open' && (t.meta as BlockMeta).directive === 'calc').flatMap((t) => calcNames((t.meta as BlockMeta).source ?? '').map((n) => n.name)))
+  calcKnown = new Set()
   const frames: Array<PatternScope | null> = []
   const scopes = (): PatternScope[] => frames.filter((f): f is PatternScope => f !== null)
   const visit = (token: Token): void => {

@@ -31,6 +31,9 @@ export interface BlockMeta {
   attrs: Record<string, string>
   problems: string[]
   line?: number
+  /** a calculation block's own text (its lines are not Markdown), and the 0-based body line of its first line */
+  source?: string
+  sourceLine?: number
 }
 
 type KatexPlugin = (md: MarkdownIt, options?: object) => MarkdownIt
@@ -132,6 +135,20 @@ function blockDirective(state: StateBlock, startLine: number, endLine: number, s
   }
   const closed = depth === 0 && next < endLine
   if (!closed) meta.problems.push(`the block "::: ${name}" is never closed: end it with a line ":::"`)
+
+  if (name === 'calc') {
+    // a calculation block's lines are its own language, not Markdown: kept as text
+    meta.source = Array.from({ length: next - startLine - 1 }, (_, k) => state.src.slice(state.bMarks[startLine + 1 + k]!, state.eMarks[startLine + 1 + k]!)).join('\n')
+    meta.sourceLine = startLine + 1
+    const openToken = state.push('tb_block_open', 'div', 1)
+    openToken.block = true
+    openToken.map = [startLine, next]
+    openToken.meta = meta
+    const closeToken = state.push('tb_block_close', 'div', -1)
+    closeToken.block = true
+    state.line = closed ? next + 1 : next
+    return true
+  }
 
   const oldParent = state.parentType
   const oldLineMax = state.lineMax

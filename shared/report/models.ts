@@ -182,7 +182,7 @@ function resultShape(): Map<string, ShapeKind> {
 let groups: string[] | null = null
 function checkGroups(): string[] {
   if (!groups) {
-    const found = new Set(['transfer', 'service', 'precompression', 'tendon', 'balancing', 'uls', 'detailing', 'sls', 'fire', 'site'])
+    const found = new Set(['transfer', 'service', 'precompression', 'tendon', 'balancing', 'uls', 'detailing', 'sls', 'fire', 'site', 'own'])
     for (const demo of [DEMO_PS2, DEMO_BB1]) for (const c of designMember(demo).checks) found.add(c.group)
     groups = [...found].sort()
   }

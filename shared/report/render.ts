@@ -8,7 +8,7 @@
 import katex from 'katex'
 import type { Env, Renderer, Token } from 'markdown-it'
 import type { CheckResult } from '../engine/contract'
-import { formatQuantity } from '../utils/units'
+import { formatQuantity, fromEngine } from '../utils/units'
 import { describeKey, inputPath, resolvePath } from './bind'
 import type { KeyInfo, PathScope } from './bind'
 import type { CompiledTemplate } from './compile'
@@ -19,6 +19,8 @@ import type { ModelFigure, ReportModel } from './model'
 import type { MathMeta } from './parse'
 import { parseKey } from './syntax'
 import { tallyByGroup, tallyChecks, tallyText } from './tally'
+import { evaluateCalcBlock } from '../calc/quantities'
+import type { CalcBlockResult, CalcQuantity, SheetValue } from '../calc/quantities'
 
 export type RenderMode = 'edit' | 'frozen' | 'print'
 
@@ -78,6 +80,9 @@ interface ReportEnv {
   checkSummary: Map<string, string>
   unresolved: UnresolvedKey[]
   keySections: Map<string, string>
+  /** each calculation block's result, and every quantity they define by name */
+  calc: Map<BlockMeta, CalcBlockResult>
+  quantities: Map<string, CalcQuantity>
 }
 
 const KATEX_OPTIONS = {
@@ -120,6 +125,12 @@ function lookup(env: ReportEnv, info: KeyInfo, path: string): unknown {
 }
 
 function resolveValue(env: ReportEnv, segments: readonly string[], key: string, line: number, use: 'input' | 'value' = 'value'): { text: string; tex: string; missing: boolean } {
+  if (segments[0] === 'calc' && segments.length === 2 && !env.scopes.some((s) => s.name === 'calc')) {
+    const q = env.quantities.get(segments[1]!)
+    if (!q) return { text: '—', tex: '\\text{—}', missing: true }
+    const digits = q.value.toFixed(q.precision)
+    return { text: `${digits}${q.unit ? `\u202f${q.unit}` : ''}`, tex: q.tex.result, missing: false }
+  }
   const r = resolvePath(segments, env.scopes)
   if (r.kind === 'index') return { text: String(r.index + 1), tex: `\\text{${r.index + 1}}`, missing: false }
   const info = describeKey(env.model, r.pattern, use)
@@ -308,6 +319,7 @@ function renderBlock(meta: BlockMeta, inner: readonly Token[], env: ReportEnv): 
   if (meta.directive === 'checks') return renderChecks(meta, inner, env)
   if (meta.directive === 'figure') return renderFigure(meta, inner, env)
   if (meta.directive === 'overview') return renderOverview(inner, env)
+  if (meta.directive === 'calc') return renderCalc(meta, env)
   return renderTokens(inner, env)
 }
 
@@ -516,7 +528,13 @@ export function renderReport(compiled: CompiledTemplate, options: RenderOptions)
     checkSummary: new Map(),
     unresolved: [],
     keySections: new Map(),
+    calc: new Map(),
+    quantities: new Map(),
   }
+  // the engineer's calculations first: their checks join the tables and the summary wherever those stand
+  evaluateCalcBlocks(compiled.tokens, env)
+  const own = [...env.calc.values()].flatMap((r) => r.checks.map(({ line: _line, tex: _tex, ...c }) => c))
+  if (own.length > 0) env.checks = [...env.checks, ...own]
   const body = renderTokens(compiled.tokens, env)
   const homeOf = (c: CheckResult): string | null => env.checkHome.get(c.id) ?? env.checkSummary.get(c.id) ?? null
   const sectionLink = (id: string | null | undefined): string => {
@@ -539,4 +557,52 @@ export function renderReport(compiled: CompiledTemplate, options: RenderOptions)
     unresolved: uniqueUnresolved(env.unresolved),
     keySections: Object.fromEntries(env.keySections),
   }
+}
+
+/** The calculation blocks in document order: each one's quantities, checks and problems. */
+function evaluateCalcBlocks(tokens: readonly Token[], env: ReportEnv): void {
+  const sheetValue = (key: string): SheetValue | undefined => {
+    const parsed = parseKey(key)
+    if ('problem' in parsed) return undefined
+    const r = resolvePath(parsed.segments, [])
+    if (r.kind !== 'path') return undefined
+    const info = describeKey(env.model, r.pattern, 'value')
+    const spec = info?.spec
+    if (!info || !spec) return undefined
+    const v = lookup(env, info, r.path)
+    if (typeof v !== 'number' || !Number.isFinite(v)) return undefined
+    return { value: fromEngine(v, spec.unit), unit: spec.unit, precision: spec.precision, ...(spec.symbol ? { symbol: spec.symbol } : {}), label: spec.label }
+  }
+  let n = 0
+  for (const token of tokens) {
+    if (token.type !== 'tb_block_open') continue
+    const meta = token.meta as BlockMeta
+    if (meta.directive !== 'calc') continue
+    n += 1
+    const result = evaluateCalcBlock(meta.source ?? '', { lookup: sheetValue, earlier: env.quantities, blockId: String(n) })
+    env.calc.set(meta, result)
+    for (const q of result.quantities) env.quantities.set(q.name, q)
+  }
+}
+
+function renderCalc(meta: BlockMeta, env: ReportEnv): string {
+  const r = env.calc.get(meta)
+  if (!r) return ''
+  const parts: string[] = []
+  for (const q of r.quantities) {
+    const tex = q.tex.given
+      ? `${q.tex.name} = ${q.tex.result}`
+      : `\\begin{aligned} ${q.tex.name} &= ${q.tex.symbols} \\\\ &= ${q.tex.numbers} \\\\ &= ${q.tex.result} \\end{aligned}`
+    const what = q.description ? `<p class="tb-calc-what">${escapeHtml(q.description)}</p>` : ''
+    parts.push(`<div class="tb-calc-quantity" data-name="${escapeHtml(q.name)}">${what}<div class="tb-math">${typeset(tex, true)}</div></div>`)
+  }
+  for (const c of r.checks) {
+    const verdict = c.pass ? 'satisfied' : 'not satisfied'
+    parts.push(`<div class="tb-calc-check ${c.pass ? 'tb-pass' : 'tb-fail'}" data-check="${escapeHtml(c.id)}"><p class="tb-calc-what">${escapeHtml(c.title)}: ${verdict}, utilisation ${escapeHtml(c.utilisation.toFixed(2))}</p><div class="tb-math">${typeset(c.tex, true)}</div></div>`)
+  }
+  const base = meta.line ?? 0
+  for (const p of r.problems) {
+    parts.push(`<p class="tb-calc-problem" role="note">Line ${base + p.line}${p.name ? ` (${escapeHtml(p.name)})` : ''}: ${escapeHtml(p.message)}</p>`)
+  }
+  return `<div class="tb-calc">${parts.join('\n')}</div>\n`
 }

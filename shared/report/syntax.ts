@@ -14,7 +14,7 @@
 export const INLINE_DIRECTIVES = ['in', 'val'] as const
 export type InlineDirective = (typeof INLINE_DIRECTIVES)[number]
 
-export const BLOCK_DIRECTIVES = ['checks', 'figure', 'each', 'overview'] as const
+export const BLOCK_DIRECTIVES = ['checks', 'figure', 'each', 'overview', 'calc'] as const
 export type BlockDirective = (typeof BLOCK_DIRECTIVES)[number]
 
 /** Which attributes each block takes, and which of them are required. */
@@ -23,6 +23,7 @@ export const BLOCK_ATTRIBUTES: Record<BlockDirective, { required: readonly strin
   figure: { required: ['plot'], optional: ['at'] },
   each: { required: ['in', 'as'], optional: ['where', 'is'] },
   overview: { required: [], optional: [] },
+  calc: { required: [], optional: [] },
 }
 
 const NAME = /^[A-Za-z_][A-Za-z0-9_]*$/
