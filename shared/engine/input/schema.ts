@@ -13,6 +13,7 @@ import type { DisplayUnit } from '../../utils/units'
 import { CONCRETE_CLASSES } from '../materials/concrete'
 import type { ConcreteClass } from '../materials/concrete'
 import { EXPOSURE_CLASSES } from '../checks/stresses'
+import { jointIssues } from '../prestress/segments'
 
 export const INPUT_GROUPS = ['geometry', 'section', 'materials', 'loads', 'tendon', 'profile', 'losses', 'limits', 'annex', 'uls', 'sls', 'fire', 'site'] as const
 export type InputGroup = (typeof INPUT_GROUPS)[number]
@@ -140,6 +141,20 @@ const dropSchema = z.object({
     .meta(meta({ label: 'Width of the thickening', unit: 'mm', precision: 0, group: 'section', symbol: 'b_d', help: 'a slab strip: the drop\'s width per metre of strip (its width over the column line\'s width × 1000); left out: the whole width (a beam: its web)' })),
 })
 
+/**
+ * A joint of a tendon built in segments, over an interior support: a construction joint with an
+ * intermediate anchorage (stressing pocket) or a coupler; the segment stressed at the joint is the
+ * one cast first at a coupler (the coupled one is stressed from its other end).
+ */
+const jointSchema = z.object({
+  support: z.number({ error: 'Joint: enter the support number' }).int('Joint: the support number is a whole number').min(1, 'Joint: supports are numbered from 1 at the left end').max(1001, 'Joint: at most support 1001')
+    .meta(meta({ label: 'Over support (numbered from 1)', unit: '', precision: 0, group: 'tendon', help: 'an interior support; the segments either side are stressed apart' })),
+  kind: z.enum(['intermediate-anchorage', 'coupler'], { error: 'Joint: an intermediate anchorage or a coupler' }).default('intermediate-anchorage')
+    .meta(meta({ label: 'Joint', unit: '', precision: 0, group: 'tendon', help: 'intermediate anchorage: each segment anchored at the joint (stressing pocket or construction joint); coupler: the next segment coupled to the anchorage of the one before' })),
+  stressed: z.enum(['left', 'right', 'both', 'neither'], { error: 'Joint: the left, the right, both or neither segment' }).default('left')
+    .meta(meta({ label: 'Segment stressed at the joint', unit: '', precision: 0, group: 'tendon', help: 'left: the segment on the left has its live anchorage here, the one on the right is anchored dead and stressed from its other end; at a coupler, the segment cast first' })),
+})
+
 const eccSchema = z.number({ error: 'Eccentricity: enter a number' })
   .min(-2000, 'The eccentricity must lie within the section').max(2000, 'The eccentricity must lie within the section')
   .meta(meta({ label: 'Eccentricity (below centroid +)', unit: 'mm', precision: 1, group: 'profile', symbol: 'e' }))
@@ -208,6 +223,8 @@ export const memberInputShape = {
     stressing: z.enum(['left', 'right', 'both']).default('both')
       .meta(meta({ label: 'Stressed from', unit: '', precision: 0, group: 'tendon' })),
     jackingFactor: fraction({ label: 'Jacking stress as a share of σp,max', precision: 0, group: 'tendon', clause: 'EN 1992-1-1 5.10.2.1' }, 0.5, 1).default(1),
+    joints: z.array(jointSchema).max(100, 'At most 100 joints').default([])
+      .meta(meta({ label: 'Joints in the tendon (segments built in turn)', unit: '', precision: 0, group: 'tendon', help: 'a long member cast bay by bay: each joint over an interior support, each segment with its own friction, draw-in and extension; none: one tendon end to end' })),
   }),
   profile: z.object({
     mode: z.enum(['deepest', 'custom']).default('deepest')
@@ -347,7 +364,8 @@ export const memberInputShape = {
     spacing: bounded({ label: 'Station spacing of the height schedule', unit: 'mm', precision: 0, group: 'site', help: 'commonly 500 or 1000 mm' }, 100, 5000).default(1000),
     roundTo: bounded({ label: 'Chair heights rounded to', unit: 'mm', precision: 0, group: 'site', help: '5 mm is common practice; 0 leaves them unrounded' }, 0, 25).default(5),
     tendons: z.number().int('Tendons on the schedule: a whole number').min(1, 'At least one tendon').max(200, 'At most 200 tendons').optional()
-      .meta({ label: 'Tendons on the stressing schedule', unit: '', precision: 0, group: 'site', help: 'beams default to the tendon count, slab strips to one typical tendon' }),
+      .meta({ label: 'Tendons on the stressing schedule', unit: '', precision: 0, group: 'site', help: 'overrides the count: beams default to their tendons, slab strips to the width of strip below (one typical tendon where it is left out)' }),
+    stripWidth: length({ label: 'Width of slab on the stressing schedule (slab strips)', unit: 'm', precision: 2, group: 'site', symbol: 'b_{sch}', help: 'the width of the floor whose tendons this schedule lists, e.g. the design strip between column lines: width / spacing tendons, rounded' }, 100, 100000).optional(),
     alternateEnds: z.enum(['no', 'yes']).default('no')
       .meta({ label: 'Alternate the stressing end tendon by tendon', unit: '', precision: 0, group: 'site', help: 'for tendons stressed from one end' }),
     tolerance: bounded({ label: 'Acceptance band on measured extensions', unit: '%', precision: 0, group: 'site', help: '±7 % is common practice' }, 0, 0.5).default(0.07),
@@ -397,6 +415,9 @@ function refineMember(v: z.output<z.ZodObject<typeof memberInputShape>>, ctx: Ct
   within('points', 'Point load')
   within('lines', 'Line load')
   within('partials', 'Partial load')
+  for (const j of jointIssues(n, v.tendon.stressing, v.tendon.joints)) {
+    issue(j.joint === null ? ['tendon', 'stressing'] : ['tendon', 'joints', j.joint, j.field], j.message)
+  }
   const s = v.section
   refineDrops(v, issue)
   if (s.kind === 'rectangle' && s.b === undefined) issue(['section', 'b'], 'Give the width of the rectangle')

@@ -12,8 +12,8 @@ import type { MemberInput } from '../input/schema'
 import { creepCoefficient, shrinkageStrain } from '../materials/creep-shrinkage'
 import { RHO1000, relaxationLoss } from '../materials/strand'
 import { balancedLoad } from '../prestress/equivalent-loads'
-import { forceAfterLockOff } from '../prestress/draw-in'
-import { frictionCurves } from '../prestress/friction'
+import { segmentWords, segmentedForce, tendonSegments } from '../prestress/segments'
+import type { SegmentForce } from '../prestress/segments'
 import { elasticShorteningLoss, timeDependentParts } from '../prestress/losses'
 import { tendonPath } from '../prestress/path'
 import type { BalancingNeed } from './balancing'
@@ -34,8 +34,30 @@ export interface ForceSummary {
   meanTransfer: number
   meanService: number
   maxAfterLockOff: number
+  /** the longest over the segments */
   drawInLength: number
   eta: number
+  /** friction and draw-in segment by segment */
+  segments: SegmentLosses[]
+}
+
+/** Friction and draw-in of one segment of the tendon (the whole tendon where it has no joints). */
+export interface SegmentLosses {
+  number: number
+  /** support numbers at its ends, from 1 */
+  from: number
+  to: number
+  ends: 'left' | 'right' | 'both'
+  /** its supports and joints in words */
+  words: string
+  /** along the tendon, mm; total angular deviation, rad */
+  length: number
+  theta: number
+  /** mean force along the segment after friction and after draw-in, N */
+  meanAfterFriction: number
+  meanAfterDrawIn: number
+  /** length the draw-in reaches from each stressed end, mm (null where that end is not stressed) */
+  drawInLength: { left: number | null; right: number | null }
 }
 
 export interface LossSummary {
@@ -106,22 +128,37 @@ export function lossesStage({ input, section, loads, profile, balancing, station
   const m2Unit = profile.secondaryPerUnitForce
   const cases = loads.cases
 
-  // friction from either end (EN 1992-1-1 eq. (5.45)) with θ the true change of direction and x along the tendon,
-  // and the draw-in of every stressed anchor (5.10.5.3): the same routines, on the same path, as the stressing schedule
+  // friction from the stressed end(s) of each segment (EN 1992-1-1 eq. (5.45)) with θ the true change of direction
+  // and x along the tendon, and the draw-in of every stressed anchor (5.10.5.3): the same routines, on the same
+  // path, as the stressing schedule; a tendon without joints is one segment
   const X = stations.map((s) => s.X)
   const path = tendonPath(profile.pieces, input.geometry.spans, stations)
-  const curves = frictionCurves({ x: path.s, slopes: path.slopes, Pjack, mu: input.losses.mu, k: input.losses.wobble })
-  const mode = input.tendon.stressing
-  const lockOff = asDrawIn(() => forceAfterLockOff({
-    x: path.s, frictionFromLeft: curves.fromLeft, frictionFromRight: curves.fromRight, ends: mode, slip: input.losses.drawIn,
-    EpAp: strand.Ep * Ap, sequence: mode === 'both' ? 'simultaneous' : undefined, // both jacks together, as the stressing schedule's default
+  const segmentList = tendonSegments(input.geometry.spans.length, input.tendon.stressing, input.tendon.joints)
+  const forces = asDrawIn(() => segmentedForce({
+    s: path.s, slopes: path.slopes, spanOf: stations.map((st) => st.span), segments: segmentList,
+    Pjack, mu: input.losses.mu, k: input.losses.wobble, slip: input.losses.drawIn, EpAp: strand.Ep * Ap,
+    sequence: 'simultaneous', // both jacks together, as the stressing schedule's default
   }))
-  const Pfr = mode === 'left' ? curves.fromLeft : mode === 'right' ? curves.fromRight : curves.fromLeft.map((v, k) => Math.max(v, at(curves.fromRight, k)))
-  const Pdi = lockOff.force
-  const drawInLength = (mode === 'right' ? lockOff.setLength.right : lockOff.setLength.left) ?? 0
-  if (lockOff.wholeLength.left === true || lockOff.wholeLength.right === true) {
-    warnings.push('The anchorage draw-in reaches the far end of the tendon: check the draw-in and the stressing sequence.')
-  }
+  const Pfr = forces.afterFriction
+  const Pdi = forces.afterLockOff
+  // the length the draw-in reaches from the anchorage it is reported for, the longest over the segments
+  const setLengthOf = (f: SegmentForce): number => (f.segment.ends === 'right' ? f.lockOff.setLength.right : f.lockOff.setLength.left) ?? 0
+  const drawInLength = Math.max(...forces.segments.map(setLengthOf))
+  forces.segments.forEach((f) => {
+    if (f.lockOff.wholeLength.left !== true && f.lockOff.wholeLength.right !== true) return
+    warnings.push(forces.segments.length === 1
+      ? 'The anchorage draw-in reaches the far end of the tendon: check the draw-in and the stressing sequence.'
+      : `The anchorage draw-in reaches the far end of segment ${f.segment.number} (${segmentWords(f.segment)}): check the draw-in and the stressing sequence.`)
+  })
+  const segments: SegmentLosses[] = forces.segments.map((f) => {
+    const Xs = X.slice(f.first, f.last + 1)
+    return {
+      number: f.segment.number, from: f.segment.fromSupport, to: f.segment.toSupport, ends: f.segment.ends, words: segmentWords(f.segment),
+      length: f.length, theta: f.theta,
+      meanAfterFriction: meanAlong(Xs, f.afterFriction), meanAfterDrawIn: meanAlong(Xs, f.lockOff.force),
+      drawInLength: { left: f.lockOff.setLength.left ?? null, right: f.lockOff.setLength.right ?? null },
+    }
+  })
 
   // elastic shortening (EN 1992-1-1 eq. (5.44)): concrete stress at the tendon under P and self-weight
   const bonded = section.bonded
@@ -202,7 +239,7 @@ export function lossesStage({ input, section, loads, profile, balancing, station
   }
   const force: ForceSummary = {
     jacking: Pjack, meanAfterFriction: meanFr, meanAfterDrawIn: meanDi, meanTransfer: mean0, meanService: meanInf,
-    maxAfterLockOff: Math.max(...Pdi), drawInLength, eta: meanInf / mean0,
+    maxAfterLockOff: Math.max(...Pdi), drawInLength, eta: meanInf / mean0, segments,
   }
 
   // balancing (Lin): strands needed for the chosen load at the mean service force per strand

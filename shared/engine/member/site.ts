@@ -10,6 +10,7 @@ import type { StageOutcome } from '../common/stage'
 import type { MemberInput } from '../input/schema'
 import { tendonHeightSchedule } from '../site/tendon-heights'
 import type { TendonHeightSchedule } from '../site/tendon-heights'
+import { tendonSegments } from '../prestress/segments'
 import { stressingSchedule } from '../site/stressing'
 import type { MeasuredExtension, StressingEnds, StressingSchedule, StressingTendon } from '../site/stressing'
 import type { MemberProfile } from './profile'
@@ -20,6 +21,9 @@ export interface MemberSite {
   heights: TendonHeightSchedule
   stressing: StressingSchedule
 }
+
+/** The most tendons one schedule lists (the input's own bound on an explicit count). */
+const MAX_TENDONS = 200
 
 /** The stressing schedule integrates on the member's stations, so its forces after lock-off are the losses stage's. */
 export function siteStage(input: MemberInput, section: MemberSection, profile: MemberProfile, stations: readonly Station[]): StageOutcome<MemberSite> {
@@ -35,20 +39,37 @@ export function siteStage(input: MemberInput, section: MemberSection, profile: M
   })
   if (heights.outside > 0) warnings.push('Tendon heights: the duct leaves the section at some station; check the profile and covers.')
 
-  const count = s.tendons ?? (section.isSlab ? 1 : input.tendon.count)
+  // the tendons the schedule covers: an explicit count, else a beam's own tendons, else for a slab strip the tendons at
+  // their spacing across the width of slab the schedule is for (one typical tendon where no width is given)
+  const spacing = input.tendon.spacing
+  const acrossWidth = section.isSlab && s.stripWidth !== undefined ? Math.round(s.stripWidth / spacing) : null
+  if (s.tendons === undefined && acrossWidth !== null && acrossWidth < 1) {
+    throw new EngineInputError('site.stripWidth', `a width of ${(s.stripWidth as number / 1000).toFixed(2)} m holds no tendon at ${spacing.toFixed(0)} mm spacing; give at least ${(spacing / 2000).toFixed(2)} m`)
+  }
+  if (s.tendons === undefined && acrossWidth !== null && acrossWidth > MAX_TENDONS) {
+    throw new EngineInputError('site.stripWidth', `a width of ${(s.stripWidth as number / 1000).toFixed(2)} m holds ${acrossWidth} tendons at ${spacing.toFixed(0)} mm spacing; the schedule lists at most ${MAX_TENDONS}: give the width of one stressing stage`)
+  }
+  if (!section.isSlab && s.stripWidth !== undefined) warnings.push('Stressing schedule: a beam lists its own tendons; the width of slab on the schedule applies to slab strips only.')
+  const count = s.tendons ?? acrossWidth ?? (section.isSlab ? 1 : input.tendon.count)
   const perTendon = input.tendon.strandsPerTendon * section.strand.Ap
   const first = input.tendon.stressing
+  const joints = input.tendon.joints
+  const segments = joints.length > 0 ? tendonSegments(input.geometry.spans.length, first, joints) : undefined
+  if (segments && s.alternateEnds === 'yes' && first !== 'both') {
+    warnings.push('Stressing schedule: with joints in the tendon each segment is stressed at the ends the joints give, so the ends are not alternated tendon by tendon.')
+  }
   const endsOf = (i: number): StressingEnds => {
-    if (first === 'both' || s.alternateEnds === 'no') return first
+    if (segments || first === 'both' || s.alternateEnds === 'no') return first
     return i % 2 === 0 ? first : first === 'left' ? 'right' : 'left'
   }
   const tendons: StressingTendon[] = Array.from({ length: count }, (_, i) => ({ id: `T${i + 1}`, ends: endsOf(i), Pjack: section.sigmaJack * perTendon, Ap: perTendon }))
   const values = s.measured ?? []
   if (values.length > count) throw new EngineInputError('site.measured', `give at most one measured extension per tendon (${count})`)
+  // with joints, a measured value is the tendon's total over all its segments
   const measured: MeasuredExtension[] = values.flatMap((v, i) => (v > 0 ? [{ id: `T${i + 1}`, extension: v }] : []))
   const stressing = stressingSchedule({
     profile: profile.profile, tendons, Ep: section.strand.Ep, mu: input.losses.mu, k: input.losses.wobble, drawIn: input.losses.drawIn,
-    tolerance: s.tolerance, jackLength: s.jackLength, measured, points: stations,
+    tolerance: s.tolerance, jackLength: s.jackLength, measured, points: stations, ...(segments ? { segments } : {}),
   })
   // common practice: the measured extension within a band about the calculated one; the schedule decides the pass
   const checks: CheckResult[] = stressing.tendons.flatMap((t) => t.checks.map((c) => ({
