@@ -365,7 +365,7 @@ export const memberInputShape = {
     roundTo: bounded({ label: 'Chair heights rounded to', unit: 'mm', precision: 0, group: 'site', help: '5 mm is common practice; 0 leaves them unrounded' }, 0, 25).default(5),
     tendons: z.number().int('Tendons on the schedule: a whole number').min(1, 'At least one tendon').max(200, 'At most 200 tendons').optional()
       .meta({ label: 'Tendons on the stressing schedule', unit: '', precision: 0, group: 'site', help: 'overrides the count: beams default to their tendons, slab strips to the width of strip below (one typical tendon where it is left out)' }),
-    stripWidth: length({ label: 'Width of slab on the stressing schedule (slab strips)', unit: 'm', precision: 2, group: 'site', symbol: 'b_{sch}', help: 'the width of the floor whose tendons this schedule lists, e.g. the design strip between column lines: width / spacing tendons, rounded' }, 100, 100000).optional(),
+    stripWidth: length({ label: 'Width of slab on the stressing schedule (slab strips)', unit: 'm', precision: 2, group: 'site', symbol: 'b_{sch}', help: 'the width of the floor whose tendons this schedule lists, e.g. the design strip between column lines: width / spacing tendons, rounded' }, 500, 100000).optional(),
     alternateEnds: z.enum(['no', 'yes']).default('no')
       .meta({ label: 'Alternate the stressing end tendon by tendon', unit: '', precision: 0, group: 'site', help: 'for tendons stressed from one end' }),
     tolerance: bounded({ label: 'Acceptance band on measured extensions', unit: '%', precision: 0, group: 'site', help: '±7 % is common practice' }, 0, 0.5).default(0.07),
