@@ -21,6 +21,7 @@ const ELEMENT_LABELS: Record<string, (n: number) => string> = {
   'loads.lines': n => `Line load ${n}`,
   'loads.partials': n => `Partial load ${n}`,
   'section.drops': n => `Drop ${n}`,
+  'tendon.joints': n => `Joint ${n}`,
 }
 
 /** Where the engine's own label does not tell two fields apart. */
@@ -51,6 +52,8 @@ const OPTION_WORDS: Record<string, Record<string, string>> = {
   'loads.points.type': { permanent: 'Permanent', imposed: 'Imposed' },
   'loads.lines.type': { permanent: 'Permanent', imposed: 'Imposed' },
   'loads.partials.type': { permanent: 'Permanent', imposed: 'Imposed' },
+  'tendon.joints.kind': { 'intermediate-anchorage': 'Intermediate anchorage (stressing pocket)', coupler: 'Coupler' },
+  'tendon.joints.stressed': { left: 'The segment on the left', right: 'The segment on the right', both: 'Both segments', neither: 'Neither (dead anchorages)' },
 }
 
 /** A cell of a table field ('loads.points.0.at'): the table, the row from 0 and the column, or null. */

@@ -18,6 +18,7 @@ const RULES: Record<string, Rule> = {
   'section.tributaryWidth': i => kind(i) !== 'slab-strip',
   'tendon.count': i => kind(i) !== 'slab-strip',
   'tendon.spacing': i => kind(i) === 'slab-strip',
+  'site.stripWidth': i => kind(i) === 'slab-strip',
   'profile.supportEcc': i => getPath(i, 'profile.mode') === 'custom',
   'profile.spanEcc': i => getPath(i, 'profile.mode') === 'custom',
   'losses.longTermShare': i => getPath(i, 'losses.model') === 'percentage',

@@ -60,6 +60,11 @@ function toSpec(m: FieldMeta): InputFieldSpec['spec'] {
   return spec
 }
 
+/** A new row's values where the column's least value would be refused: a joint sits over an interior support, the first is 2. */
+const ROW_DEFAULTS: Record<string, Record<string, unknown>> = {
+  'tendon.joints': { support: 2 },
+}
+
 function walk(schema: z.ZodType, path: string, out: InputFieldSpec[]): void {
   const inner = unwrap(schema)
   const d = defOf(inner)
@@ -77,7 +82,7 @@ function walk(schema: z.ZodType, path: string, out: InputFieldSpec[]): void {
     if (ed.type === 'object' && ed.shape) {
       const columns: InputFieldSpec[] = []
       for (const [k, v] of Object.entries(ed.shape)) walk(v, k, columns)
-      const emptyRow = Object.fromEntries(Object.entries(ed.shape).map(([k, v]) => [k, defaultOf(v, columns.find((c) => c.path === k))]).filter(([, v]) => v !== undefined))
+      const emptyRow = { ...Object.fromEntries(Object.entries(ed.shape).map(([k, v]) => [k, defaultOf(v, columns.find((c) => c.path === k))]).filter(([, v]) => v !== undefined)), ...ROW_DEFAULTS[path] }
       out.push({ path, spec: toSpec(m), kind: 'table', columns, emptyRow })
       return
     }

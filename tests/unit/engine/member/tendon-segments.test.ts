@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest'
 import { DEMO_BB1, DEMO_PS2, designMember } from '../../../../shared/engine/index'
 import { EngineInputError } from '../../../../shared/engine/contract'
 import { parseMemberInput } from '../../../../shared/engine/input/schema'
+import { inputFieldSpecs } from '../../../../shared/engine/input/field-specs'
 import type { MemberInputDraft } from '../../../../shared/engine/input/schema'
 import { fieldOf, rel } from '../../../helpers/engine'
 
@@ -82,6 +83,16 @@ describe('a member built in segments', () => {
     expect(d.site.stressing.tendons).toHaveLength(4)
     expect(d.warnings.some((w) => w.includes('applies to slab strips only'))).toBe(true)
     expect(d.site.stressing.tendons[0]!.segments.map((s) => [s.from, s.to, s.ends, s.words])).toEqual([[1, 2, 'both', 'supports 1 to 2, coupler at 2'], [2, 4, 'right', 'supports 2 to 4, coupler at 2']])
+  })
+
+  it('the form edits the joints as a table whose new row is a valid joint over the first interior support', () => {
+    const f = inputFieldSpecs().find((x) => x.path === 'tendon.joints')!
+    expect(f.kind).toBe('table')
+    expect(f.spec.group).toBe('tendon')
+    expect(f.columns!.map((c) => [c.path, c.kind])).toEqual([['support', 'number'], ['kind', 'enum'], ['stressed', 'enum']])
+    expect(f.emptyRow).toEqual({ support: 2, kind: 'intermediate-anchorage', stressed: 'left' })
+    expect(messageOf({ ...DEMO_PS2, tendon: { ...DEMO_PS2.tendon, joints: [f.emptyRow] } })).toBe('accepted')
+    expect(inputFieldSpecs().find((x) => x.path === 'site.stripWidth')?.spec).toMatchObject({ unit: 'm', group: 'site' })
   })
 
   it('a joint the engine cannot place names the joints field', () => {
