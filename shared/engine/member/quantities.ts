@@ -23,8 +23,10 @@ export interface MemberQuantities {
   strandPerTendon: number
   /** strand per m² of floor (a beam over the floor width it carries), kg/m² */
   strandRate: number
-  /** anchorages (live and dead) in the width designed */
+  /** anchorages (live and dead) in the width designed, those at the joints included */
   anchorages: number
+  /** couplers in the width designed */
+  couplers: number
   /** passive bars provided per m² of floor, each layer taken over the whole length (an upper estimate), kg/m² */
   barRate: number
   /** the duct's room for its strands: the strands' width side by side (flat duct) or the area ratio (round duct) */
@@ -40,6 +42,11 @@ export function quantitiesStage(input: MemberInput, section: MemberSection, prof
   const floor = (length / 1000) * (section.tributaryWidth / 1000) // m² of floor: the 1 m strip, or the width a beam carries
   const bars = input.uls.barsBottom.area + input.uls.barsTop.area
   const barRate = (bars * STEEL_DENSITY) / 1e6 / (section.tributaryWidth / 1000) // mm² → kg per m run, over the floor width
+  // per tendon: its two end anchorages; an intermediate anchorage anchors both segments at the joint, a coupler
+  // joins the next segment's strands to the one anchorage of the segment stressed before it
+  const intermediate = t.joints.filter((j) => j.kind === 'intermediate-anchorage').length
+  const coupled = t.joints.length - intermediate
+  const anchoragesPerTendon = 2 + 2 * intermediate + coupled
   const flat = t.ductShape === 'flat'
   const ductFill = flat ? t.strandsPerTendon * section.strand.diameter : (Math.PI * t.ductHeight ** 2) / 4 / (t.strandsPerTendon * Ap1)
   const checks: CheckResult[] = [flat
@@ -47,7 +54,7 @@ export function quantitiesStage(input: MemberInput, section: MemberSection, prof
     : ratioCheck({ id: 'tendon.ductFit', group: 'tendon', title: 'Duct area to strand area, round duct', clause: 'common practice (at least 2); the supplier\'s data govern', actual: ductFill, limit: ROUND_DUCT_RATIO, unit: '', atLeast: true })]
   return {
     result: {
-      tendonLength: length / 1000, strandPerTendon, strandRate: strandInWidth / floor, anchorages: 2 * section.tendonsPerWidth, barRate, ductFill,
+      tendonLength: length / 1000, strandPerTendon, strandRate: strandInWidth / floor, anchorages: anchoragesPerTendon * section.tendonsPerWidth, couplers: coupled * section.tendonsPerWidth, barRate, ductFill,
     },
     checks, warnings: [],
   }

@@ -425,6 +425,7 @@ export const RESULT_SPECS: Record<string, QuantitySpec> = {
   'quantities.strandPerTendon': spec('Strand in one tendon', 'kg', 1, 'm_t', 'EN 1991-1-1 Table A.4: 78.5 kN/m³'),
   'quantities.strandRate': spec('Strand per m² of floor', 'kg/m²', 2, 'm_p'),
   'quantities.anchorages': spec('Anchorages (live and dead) in the width designed', '', 2, 'n_a'),
+  'quantities.couplers': spec('Couplers in the width designed', '', 2, 'n_c'),
   'quantities.barRate': spec('Passive bars, each layer over the whole length (upper estimate)', 'kg/m²', 1, 'm_s'),
   'quantities.ductFill': spec('Strands across the flat duct (mm), or duct to strand area (round)', '', 1),
 

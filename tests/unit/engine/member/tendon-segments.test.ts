@@ -95,6 +95,29 @@ describe('a member built in segments', () => {
     expect(inputFieldSpecs().find((x) => x.path === 'site.stripWidth')?.spec).toMatchObject({ unit: 'm', group: 'site' })
   })
 
+  it('quantities: two anchorages per tendon, two more at an intermediate anchorage, one and a coupler at a coupler', () => {
+    // demo strip: 1000/750 tendons per metre (common practice: an intermediate anchorage anchors both segments at the joint)
+    const d = designMember({ ...DEMO_PS2, tendon: { ...DEMO_PS2.tendon, joints: [{ support: 2, stressed: 'left' }, { support: 4, kind: 'coupler', stressed: 'left' }] } }, { proposal: false })
+    expect(d.quantities.anchorages).toBeCloseTo(5 * (1000 / 750), 12)
+    expect(d.quantities.couplers).toBeCloseTo(1000 / 750, 12)
+    expect(designMember(DEMO_PS2, { proposal: false }).quantities.couplers).toBe(0)
+  })
+
+  it('members with joints anywhere give finite results throughout (no NaN reaches a check)', () => {
+    const cases: MemberInputDraft[] = [
+      halves({ support: 2, stressed: 'both' }),
+      halves({ support: 4, kind: 'coupler', stressed: 'right' }, 'left'),
+      { ...DEMO_PS2, tendon: { ...DEMO_PS2.tendon, joints: [{ support: 2, stressed: 'neither' }, { support: 3, stressed: 'both' }, { support: 4, kind: 'coupler', stressed: 'left' }] } } as MemberInputDraft,
+      { ...DEMO_BB1, tendon: { ...DEMO_BB1.tendon, stressing: 'left', joints: [{ support: 3, stressed: 'both' }] } } as MemberInputDraft,
+    ]
+    for (const c of cases) {
+      const d = designMember(c, { proposal: false })
+      for (const ch of d.checks) expect(Number.isFinite(ch.utilisation), ch.id).toBe(true)
+      for (const v of [...d.series.forceFriction, d.force.meanAfterDrawIn, d.force.meanService]) expect(Number.isFinite(v)).toBe(true)
+      for (const t of d.site.stressing.tendons) for (const g of t.segments) expect(g.extension.total).toBeGreaterThan(0)
+    }
+  })
+
   it('a joint the engine cannot place names the joints field', () => {
     expect(fieldOf(() => designMember(halves({ support: 5 }), { proposal: false }))).toBe('tendon.joints.0.support')
   })
