@@ -178,6 +178,17 @@ export interface SegmentedForce {
   segments: SegmentForce[]
 }
 
+/** A draw-in too large for a segment says which segment, on the same field. */
+function inSegment<T>(seg: TendonSegment, count: number, f: () => T): T {
+  try {
+    return f()
+  } catch (e) {
+    if (count === 1 || !(e instanceof EngineInputError) || e.field !== 'slip') throw e
+    const what = e.message.slice(e.field.length + 2).replace('the whole tendon', 'the whole segment')
+    throw new EngineInputError('slip', `segment ${seg.number} (${segmentWords(seg)}): ${what}`)
+  }
+}
+
 /** Friction and draw-in segment by segment, each from its own stressing end(s), on the member's stations. */
 export function segmentedForce(i: SegmentedForceInput): SegmentedForce {
   const n = i.s.length
@@ -198,10 +209,10 @@ export function segmentedForce(i: SegmentedForceInput): SegmentedForce {
     const x = i.s.slice(first, last + 1)
     // EN 1992-1-1 eq. (5.45): θ and x restart at the segment's own ends
     const curves = frictionCurves({ x, slopes: i.slopes.slice(first, last + 1), Pjack: i.Pjack, mu: i.mu, k: i.k })
-    const lockOff = forceAfterLockOff({
+    const lockOff = inSegment(seg, i.segments.length, () => forceAfterLockOff({
       x, frictionFromLeft: curves.fromLeft, frictionFromRight: curves.fromRight, ends: seg.ends, slip: i.slip, EpAp: i.EpAp,
       sequence: seg.ends === 'both' ? i.sequence ?? 'simultaneous' : undefined,
-    })
+    }))
     const fr = seg.ends === 'left' ? curves.fromLeft : seg.ends === 'right' ? curves.fromRight : curves.fromLeft.map((v, j) => Math.max(v, curves.fromRight[j] as number))
     afterFriction.push(...fr)
     afterLockOff.push(...lockOff.force)

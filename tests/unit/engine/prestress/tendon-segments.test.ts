@@ -139,6 +139,13 @@ describe('force along a tendon in segments', () => {
     }
   })
 
+  it('a draw-in larger than a short segment\'s extension names the segment', () => {
+    // 10 kN over 10 m stretches the tendon about 10e3 × 10 000/(195 000 × 400) ≈ 1.3 mm (ΔL = PL/(Ep Ap)) < 6 mm of draw-in
+    const segments = tendonSegments(2, 'both', [joint(2, 'neither')])
+    expect(fieldOf(() => segmentedForce({ ...base, Pjack: 10e3, segments }))).toBe('slip')
+    expect(() => segmentedForce({ ...base, Pjack: 10e3, segments })).toThrow('slip: segment 1 (supports 1 to 2, intermediate anchorage at 2): the draw-in is larger than the extension of the whole segment')
+  })
+
   it('bad segments name the field', () => {
     expect(fieldOf(() => segmentedForce({ ...base, spanOf: [0], segments: tendonSegments(2, 'both') }))).toBe('s')
     expect(fieldOf(() => segmentedForce({ ...base, segments: [] }))).toBe('segments')
