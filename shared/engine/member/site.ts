@@ -42,7 +42,7 @@ export function siteStage(input: MemberInput, section: MemberSection, profile: M
   // the tendons the schedule covers: an explicit count, else a beam's own tendons, else for a slab strip the tendons at
   // their spacing across the width of slab the schedule is for (one typical tendon where no width is given)
   const spacing = input.tendon.spacing
-  const acrossWidth = section.isSlab && s.stripWidth !== undefined ? Math.round(s.stripWidth / spacing) : null
+  const acrossWidth = section.isSlab && s.stripWidth !== undefined ? Math.round(s.stripWidth / spacing) : null // n = b/s tendons at centres s across b, to the nearest whole tendon
   if (s.tendons === undefined && acrossWidth !== null && acrossWidth < 1) {
     throw new EngineInputError('site.stripWidth', `a width of ${(s.stripWidth as number / 1000).toFixed(2)} m holds no tendon at ${spacing.toFixed(0)} mm spacing; give at least ${(spacing / 2000).toFixed(2)} m`)
   }
