@@ -77,7 +77,12 @@ export interface CalcBlockResult {
 }
 
 const NAME = /^[A-Za-z][A-Za-z0-9]*(?:_[A-Za-z0-9]+)?$/
-const RESERVED = new Set(['constructor', 'prototype', 'toString', 'valueOf', 'hasOwnProperty', 'val', 'check', 'to', 'in', 'pi', 'e', 'i', 'true', 'false', 'null', 'undefined', 'Infinity', 'NaN'])
+const RESERVED = new Set(['constructor', 'prototype', 'toString', 'valueOf', 'hasOwnProperty', '__proto__', 'val', 'check', 'to', 'in', 'pi', 'true', 'false', 'null', 'undefined', 'Infinity', 'NaN'])
+/**
+ * The units an engineer writes after a number: never a quantity's name. Any other unit's name (L,
+ * b, h, A, e…) may name a quantity, which then stands for it in the block.
+ */
+const WRITTEN_UNITS = new Set(['m', 'mm', 'cm', 'km', 'N', 'kN', 'MN', 'Pa', 'kPa', 'MPa', 'GPa', 'kg', 'g', 't', 's', 'min', 'deg', 'rad', 'hour', 'day', 'kNm'])
 const FUNCTIONS = new Set(['sqrt', 'abs', 'min', 'max', 'sin', 'cos', 'tan', 'asin', 'acos', 'atan', 'exp', 'log', 'log10', 'floor', 'ceil'])
 const OPERATORS = new Set(['add', 'subtract', 'multiply', 'divide', 'unaryMinus', 'unaryPlus', 'pow', 'to'])
 const COMPARISONS: Record<string, { atLeast: boolean; strict: boolean; tex: string }> = {
@@ -116,6 +121,8 @@ function isUnit(x: unknown): x is Unit {
 /** How a result is shown: the unit written after `to`, else the first display unit of its dimension, else as mathjs has it. */
 function shownIn(value: Unit | number, explicit: string | null): { value: number; unit: string; display: DisplayUnit | null } {
   if (!isUnit(value)) return { value, unit: '', display: '' }
+  const raw = (value as unknown as { value: number | null }).value
+  if (raw !== null && !Number.isFinite(raw)) return { value: Number.NaN, unit: '', display: null }
   if (explicit !== null) {
     const display = (Object.entries(MATHJS_OF).find(([, m]) => m.replace(/\s/g, '') === explicit.replace(/\s/g, ''))?.[0] ?? null) as DisplayUnit | null
     return { value: value.toNumber(explicit), unit: display ?? explicit, display }
@@ -199,7 +206,7 @@ function parseLine(raw: string, line: number): ParsedLine | CalcProblem | null {
   const name = assign.object.type === 'SymbolNode' ? assign.object.name ?? '' : ''
   if (assign.object.type !== 'SymbolNode' || assign.index) return { line, name: null, message: 'only a plain name can be given a value (letters and digits, one _ for a subscript)' }
   if (!NAME.test(name)) return { line, name, message: `"${name}" is not a name: use letters and digits, with at most one _ before a subscript (w_f)` }
-  if (RESERVED.has(name) || math.Unit.isValuelessUnit(name) || FUNCTIONS.has(name)) return { line, name, message: `"${name}" is taken (a unit, a function or a word of the language): choose another name` }
+  if (RESERVED.has(name) || WRITTEN_UNITS.has(name) || FUNCTIONS.has(name)) return { line, name, message: `"${name}" is taken (a unit, a function or a word of the language): choose another name` }
   const value = assign.value
   const explicit = value.type === 'OperatorNode' && (value as unknown as { fn: string }).fn === 'to' ? (value as unknown as { args: MathNode[] }).args[1]!.toString() : null
   return { line, kind: 'quantity', name, node: value, description, explicit }
@@ -313,7 +320,16 @@ export function evaluateCalcBlock(text: string, ctx: CalcContext): CalcBlockResu
   const evaluate = (node: MathNode): unknown => node.compile().evaluate(new Map<string, unknown>([...scope, ['val', valOf]]))
   let checkCount = 0
   rawLines.forEach((raw, i) => {
-    const line = i + 1
+    try {
+      evaluateLine(raw, i + 1)
+    } catch (e) {
+      // anything unforeseen stays a problem of its line, never a blank sheet
+      problems.push({ line: i + 1, name: null, message: (e as Error).message || 'this line cannot be evaluated' })
+    }
+  })
+  return { quantities, checks, problems }
+
+  function evaluateLine(raw: string, line: number): void {
     const parsed = parseLine(raw, line)
     if (parsed === null) return
     if ('message' in parsed) {
@@ -385,8 +401,7 @@ export function evaluateCalcBlock(text: string, ctx: CalcContext): CalcBlockResu
     }
     scope.set(name, value)
     quantities.push(q)
-  })
-  return { quantities, checks, problems }
+  }
 }
 
 /** An engine-unit value for a check shown in a display unit (the check tables convert back for display). */
