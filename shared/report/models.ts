@@ -200,6 +200,8 @@ const GROUP_LABELS: Record<string, string> = {
   detailing: 'Detailing',
   sls: 'Deflection and cracking',
   site: 'Measured extensions',
+  fire: 'Fire resistance',
+  own: 'The engineer\'s own checks',
 }
 
 /** What a checker compares first between two revisions: the force, its losses, the stresses' inputs, the results that govern. */

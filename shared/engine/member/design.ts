@@ -7,6 +7,7 @@
  */
 import type { CheckResult } from '../contract'
 import { ENGINE_VERSION } from '../version'
+import { isCantileverSpan } from '../prestress/profile'
 import { parseMemberInput } from '../input/schema'
 import type { MemberInput } from '../input/schema'
 import type { SectionProperties } from '../section'
@@ -207,7 +208,10 @@ function designRecord(d: ServiceDesign, later: LaterResults): Design {
     },
     eccentricity: section.eccentricity,
     profile: {
-      supportEcc: profile.profile.supportEcc, spanEcc: profile.profile.spanEcc, lowPointAt: profile.lowAt, inflection: input.profile.inflection,
+      supportEcc: profile.profile.supportEcc,
+      // a cantilever's lowest point is the anchorage at its tip
+      spanEcc: profile.profile.spanEcc.map((e, i) => (profile.pieces[i] && isCantileverSpan(profile.profile, i) ? (profile.profile.supportEcc[i === 0 ? 0 : i + 1] as number) : e)),
+      lowPointAt: profile.lowAt.map((a, i) => (isCantileverSpan(profile.profile, i) ? (i === 0 ? 0 : 1) : a)), inflection: input.profile.inflection,
       drapes: profile.drapes, lowPointX: profile.lowPointX, length: profile.length,
     },
     loads: { selfWeight: loads.selfWeight, superimposed: loads.superimposed, imposed: loads.imposed, balanced: balancing.load },

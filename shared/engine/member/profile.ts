@@ -7,7 +7,7 @@ import { fail } from '../common/guards'
 import { at, sum } from '../common/numeric'
 import type { StageOutcome } from '../common/stage'
 import type { MemberInput } from '../input/schema'
-import { drapes, eccentricityIn, resolveProfile, withCantilevers } from '../prestress/profile'
+import { drapes, eccentricityIn, isCantileverSpan, resolveProfile, withCantilevers } from '../prestress/profile'
 import type { ProfilePiece, TendonProfile } from '../prestress/profile'
 import { prestressMoments } from '../prestress/secondary'
 import type { MemberLoads } from './loads'
@@ -84,8 +84,10 @@ export function profileStage(input: MemberInput, section: MemberSection, loads: 
   const couplesPerUnitForce = unitPs.reactionCouples // the columns' share of the prestress, per unit force
 
   let offset = 0
+  // a cantilever's tendon falls from its root to the anchorage at its tip: its lowest point is the tip
+  const tipShare = (i: number): number | null => (isCantileverSpan(profile, i) ? (i === 0 ? 0 : 1) : null)
   const lowPointX = spans.map((L, i) => {
-    const x = offset + at(lowAt, i) * L
+    const x = offset + (tipShare(i) ?? at(lowAt, i)) * L
     offset += L
     return x
   })

@@ -44,6 +44,12 @@ export function stationGrid(input: MemberInput): Station[] {
   for (const l of input.loads.points) mark(l.span, l.at)
   for (const l of input.loads.lines) mark(l.span, l.at)
   for (const l of input.loads.partials) mark(l.span, l.from, l.from + l.length)
+  // each end of a drop within a span, and a millimetre inside it: the section steps there
+  for (const d of input.section.drops) {
+    const j = d.support - 1
+    if (j > 0 && d.left > 0 && spans[j - 1] !== undefined) mark(j, (spans[j - 1] as number) - d.left, (spans[j - 1] as number) - d.left + 1)
+    if (j < n && d.right > 0) mark(j + 1, d.right, d.right - 1)
+  }
   let offset = 0
   spans.forEach((L, i) => {
     const xs: number[] = [...(loadsAt.get(i) ?? [])]
