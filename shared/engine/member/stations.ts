@@ -2,7 +2,8 @@
  * The stations along the member where every stage evaluates forces, moments and stresses: a grid
  * of twentieths of each span, the low point, the ends of the profile's parabolas (where the
  * curvature of the tendon jumps) and the point, line and partial loads' positions (where the moment
- * peaks or changes its law), so that no change of the profile or the loads falls between two stations.
+ * peaks or changes its law) and the ends of drops (where the section steps), so that no change of
+ * the profile, the loads or the section falls between two stations.
  */
 import { at } from '../common/numeric'
 import type { MemberInput } from '../input/schema'
