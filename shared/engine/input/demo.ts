@@ -69,4 +69,6 @@ export const DEMO_PS3: MemberInputDraft = {
   // H12 at 200 top, H10 at 200 bottom (invented demo detailing)
   uls: { barsTop: { area: 565, diameter: 12, cover: 25 }, barsBottom: { area: 393, diameter: 10, cover: 30 } },
   fire: { rating: 'R90' },
+  // the strip's tendons on the stressing schedule: half the bay to grid B plus the edge, 4.2 m (invented)
+  site: { stripWidth: 4200 },
 }

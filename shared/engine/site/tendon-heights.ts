@@ -5,11 +5,12 @@
  * support of the span; e positive below the centroid (prestress/profile.ts).
  */
 import { EngineInputError } from '../contract'
-import { eccentricityIn, lowPointFraction, resolveProfile } from '../prestress/profile'
+import { eccentricityIn, isCantileverSpan, lowPointFraction, resolveProfile } from '../prestress/profile'
 import type { ProfilePiece, TendonProfile } from '../prestress/profile'
 import { requireNonNegative, requirePositive } from '../common/guards'
 
-export type HeightPointKind = 'support' | 'low' | 'inflection' | 'station'
+/** 'tip': the free end of a cantilever, where the tendon is anchored */
+export type HeightPointKind = 'support' | 'tip' | 'low' | 'inflection' | 'station'
 
 export interface TendonHeightInput {
   profile: TendonProfile
@@ -88,11 +89,16 @@ export function tendonHeightSchedule(i: TendonHeightInput): TendonHeightSchedule
       points.set(key, kind)
     }
     for (let x = 0; x < L - 1e-6; x += i.spacing) add(x, 'station')
-    add(0, 'support')
-    add(L, 'support')
-    add(lowPointFraction(i.profile, s) * L, 'low')
-    if (lambda > 0 && s > 0) add(lambda * L, 'inflection')
-    if (lambda > 0 && s < n - 1) add(L - lambda * L, 'inflection')
+    const cantilever = isCantileverSpan(i.profile, s)
+    add(0, cantilever && s === 0 ? 'tip' : 'support')
+    add(L, cantilever && s !== 0 ? 'tip' : 'support')
+    if (cantilever) {
+      // a cantilever's tendon is one parabola from the root to the anchorage at its tip: no low point or inflection
+    } else {
+      add(lowPointFraction(i.profile, s) * L, 'low')
+      if (lambda > 0 && s > 0) add(lambda * L, 'inflection')
+      if (lambda > 0 && s < n - 1) add(L - lambda * L, 'inflection')
+    }
     for (const edge of i.drops?.edges ?? []) if (edge.span === s) add(edge.x, 'station')
     const spanRows = [...points.entries()]
       .sort((a, b) => a[0] - b[0])
