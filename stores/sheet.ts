@@ -5,6 +5,12 @@ import { clonePlain, getPath, mergePatch, setPath } from '~/shared/utils/paths'
 import { runSheet, renderSheet, compileSheet, type SheetRun } from '~/shared/sheet/runtime'
 import { describeInputError, inputLabel, optionLabel } from '~/shared/sheet/labels'
 import { resizeSpanLists, spanCount } from '~/shared/sheet/spans'
+import { CONFLICT_MARKERS } from '~/shared/sheet/text-merge'
+
+/** 1-based lines where a merge left a conflict's opening marker. */
+function conflictLines(text: string): number[] {
+  return text.split('\n').flatMap((l, i) => (l === CONFLICT_MARKERS.mine ? [i + 1] : []))
+}
 
 export interface SheetPayload {
   id: number
@@ -17,6 +23,8 @@ export interface SheetPayload {
   updatedByName: string
   createdByName: string
   newerTemplateVersion: number | null
+  /** the sheet's own text, or null while it follows its template's text */
+  body: string | null
   template: { id: number, slug: string, version: number, title: string, model: string, body: string }
   project: { id: number, jobNumber: string, name: string, client: string, site: string }
 }
@@ -50,7 +58,25 @@ export const useSheetStore = defineStore('sheet', () => {
   const redoStack = ref<UndoEntry[]>([])
   const specs = inputFieldSpecs()
 
-  const compiled = computed(() => (sheet.value ? compileSheet(sheet.value.template.body) : null))
+  // The sheet's text: its own once the engineer edits it, else its template's. While the text has a
+  // problem the report keeps the last text that loaded, and the problems are listed by line.
+  const text = ref('')
+  const ownText = computed(() => sheet.value !== null && text.value !== sheet.value.template.body)
+  const compiledNow = computed(() => (sheet.value ? compileSheet(text.value) : null))
+  const lastCompiled = shallowRef<ReturnType<typeof compileSheet> | null>(null)
+  watch(compiledNow, (c) => {
+    if (c?.ok) lastCompiled.value = c
+  }, { immediate: true })
+  const compiled = computed(() => (compiledNow.value?.ok ? compiledNow.value : lastCompiled.value ?? compiledNow.value))
+  const textErrors = computed(() => [
+    ...conflictLines(text.value).map(line => `line ${line}: a conflict with the newer template version: keep the lines you want between the markers and delete the markers`),
+    ...(compiledNow.value && !compiledNow.value.ok ? compiledNow.value.errors : []),
+  ])
+  function setText(next: string) {
+    if (next === text.value) return
+    text.value = next
+    scheduleSave()
+  }
 
   const validation = computed(() => {
     const parsed = memberInputSchema.safeParse(inputs.value)
@@ -135,6 +161,8 @@ export const useSheetStore = defineStore('sheet', () => {
 
   function load(payload: SheetPayload) {
     sheet.value = payload
+    text.value = payload.body ?? payload.template.body
+    lastCompiled.value = null
     inputs.value = clonePlain(payload.inputs)
     fullRun.value = validation.value.ok ? { key: inputKey.value, run: runSheet(validation.value.value) } : null
     lastGood.value = null
@@ -245,7 +273,7 @@ export const useSheetStore = defineStore('sheet', () => {
       return
     }
     saveState.value = 'saving'
-    const body = { inputs: clonePlain(inputs.value), draftVersion: draftVersion.value }
+    const body = { inputs: clonePlain(inputs.value), draftVersion: draftVersion.value, body: ownText.value ? text.value : null }
     inFlight = (async () => {
       try {
         const res = await $fetch<{ draftVersion: number, savedAt: string }>(`/api/sheets/${sheet.value!.id}/draft`, { method: 'PUT', body })
@@ -287,6 +315,7 @@ export const useSheetStore = defineStore('sheet', () => {
 
   return {
     sheet, inputs, draftVersion, saveState, saveMessage, savedAt, specs, compiled, validation, run, errors, blocker, stale, report,
+    text, ownText, textErrors, setText,
     checks, undoStack, redoStack,
     replies, replyList, answerRevision, setReply, clearReplies,
     load, setInput, setTextError, resizeSpans, applyPatch, replaceInputs, undo, redo, save, flush,

@@ -57,6 +57,9 @@ export const sheets = mysqlTable('sheets', {
   partOfStructure: varchar('part_of_structure', { length: 200 }).notNull().default(''),
   templateId: int('template_id').notNull().references(() => templates.id, { onDelete: 'restrict' }),
   inputs: json('inputs').notNull(),
+  // the sheet's own text once the engineer edits it (null: the text of its template version as
+  // published); that template version is the base when a newer version is merged into it
+  body: mediumtext('body'),
   // optimistic concurrency for the background save
   draftVersion: int('draft_version').notNull().default(1),
   createdBy: int('created_by').notNull().references(() => users.id, { onDelete: 'restrict' }),

@@ -12,6 +12,8 @@ import { diffRevisions } from '../utils/revision-diff'
 import type { IssueRevisionBody } from '../../shared/schemas/issue'
 import type { CommentReply, FrozenReply } from '../../shared/schemas/review'
 import { describeInputError } from '../../shared/sheet/labels'
+import { hasConflictMarkers } from '../../shared/sheet/text-merge'
+import { proseDiff } from '../../shared/sheet/prose-diff'
 import { MODELS } from '../../shared/report/models'
 
 type DbLike = Db | Tx
@@ -116,9 +118,15 @@ export async function issueRevision(event: H3Event, sheetId: number, body: Issue
     const [project] = await tx.select().from(tables.projects).where(eq(tables.projects.id, sheet.projectId))
     if (!template || !project) throw createError({ statusCode: 500, message: 'The sheet refers to a missing template or project' })
 
+    // the sheet's own text where the engineer wrote one, else its template's; a merge left unresolved is refused
+    const text = sheet.body ?? template.body
+    if (hasConflictMarkers(text)) {
+      const message = 'The sheet\'s text still holds a conflict from the newer template version: choose between the two versions between the markers, then issue'
+      throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: `Sheet text: ${message}`, data: { fields: { body: message } } })
+    }
     let frozen
     try {
-      frozen = freezeRun(template.model, template.body, sheet.inputs)
+      frozen = freezeRun(template.model, text, sheet.inputs)
     }
     catch (error) {
       if (error instanceof EngineInputError) {
@@ -135,7 +143,7 @@ export async function issueRevision(event: H3Event, sheetId: number, body: Issue
       sheetId, seq, code: revisionCode('P', seq), note, failingChecksReason, replies: replies.length ? plainJson(replies) : null,
       inputs: plainJson(frozen.inputs), results: plainJson(frozen.results),
       templateId: template.id, templateSlug: template.slug, templateVersion: template.version, templateTitle: template.title,
-      model: template.model, templateBody: template.body, engineVersion: frozen.engineVersion,
+      model: template.model, templateBody: text, engineVersion: frozen.engineVersion,
       reportHtml: frozen.html, reportSections: plainJson(frozen.sections),
       authorId: user.id, issuedAt: new Date(), prevHash: last?.contentHash ?? null,
     }
@@ -242,7 +250,8 @@ export async function revisionDiff(id: number, againstId?: number) {
   const model = Object.hasOwn(MODELS, rev.model) ? MODELS[rev.model] : undefined
   if (!model) throw createError({ statusCode: 409, message: `${rev.code} binds to the model "${rev.model}", which this version of Tendonbook does not know` })
   const side = (row: typeof rev) => ({ inputs: row.inputs, results: row.results, ...reportMapOf(row) })
-  return { against: { id: base.id, code: base.code }, diff: diffRevisions(model, side(base), side(rev)) }
+  // the sheet's text as the checker reads a change of it: words added and removed, section by section
+  return { against: { id: base.id, code: base.code }, diff: diffRevisions(model, side(base), side(rev)), text: proseDiff(base.templateBody, rev.templateBody) }
 }
 
 /** Revisions waiting for a decision: the latest of their sheet and neither returned nor approved. */

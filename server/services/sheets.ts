@@ -7,6 +7,8 @@ import { describeInputErrors } from '../../shared/sheet/labels'
 import { resizeSpanLists } from '../../shared/sheet/spans'
 import { setPath } from '../../shared/utils/paths'
 import { toEngine } from '../../shared/utils/units'
+import { mergeTemplateText } from '../../shared/sheet/text-merge'
+import type { MergeConflict } from '../../shared/sheet/text-merge'
 
 /** @throws 400 naming each input field at fault: by label in `message`, by path (`inputs.…`) in `data.fields`. */
 export function validateInputs(model: string, inputs: unknown) {
@@ -97,8 +99,10 @@ export async function createSheet(projectId: number, body: SheetCreateBody, user
 export async function saveDraft(id: number, body: DraftSaveBody, userId: number) {
   const sheet = await getSheet(id)
   const inputs = validateInputs(sheet.template.model, body.inputs)
+  // the sheet's own text: kept as typed; the same text as the template's is no text of its own
+  const text = body.body === undefined ? {} : { body: body.body === null || body.body === sheet.template.body ? null : body.body }
   const result = await useDb().update(tables.sheets)
-    .set({ inputs, draftVersion: body.draftVersion + 1, updatedBy: userId, updatedAt: new Date() })
+    .set({ inputs, ...text, draftVersion: body.draftVersion + 1, updatedBy: userId, updatedAt: new Date() })
     .where(and(eq(tables.sheets.id, id), eq(tables.sheets.draftVersion, body.draftVersion)))
   const affected = (result as unknown as [{ affectedRows: number }])[0].affectedRows
   if (affected !== 1) {
@@ -107,12 +111,20 @@ export async function saveDraft(id: number, body: DraftSaveBody, userId: number)
   return { draftVersion: body.draftVersion + 1, savedAt: new Date().toISOString() }
 }
 
-/** Move a sheet to a newer version of its template (an explicit act: sheets keep their version otherwise). */
+/**
+ * Move a sheet to a newer version of its template (an explicit act: sheets keep their version
+ * otherwise). A sheet with its own text gets the template's change merged into it three ways (the
+ * version it follows is the base); lines both changed stay between markers, listed in `conflicts`,
+ * for the engineer to resolve before the sheet can be issued.
+ */
 export async function upgradeTemplate(id: number, userId: number) {
   const sheet = await getSheet(id)
   const [latest] = await useDb().select().from(tables.templates).where(eq(tables.templates.slug, sheet.template.slug)).orderBy(desc(tables.templates.version)).limit(1)
-  if (!latest || latest.version === sheet.template.version) return sheet
+  if (!latest || latest.version === sheet.template.version) return { ...sheet, conflicts: [] as MergeConflict[] }
   validateInputs(latest.model, sheet.inputs)
-  await useDb().update(tables.sheets).set({ templateId: latest.id, updatedBy: userId, updatedAt: new Date(), draftVersion: sheet.draftVersion + 1 }).where(eq(tables.sheets.id, id))
-  return getSheet(id)
+  const merged = sheet.body === null ? null : mergeTemplateText(sheet.template.body, sheet.body, latest.body)
+  await useDb().update(tables.sheets).set({
+    templateId: latest.id, ...(merged ? { body: merged.text } : {}), updatedBy: userId, updatedAt: new Date(), draftVersion: sheet.draftVersion + 1,
+  }).where(eq(tables.sheets.id, id))
+  return { ...(await getSheet(id)), conflicts: merged?.conflicts ?? [] }
 }

@@ -24,9 +24,11 @@ export function freezeRun(model: string, templateBody: string, inputs: unknown):
   if (compiled.meta.model !== model) throw createError({ statusCode: 409, message: `The template binds to "${compiled.meta.model}", the sheet to "${model}"` })
   const design = designMember(inputs)
   const report = renderSheet(compiled.template, design.input, design, 'frozen')
+  // the engineer's own checks (calculation blocks) are checks of the revision like the engine's
+  const own = report.checks.filter(c => c.group === 'own').map(({ sectionId: _s, ...c }) => c)
   return {
     inputs: design.input,
-    results: design as unknown as FrozenRun['results'],
+    results: (own.length ? { ...design, checks: [...design.checks, ...own] } : design) as unknown as FrozenRun['results'],
     engineVersion: design.engineVersion,
     html: report.html,
     sections: report.sections.map(s => ({ id: s.id, title: s.title, level: s.level })),

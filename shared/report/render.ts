@@ -533,7 +533,9 @@ export function renderReport(compiled: CompiledTemplate, options: RenderOptions)
   }
   // the engineer's calculations first: their checks join the tables and the summary wherever those stand
   evaluateCalcBlocks(compiled.tokens, env)
-  const own = [...env.calc.values()].flatMap((r) => r.checks.map(({ line: _line, tex: _tex, ...c }) => c))
+  // a frozen revision's results already hold them: each check once
+  const known = new Set(env.checks.map((c) => c.id))
+  const own = [...env.calc.values()].flatMap((r) => r.checks.map(({ line: _line, tex: _tex, ...c }) => c)).filter((c) => !known.has(c.id))
   if (own.length > 0) env.checks = [...env.checks, ...own]
   const body = renderTokens(compiled.tokens, env)
   const homeOf = (c: CheckResult): string | null => env.checkHome.get(c.id) ?? env.checkSummary.get(c.id) ?? null

@@ -21,7 +21,7 @@ export type SheetCreateBody = z.infer<typeof sheetCreateSchema>
 
 const SHEET_FIELD_LABELS: Record<string, string> = {
   reference: 'Calc reference', title: 'Title', partOfStructure: 'Part of structure', templateId: 'Template',
-  spans: 'Spans', copyFrom: 'Start from', inputs: 'Inputs', draftVersion: 'Draft version', '(body)': 'Request',
+  spans: 'Spans', copyFrom: 'Start from', inputs: 'Inputs', draftVersion: 'Draft version', body: 'Sheet text', '(body)': 'Request',
 }
 
 /** The new-sheet form's and the sheet routes' fields, in people's words ("spans.1" is "Span 2"). */
@@ -31,10 +31,15 @@ export function sheetFieldLabel(path: string): string {
   return SHEET_FIELD_LABELS[path] ?? path
 }
 
-/** A background save of the draft: the inputs (engine units) and the version it was based on. */
+/**
+ * A background save of the draft: the inputs (engine units), the version it was based on and, when
+ * the engineer has written it, the sheet's own text (null: back to the template's text; left out:
+ * unchanged). A text with problems is kept (nothing typed is lost); it is checked when issuing.
+ */
 export const draftSaveSchema = z.object({
   inputs: z.record(z.string(), z.unknown(), { message: 'The inputs must be an object' }),
   draftVersion: z.number({ message: 'The draft version must be a number' }).int().positive(),
+  body: textField('Sheet text').max(400_000, 'The sheet\'s text is too long (400 000 characters at most)').nullable().optional(),
 })
 
 export type DraftSaveBody = z.infer<typeof draftSaveSchema>
