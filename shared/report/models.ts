@@ -20,6 +20,7 @@ import { forceAlongTendonSvg } from './figures/force'
 import { stressEnvelopeSvg } from './figures/stresses'
 import { PALETTE } from './figures/svg'
 import { tendonProfileSvg } from './figures/tendon'
+import { ulsMomentSvg, ulsShearSvg } from './figures/uls-envelopes'
 import { shapeOf } from './model'
 import type { ModelFigure, ReportModel, ShapeKind } from './model'
 
@@ -112,6 +113,43 @@ const figures: Record<string, ModelFigure> = {
         supportsX: supportsX(d),
         unit: 'kNm',
         loads: addedLoadMarks(d),
+      })
+    },
+  },
+  'uls-moments': {
+    label: 'Design moments at ULS (envelope over the load arrangements) against the bending resistance, sagging and hogging',
+    render: (r) => {
+      const d = r as Design
+      const s = d.series
+      return ulsMomentSvg({
+        X: s.X,
+        max: s.momentUlsMax,
+        min: s.momentUlsMin,
+        sagging: d.uls.sections.map((u) => (u.sagging ? { X: u.X, value: u.sagging.MRd } : null)),
+        hogging: d.uls.sections.map((u) => (u.hogging ? { X: u.X, value: -u.hogging.MRd } : null)),
+        supportsX: supportsX(d),
+        unit: 'kNm',
+      })
+    },
+  },
+  'uls-shear': {
+    label: 'Design shear at ULS (envelope over the load arrangements) against the shear resistance at the supports',
+    render: (r) => {
+      const d = r as Design
+      const s = d.series
+      const starts = supportsX(d)
+      return ulsShearSvg({
+        X: s.X,
+        max: s.shearUlsMax,
+        min: s.shearUlsMin,
+        resistances: d.uls.shear.map((v) => {
+          const k = s.X.findIndex((_, i) => s.span[i] === v.span && Math.abs((s.x[i] as number) - v.x) < 1e-6)
+          // VRd drawn on the side of the axis where the design shear it is checked against lies
+          const negative = k >= 0 && Math.abs(s.shearUlsMin[k] as number) > Math.abs(s.shearUlsMax[k] as number)
+          return { X: (starts[v.span] as number) + v.x, value: negative ? -v.VRd : v.VRd, toward: v.side }
+        }),
+        supportsX: starts,
+        unit: 'kN',
       })
     },
   },

@@ -260,6 +260,10 @@ export const RESULT_SPECS: Record<string, QuantitySpec> = {
   'series.limitTransferTension[]': spec('Tension limit at transfer (negative)', 'MPa', 2, undefined, 'EN 1992-1-1 7.1(2)'),
   'series.limitServiceCompression[]': spec('Compression limit, characteristic', 'MPa', 2, undefined, 'EN 1992-1-1 7.2(2)'),
   'series.limitServiceTension[]': spec('Tension limit in service (negative)', 'MPa', 2, undefined, 'EN 1992-1-1 7.1(2), Table 7.1N'),
+  'series.momentUlsMax[]': spec('Greatest design moment, ULS', 'kNm', 1, 'M_{Ed,max}', 'EN 1990 eq. (6.10), EN 1992-1-1 5.10.8(1)'),
+  'series.momentUlsMin[]': spec('Least design moment, ULS', 'kNm', 1, 'M_{Ed,min}', 'EN 1990 eq. (6.10), EN 1992-1-1 5.10.8(1)'),
+  'series.shearUlsMax[]': spec('Greatest design shear, ULS', 'kN', 1, 'V_{Ed,max}', 'EN 1990 eq. (6.10), EN 1992-1-1 5.10.8(1)'),
+  'series.shearUlsMin[]': spec('Least design shear, ULS', 'kN', 1, 'V_{Ed,min}', 'EN 1990 eq. (6.10), EN 1992-1-1 5.10.8(1)'),
   ...stressSpecs(),
   // ultimate limit state, deflection, cracking and the site schedules
   'uls.factors.gammaG': spec('Partial factor on permanent actions', '', 2, '\\gamma_G', 'EN 1990 Table A1.2(B)'),
