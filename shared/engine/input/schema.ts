@@ -95,11 +95,11 @@ function addedLoad<T extends z.ZodRawShape>(what: string, shape: T) {
     type: z.enum(['permanent', 'imposed'], { error: `${what}: permanent or imposed` }).default('imposed')
       .meta(m('Action', '', 0, { help: 'permanent (a wall, a façade) or imposed (a plant load, a store)' })),
     psi0: z.number({ error: `${what}, ψ0: enter a number` }).min(0, `${what}: ψ0 must be at least 0`).max(1, `${what}: ψ0 must not exceed 1`).default(0.7)
-      .meta(m('ψ0', '', 2, { symbol: '\psi_0', clause: 'EN 1990 Table A1.1' })),
+      .meta(m('ψ0 (combination value)', '', 2, { symbol: '\\psi_0', clause: 'EN 1990 Table A1.1' })),
     psi1: z.number({ error: `${what}, ψ1: enter a number` }).min(0, `${what}: ψ1 must be at least 0`).max(1, `${what}: ψ1 must not exceed 1`).default(0.5)
-      .meta(m('ψ1', '', 2, { symbol: '\psi_1', clause: 'EN 1990 Table A1.1' })),
+      .meta(m('ψ1 (frequent value)', '', 2, { symbol: '\\psi_1', clause: 'EN 1990 Table A1.1' })),
     psi2: z.number({ error: `${what}, ψ2: enter a number` }).min(0, `${what}: ψ2 must be at least 0`).max(1, `${what}: ψ2 must not exceed 1`).default(0.3)
-      .meta(m('ψ2', '', 2, { symbol: '\psi_2', clause: 'EN 1990 Table A1.1' })),
+      .meta(m('ψ2 (quasi-permanent value)', '', 2, { symbol: '\\psi_2', clause: 'EN 1990 Table A1.1' })),
   })
 }
 
