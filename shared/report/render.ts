@@ -124,7 +124,7 @@ function lookup(env: ReportEnv, info: KeyInfo, path: string): unknown {
   return valueAt(env.completedInputs, inputPath(path)) ?? null
 }
 
-function resolveValue(env: ReportEnv, segments: readonly string[], key: string, line: number, use: 'input' | 'value' = 'value'): { text: string; tex: string; missing: boolean } {
+function resolveValue(env: ReportEnv, segments: readonly string[], key: string, line: number, use: 'input' | 'value' = 'value'): { text: string; tex: string; missing: boolean; words?: boolean } {
   if (segments[0] === 'calc' && segments.length === 2 && !env.scopes.some((s) => s.name === 'calc')) {
     const q = env.quantities.get(segments[1]!)
     if (!q) return { text: '—', tex: '\\text{—}', missing: true }
@@ -142,7 +142,8 @@ function resolveValue(env: ReportEnv, segments: readonly string[], key: string, 
   }
   // a list of numbers takes the unit and decimals of its elements
   const spec = info?.spec ?? (info?.kind === 'array' ? describeKey(env.model, `${r.pattern}[]`, use)?.spec : undefined)
-  return { text: valueText(value, spec), tex: valueTex(value, spec), missing: false }
+  // a value in words (a reason, a rule) wraps with the prose; a number stays whole with its unit
+  return { text: valueText(value, spec), tex: valueTex(value, spec), missing: false, ...(typeof value === 'string' ? { words: true } : {}) }
 }
 
 function slug(text: string): string {
@@ -252,7 +253,7 @@ function installRules(renderer: Renderer): void {
   rules.tb_val = (tokens, idx, _o, env) => {
     const meta = tokens[idx]!.meta as InlineMeta
     const v = resolveValue(stateOf(env), meta.segments!, meta.key!, meta.line ?? 0)
-    return v.missing ? `<span class="tb-val tb-missing">—</span>` : `<span class="tb-val">${escapeHtml(v.text)}</span>`
+    return v.missing ? `<span class="tb-val tb-missing">—</span>` : `<span class="tb-val${v.words ? ' tb-words' : ''}">${escapeHtml(v.text)}</span>`
   }
   rules.tb_in = (tokens, idx, _o, env) => renderInput(tokens[idx]!.meta as InlineMeta, stateOf(env))
   rules.tb_bad = (tokens, idx) => `<span class="tb-bad">${escapeHtml(tokens[idx]!.content)}</span>`
