@@ -30,6 +30,11 @@ function supportsX(d: Design): number[] {
   return out
 }
 
+/** Where the figures mark a support: every support but the free tip of a cantilever. */
+function supportMarks(d: Design): number[] {
+  return supportsX(d).filter((_, j) => d.input.geometry.supports?.[j] !== 'free')
+}
+
 /** The section a figure is about: the one `at` names, else the one nearest its limits. */
 function sectionAt(d: Design, at: string | undefined): CriticalSection | undefined {
   const named = at === undefined ? undefined : (getPath(d, at) as CriticalSection | undefined)
@@ -75,7 +80,7 @@ const figures: Record<string, ModelFigure> = {
     render: (r) => {
       const d = r as Design
       const s = d.series
-      return tendonProfileSvg({ X: s.X, e: s.e, eLimitTop: s.eLimitTop, eLimitBottom: s.eLimitBottom, depth: s.depth, centroid: s.centroid, supportsX: supportsX(d) })
+      return tendonProfileSvg({ X: s.X, e: s.e, eLimitTop: s.eLimitTop, eLimitBottom: s.eLimitBottom, depth: s.depth, centroid: s.centroid, supportsX: supportMarks(d) })
     },
   },
   'prestress-moments': {
@@ -91,7 +96,7 @@ const figures: Record<string, ModelFigure> = {
           { label: 'secondary  M2', values: s.secondaryService, stroke: PALETTE.plum },
           { label: 'total  Mp = M1 + M2', values: s.totalService, stroke: PALETTE.blue },
         ],
-        supportsX: supportsX(d),
+        supportsX: supportMarks(d),
         unit: 'kNm',
       })
     },
@@ -110,7 +115,7 @@ const figures: Record<string, ModelFigure> = {
           { label: 'characteristic, least', values: s.momentServiceMin, stroke: PALETTE.blue, dash: 'dashed' },
           { label: 'at transfer', values: s.momentTransfer, stroke: PALETTE.sand },
         ],
-        supportsX: supportsX(d),
+        supportsX: supportMarks(d),
         unit: 'kNm',
         loads: addedLoadMarks(d),
       })
@@ -127,7 +132,7 @@ const figures: Record<string, ModelFigure> = {
         min: s.momentUlsMin,
         sagging: d.uls.sections.map((u) => (u.sagging ? { X: u.X, value: u.sagging.MRd } : null)),
         hogging: d.uls.sections.map((u) => (u.hogging ? { X: u.X, value: -u.hogging.MRd } : null)),
-        supportsX: supportsX(d),
+        supportsX: supportMarks(d),
         unit: 'kNm',
       })
     },
@@ -148,7 +153,7 @@ const figures: Record<string, ModelFigure> = {
           const negative = k >= 0 && Math.abs(s.shearUlsMin[k] as number) > Math.abs(s.shearUlsMax[k] as number)
           return { X: (starts[v.span] as number) + v.x, value: negative ? -v.VRd : v.VRd, toward: v.side }
         }),
-        supportsX: starts,
+        supportsX: supportMarks(d),
         unit: 'kN',
       })
     },
@@ -168,7 +173,7 @@ const figures: Record<string, ModelFigure> = {
           { label: 'at transfer', values: s.forceTransfer, stroke: PALETTE.blue },
           { label: 'in service', values: s.forceService, stroke: PALETTE.olive },
         ],
-        supportsX: supportsX(d),
+        supportsX: supportMarks(d),
       })
     },
   },
@@ -177,7 +182,7 @@ const figures: Record<string, ModelFigure> = {
     render: (r) => {
       const d = r as Design
       const s = d.deflection.series
-      return deflectionSvg({ X: s.x, shortTerm: s.shortTerm, longTerm: s.longTerm, supportsX: supportsX(d) })
+      return deflectionSvg({ X: s.x, shortTerm: s.shortTerm, longTerm: s.longTerm, supportsX: supportMarks(d) })
     },
   },
   magnel: {

@@ -11,6 +11,7 @@ import { ptMemberModel } from '../../../shared/report/models'
 import { compileTemplate } from '../../../shared/report/compile'
 import { renderReport } from '../../../shared/report/render'
 import { BUILTIN_TEMPLATES } from '../../../shared/report/builtins'
+import { PALETTE } from '../../../shared/report/figures/svg'
 import { startTags } from './helpers'
 
 /** PS-2 with its last span a cantilever, a point load and a line load in span 2 (a member the demos do not cover). */
@@ -161,6 +162,15 @@ describe('a cantilever in the ULS figures', () => {
     // the tip carries no moment and no shear
     expect(Math.abs(s.momentUlsMax[s.X.length - 1] as number)).toBeLessThan(1e-3 * Math.max(...s.momentUlsMax.map(Math.abs)))
     expect(Math.abs(s.shearUlsMin[s.X.length - 1] as number)).toBeLessThan(1e-3 * Math.max(...s.shearUlsMin.map(Math.abs)))
+  })
+
+  it('marks the four supports but not the free tip, in every figure along the member', () => {
+    const d = DESIGNS['PS-2 with a cantilever and added loads']!
+    for (const name of ['tendon', 'moments', 'prestress-moments', 'force', 'deflection', 'uls-moments', 'uls-shear']) {
+      const svg = ptMemberModel.figures[name]!.render(d, undefined)
+      const marks = startTags(svg).filter((t) => t.name === 'path' && t.attrs.some((a) => a.name === 'fill' && a.value === PALETTE.axis))
+      expect(marks, name).toHaveLength(4)
+    }
   })
 })
 
