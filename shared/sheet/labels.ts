@@ -24,6 +24,18 @@ const ELEMENT_LABELS: Record<string, (n: number) => string> = {
   'tendon.joints': n => `Joint ${n}`,
 }
 
+/** The words of a table's add button: "Add a point load". */
+const ADD_ROW_LABELS: Record<string, string> = {
+  'loads.points': 'Add a point load',
+  'loads.lines': 'Add a line load',
+  'loads.partials': 'Add a partial load',
+}
+
+/** The words of the button that adds a row to a table field. */
+export function addRowLabel(path: string): string {
+  return ADD_ROW_LABELS[path] ?? `Add a row to “${inputSpecFor(path)?.spec.label ?? path}”`
+}
+
 /** Where the engine's own label does not tell two fields apart. */
 const FIELD_LABELS: Record<string, string> = {
   'profile.anchorLeft': 'Eccentricity at the left anchorage',
@@ -33,6 +45,7 @@ const FIELD_LABELS: Record<string, string> = {
 /** Words for the engine's option ids, per field (list fields by the field's path). */
 const OPTION_WORDS: Record<string, Record<string, string>> = {
   'geometry.supports': { pinned: 'Pinned', fixed: 'Fixed', free: 'Free (cantilever tip)' },
+  'columns.where': { none: 'None (the member rests on its supports)', interior: 'At the interior supports', all: 'At every support' },
   'section.kind': { 'slab-strip': 'Slab strip', 'tee-beam': 'T band beam', 'ell-beam': 'L band beam', 'rectangle': 'Rectangle', 'flanged': 'Flanged section' },
   'materials.cement': { R: 'Class R (rapid hardening)', N: 'Class N (normal)', S: 'Class S (slow)' },
   'tendon.strand': { '12.5': '12.5 mm strand', '12.9': '12.9 mm strand', '15.2': '15.2 mm strand', '15.7': '15.7 mm strand' },

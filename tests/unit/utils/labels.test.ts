@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { inputFieldSpecs } from '../../../shared/engine/index'
-import { describeInputError, describeInputErrors, inputLabel, optionLabel } from '../../../shared/sheet/labels'
+import { addRowLabel, describeInputError, describeInputErrors, inputLabel, optionLabel } from '../../../shared/sheet/labels'
 
 describe('input paths in people\'s words', () => {
   it('numbers list elements from 1, as drawings do', () => {
@@ -46,5 +46,14 @@ describe('input paths in people\'s words', () => {
     expect(describeInputError('section.h', 'Overall depth must be at least 100 mm')).toBe('Overall depth must be at least 100 mm')
     expect(describeInputErrors({ 'inputs.geometry.spans.0': 'A span must be at least 1 m', 'inputs.section.h': 'Overall depth: enter a number' }))
       .toBe('Span 1: A span must be at least 1 m; Overall depth: enter a number')
+  })
+
+  it('names the table rows a button adds, and the ψ factors of a load, in words', () => {
+    expect(addRowLabel('loads.points')).toBe('Add a point load')
+    expect(addRowLabel('loads.lines')).toBe('Add a line load')
+    expect(addRowLabel('loads.partials')).toBe('Add a partial load')
+    for (const table of inputFieldSpecs().filter(f => f.kind === 'table')) expect(addRowLabel(table.path), table.path).not.toMatch(/[a-z]+\.[a-z]+/)
+    expect(inputLabel('loads.points.1.psi2')).toBe('Point load 2, ψ2 (quasi-permanent value)')
+    expect(optionLabel('columns.where', 'interior')).toBe('At the interior supports')
   })
 })
