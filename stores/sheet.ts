@@ -132,7 +132,8 @@ export const useSheetStore = defineStore('sheet', () => {
     return renderSheet(c.template, shownInputs, r.design, 'edit', { optionLabel })
   })
 
-  const checks = computed(() => shownRun.value?.design.checks ?? [])
+  // the engine's checks and the engineer's own (the sheet's calculation blocks), as the report lists them
+  const checks = computed(() => report.value?.checks ?? shownRun.value?.design.checks ?? [])
 
   // Replies to the checker's comments on a returned revision, keyed "reviewId:index"; they go with
   // the next issue. Kept in the browser per revision, so a reload does not lose what is written.
