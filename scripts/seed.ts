@@ -3,7 +3,7 @@
 // Run by scripts/start.mjs and scripts/test.mjs with the database environment of db.mjs.
 import { Hash } from '@adonisjs/hash'
 import { Scrypt } from '@adonisjs/hash/drivers/scrypt'
-import { eq } from 'drizzle-orm'
+import { and, eq } from 'drizzle-orm'
 import { drizzle } from 'drizzle-orm/mysql2'
 import mysql from 'mysql2/promise'
 import * as schema from '../server/database/schema'
@@ -39,6 +39,12 @@ async function main() {
     if (!project) {
       const [row] = await db.insert(schema.projects).values({ ...DEMO_PROJECT, createdBy: ids.engineer! }).$returningId()
       project = row!
+    }
+    // the demo engineer, checker and records clerk work on the demo project (the admin never is a member)
+    for (const role of schema.PROJECT_ROLES) {
+      const where = and(eq(schema.projectMembers.projectId, project.id), eq(schema.projectMembers.userId, ids[role]!))
+      const [member] = await db.select({ id: schema.projectMembers.id }).from(schema.projectMembers).where(where).limit(1)
+      if (!member) await db.insert(schema.projectMembers).values({ projectId: project.id, userId: ids[role]!, role, addedBy: ids.admin! })
     }
     await seedContent(db, { projectId: project.id, engineerId: ids.engineer!, adminId: ids.admin! })
     process.stdout.write('[seed] demo data in place\n')

@@ -27,6 +27,8 @@ export interface SheetPayload {
   body: string | null
   template: { id: number, slug: string, version: number, title: string, model: string, body: string }
   project: { id: number, jobNumber: string, name: string, client: string, site: string }
+  /** the signed-in user's role on the sheet's project */
+  yourRole: 'engineer' | 'checker' | 'records'
 }
 
 export type SaveState = 'saved' | 'pending' | 'saving' | 'invalid' | 'conflict' | 'error'

@@ -4,9 +4,9 @@ import {
 } from 'drizzle-orm/mysql-core'
 
 /** The four roles of design.md §2. */
-import { ROLES } from '../../shared/types/roles'
-export { ROLES }
-export type { Role } from '../../shared/types/roles'
+import { PROJECT_ROLES, ROLES } from '../../shared/types/roles'
+export { PROJECT_ROLES, ROLES }
+export type { ProjectRole, Role } from '../../shared/types/roles'
 
 // MariaDB rejects drizzle's serial(): ids are plain auto-increment ints.
 const id = () => int('id').autoincrement().primaryKey()
@@ -34,6 +34,24 @@ export const projects = mysqlTable('projects', {
   createdBy: int('created_by').notNull().references(() => users.id, { onDelete: 'restrict' }),
   createdAt: createdAt(),
 }, t => [uniqueIndex('projects_job_number_unique').on(t.jobNumber)])
+
+/**
+ * Who works on a project, and as what: every route reads a project's records only for its members
+ * (server/utils/access-rules.ts). A working table like `users`: a change of membership is an audit
+ * event (`member.added`, `member.role`, `member.removed`), so the history of who had access is in
+ * the append-only, hash-chained audit trail rather than in this row.
+ */
+export const projectMembers = mysqlTable('project_members', {
+  id: id(),
+  projectId: int('project_id').notNull().references(() => projects.id, { onDelete: 'restrict' }),
+  userId: int('user_id').notNull().references(() => users.id, { onDelete: 'restrict' }),
+  role: mysqlEnum('role', PROJECT_ROLES).notNull(),
+  addedBy: int('added_by').notNull().references(() => users.id, { onDelete: 'restrict' }),
+  createdAt: createdAt(),
+}, t => [
+  uniqueIndex('project_members_project_user_unique').on(t.projectId, t.userId),
+  index('project_members_user_idx').on(t.userId),
+])
 
 /** One row per published template version: never changed once written. */
 export const templates = mysqlTable('templates', {
@@ -108,6 +126,7 @@ export const idempotencyKeys = mysqlTable('idempotency_keys', {
 
 export type User = typeof users.$inferSelect
 export type Project = typeof projects.$inferSelect
+export type ProjectMember = typeof projectMembers.$inferSelect
 export type Template = typeof templates.$inferSelect
 export type Sheet = typeof sheets.$inferSelect
 

@@ -1,11 +1,17 @@
 import type { H3Event } from 'h3'
-import { and, asc, desc, eq, gte, like, lt, or } from 'drizzle-orm'
+import { and, asc, desc, eq, gte, inArray, like, lt, or, type SQL } from 'drizzle-orm'
 import { alias } from 'drizzle-orm/mysql-core'
 import Papa from 'papaparse'
 import type { ArchiveQuery } from '../utils/records-schemas'
 import { parseVerifyQuery, sha256Hex } from '../utils/hashing'
 
 type SessionUser = { id: number, name: string, email: string, role: import('../../shared/types/roles').Role }
+
+/** The projects whose records the user keeps; never empty, so it reads as an SQL list (no project has id 0). */
+async function recordsProjects(userId: number) {
+  const ids = await memberProjectIds(userId, 'records')
+  return ids.length ? ids : [0]
+}
 
 const s = tables.seals
 const r = tables.revisions
@@ -42,8 +48,8 @@ async function withStatus<T extends { revisionId: number, sheetId: number }>(row
 }
 
 /** The register of sealed documents, newest first, filtered by project, sealing date, status, text. */
-export async function archiveRegister(q: ArchiveQuery) {
-  const conditions = []
+export async function archiveRegister(q: ArchiveQuery, userId: number) {
+  const conditions: Array<SQL | undefined> = [inArray(tables.projects.id, await recordsProjects(userId))]
   if (q.project) conditions.push(eq(tables.projects.id, q.project))
   if (q.from) conditions.push(gte(s.sealedAt, new Date(`${q.from}T00:00:00Z`)))
   if (q.to) conditions.push(lt(s.sealedAt, new Date(new Date(`${q.to}T00:00:00Z`).getTime() + 86_400_000)))
@@ -51,7 +57,7 @@ export async function archiveRegister(q: ArchiveQuery) {
     const text = `%${q.q.replace(/[%_\\]/g, c => `\\${c}`)}%`
     conditions.push(or(like(s.archiveRef, text), like(tables.sheets.title, text), like(tables.sheets.reference, text), like(tables.projects.name, text)))
   }
-  const rows = await withStatus(await registerRows(conditions.length ? and(...conditions) : undefined))
+  const rows = await withStatus(await registerRows(and(...conditions)))
   if (q.status === 'current') return rows.filter(x => !x.superseded)
   if (q.status === 'superseded') return rows.filter(x => x.superseded)
   return rows
@@ -79,7 +85,7 @@ export function registerCsv(rows: Awaited<ReturnType<typeof archiveRegister>>) {
 }
 
 /** Approved revisions that still wait for their seal (and are not superseded). */
-export async function awaitingSeal() {
+export async function awaitingSeal(userId: number) {
   const author = alias(tables.users, 'author')
   const approvals = await useDb().select({
     revisionId: r.id, code: r.code, sheetId: r.sheetId, sheetReference: tables.sheets.reference, sheetTitle: tables.sheets.title,
@@ -89,14 +95,15 @@ export async function awaitingSeal() {
     .innerJoin(author, eq(author.id, r.authorId))
     .innerJoin(tables.sheets, eq(tables.sheets.id, r.sheetId))
     .innerJoin(tables.projects, eq(tables.projects.id, tables.sheets.projectId))
-    .where(eq(tables.reviews.decision, 'approve'))
+    .where(and(eq(tables.reviews.decision, 'approve'), inArray(tables.projects.id, await recordsProjects(userId))))
     .orderBy(asc(tables.reviews.createdAt))
   const rows = await withStatus(approvals)
   return rows.filter(x => x.status === 'Approved')
 }
 
-async function sealMatch(where: ReturnType<typeof eq>) {
-  const rows = await withStatus(await registerRows(where))
+/** The sealed document the condition finds among the user's projects: one of another project reads as none. */
+async function sealMatch(userId: number, where: ReturnType<typeof eq>) {
+  const rows = await withStatus(await registerRows(and(where, inArray(tables.projects.id, await recordsProjects(userId)))))
   const row = rows[0]
   if (!row) return null
   const statuses = await sheetRevisionStatuses(useDb(), row.sheetId)
@@ -129,7 +136,7 @@ function describe(doc: NonNullable<Awaited<ReturnType<typeof sealMatch>>>) {
 /** Hashes an uploaded file and says whether it is, byte for byte, a sealed document. */
 export async function verifyUpload(event: H3Event, bytes: Uint8Array, user: SessionUser): Promise<VerifyResult> {
   const sha256 = sha256Hex(bytes)
-  const doc = await sealMatch(eq(s.pdfSha256, sha256))
+  const doc = await sealMatch(user.id, eq(s.pdfSha256, sha256))
   const result: VerifyResult = doc
     ? { match: true, message: describe(doc), sha256, document: doc, inclusion: await inclusionOf(doc) }
     : { match: false, message: 'Not a sealed document: no sealed PDF has this SHA-256 (a single changed byte gives a different hash)', sha256, document: null, inclusion: null }
@@ -143,18 +150,18 @@ export async function verifyText(event: H3Event, text: string, user: SessionUser
   let doc: Awaited<ReturnType<typeof sealMatch>> = null
   let message = ''
   if (parsed?.kind === 'hash') {
-    doc = await sealMatch(eq(s.pdfSha256, parsed.value)) ?? await sealMatch(eq(r.contentHash, parsed.value))
+    doc = await sealMatch(user.id, eq(s.pdfSha256, parsed.value)) ?? await sealMatch(user.id, eq(r.contentHash, parsed.value))
     if (!doc) {
-      const [rev] = await useDb().select({ code: r.code, ref: tables.sheets.reference }).from(r).innerJoin(tables.sheets, eq(tables.sheets.id, r.sheetId)).where(eq(r.contentHash, parsed.value))
+      const [rev] = await useDb().select({ code: r.code, ref: tables.sheets.reference }).from(r).innerJoin(tables.sheets, eq(tables.sheets.id, r.sheetId)).where(and(eq(r.contentHash, parsed.value), inArray(tables.sheets.projectId, await recordsProjects(user.id))))
       message = rev ? `This is the content hash of ${rev.ref} ${rev.code}, which has not been sealed` : 'Not a sealed document: no sealed PDF or revision has this hash'
     }
   }
   else if (parsed?.kind === 'ref') {
-    doc = await sealMatch(eq(s.verificationRef, parsed.value))
+    doc = await sealMatch(user.id, eq(s.verificationRef, parsed.value))
     if (!doc) message = `No sealed document has the verification reference ${parsed.value}`
   }
   else {
-    doc = await sealMatch(eq(s.archiveRef, text.trim()))
+    doc = await sealMatch(user.id, eq(s.archiveRef, text.trim()))
     if (!doc) message = 'Not found: paste a SHA-256 (64 hex digits), a verification reference (TB-XXXX-XXXX-XXXX) or an archive reference'
   }
   const result: VerifyResult = doc

@@ -1,4 +1,4 @@
-import { and, count, desc, eq, isNotNull } from 'drizzle-orm'
+import { and, count, desc, eq, inArray, isNotNull } from 'drizzle-orm'
 import { entryLeafHash, logEntry } from '../../shared/log/entry'
 import { verifyTreeHead } from '../../shared/log/tree-head'
 import { rowsOf } from '../database/history-log'
@@ -51,12 +51,13 @@ export async function sealInclusion(sealId: number, head: PublishedHead) {
  * head, its signature and the public key, and for every sealed document the inclusion proof of its
  * seal and of its revision, and the consistency proof from the head it was sealed under.
  */
-export async function exportHead() {
+export async function exportHead(userId: number) {
   const head = await publishHead()
   const tree = await storedTree(head.treeSize)
   const s = tables.seals
   const seals = await useDb().select({ id: s.id, revisionId: s.revisionId, archiveRef: s.archiveRef, pdfSha256: s.pdfSha256, logLeafIndex: s.logLeafIndex, headTreeSize: s.headTreeSize, headRootHash: s.headRootHash, contentHash: tables.revisions.contentHash })
-    .from(s).innerJoin(tables.revisions, eq(tables.revisions.id, s.revisionId)).where(and(isNotNull(s.logLeafIndex), isNotNull(s.headTreeSize)))
+    .from(s).innerJoin(tables.revisions, eq(tables.revisions.id, s.revisionId)).innerJoin(tables.sheets, eq(tables.sheets.id, tables.revisions.sheetId))
+    .where(and(isNotNull(s.logLeafIndex), isNotNull(s.headTreeSize), inArray(tables.sheets.projectId, [0, ...await memberProjectIds(userId, 'records')])))
   const documents = []
   for (const seal of seals) {
     const inclusion = await sealInclusion(seal.id, head)

@@ -1,5 +1,5 @@
 import { and, asc, eq, inArray, lte, sql } from 'drizzle-orm'
-import type { Role } from '../../shared/types/roles'
+import type { ProjectRole } from '../../shared/types/roles'
 import type { Tx } from '../utils/audit'
 import { CAUTION } from '../utils/print-templates'
 
@@ -25,10 +25,13 @@ export function withCaution(text: string): string {
   return `${text.trimEnd()}\n\n--\n${CAUTION}\n`
 }
 
-export async function addressesWithRole(tx: Tx, ...roles: Role[]) {
+/** The active members of a project who hold this role there: mail about a project goes to its members only. */
+export async function membersWithRole(tx: Tx, projectId: number, role: ProjectRole) {
   const u = tables.users
-  const rows = await tx.select({ email: u.email, role: u.role }).from(u).where(eq(u.disabled, false))
-  return rows.filter(r => roles.includes(r.role)).map(r => r.email)
+  const m = tables.projectMembers
+  const rows = await tx.select({ email: u.email }).from(m).innerJoin(u, eq(u.id, m.userId))
+    .where(and(eq(m.projectId, projectId), eq(m.role, role), eq(u.disabled, false)))
+  return rows.map(r => r.email)
 }
 
 /** How long a claim holds a message: longer than one SMTP exchange may take (server/utils/mail.ts). */

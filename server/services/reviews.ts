@@ -14,8 +14,9 @@ type SessionUser = { id: number, name: string, email: string, role: import('../.
  * @throws 403 when the author tries to return or approve, 409 when the revision is no longer open for a decision.
  */
 export async function reviewRevision(event: H3Event, revisionId: number, body: ReviewBody, user: SessionUser) {
-  if (body.decision !== 'comment' && user.role !== 'checker' && user.role !== 'admin') {
-    throw createError({ statusCode: 403, message: `Returning or approving a revision needs the checker role; you are signed in as ${user.role}` })
+  // `user.role` is the caller's role on the revision's project (server/utils/access.ts)
+  if (body.decision !== 'comment' && user.role !== 'checker') {
+    throw createError({ statusCode: 403, message: `Returning or approving a revision is for a checker of the project; you are its ${user.role}` })
   }
   await historyTransaction(async (tx) => {
     const [rev] = await tx.select({ id: tables.revisions.id, sheetId: tables.revisions.sheetId, code: tables.revisions.code, authorId: tables.revisions.authorId, sections: tables.revisions.reportSections })
@@ -61,7 +62,7 @@ export async function reviewRevision(event: H3Event, revisionId: number, body: R
     if (body.decision === 'approve') {
       const text = `${user.name} approved ${sheet!.reference} ${rev.code} "${sheet!.title}" as ${contractCode}.\n${commentText ? `\n${commentText}\n` : ''}\nOpen it: ${link}\n`
       await enqueueMail(tx, { kind: action, to: [author?.email ?? ''], subject: `[Tendonbook] ${sheet!.reference} ${rev.code} approved as ${contractCode} - job ${project!.jobNumber}`, text })
-      await enqueueMail(tx, { kind: 'revision.ready-to-seal', to: await addressesWithRole(tx, 'records'), subject: `[Tendonbook] ${sheet!.reference} ${contractCode} approved, ready to seal - job ${project!.jobNumber}`, text: `${sheet!.reference} ${rev.code} was approved as ${contractCode} by ${user.name} and can be sealed.\n\nOpen it: ${link}\n` })
+      await enqueueMail(tx, { kind: 'revision.ready-to-seal', to: await membersWithRole(tx, project!.id, 'records'), subject: `[Tendonbook] ${sheet!.reference} ${contractCode} approved, ready to seal - job ${project!.jobNumber}`, text: `${sheet!.reference} ${rev.code} was approved as ${contractCode} by ${user.name} and can be sealed.\n\nOpen it: ${link}\n` })
     }
   }, { isolationLevel: 'read committed' })
   return getRevisionDetail(revisionId, user)

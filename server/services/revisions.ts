@@ -153,7 +153,7 @@ export async function issueRevision(event: H3Event, sheetId: number, body: Issue
     await recordAudit(event, { action: 'revision.issued', subject: `${project.jobNumber}/${sheet.reference} ${fields.code}`, actorId: user.id, detail: { revisionId: id, contentHash } }, tx)
     await enqueueMail(tx, {
       kind: 'revision.issued',
-      to: await addressesWithRole(tx, 'checker'),
+      to: await membersWithRole(tx, project.id, 'checker'),
       subject: `[Tendonbook] ${sheet.reference} ${fields.code} issued for check - job ${project.jobNumber} ${project.name}`,
       text: `${user.name} issued ${sheet.reference} ${fields.code} "${sheet.title}" for check.\n${note ? `Note: ${note}\n` : ''}${failingChecksReason ? `Issued with failing checks: ${failingChecksReason}\n` : ''}\nOpen it: ${mailLink(event, `/revisions/${id}`)}\n\nContent hash: ${contentHash}\n`,
     })
@@ -207,7 +207,7 @@ export async function getRevisionDetail(id: number, user: SessionUser) {
   const homes = checkSectionsIn(rev.reportHtml)
   const model = Object.hasOwn(MODELS, rev.model) ? MODELS[rev.model] : undefined
   const approval = reviews.find(v => v.decision === 'approve')
-  const canDecide = status.status === 'issued' && (user.role === 'checker' || user.role === 'admin')
+  const canDecide = status.status === 'issued' && user.role === 'checker'
   return {
     id: rev.id, seq: rev.seq, code: rev.code, note: rev.note, failingChecksReason: rev.failingChecksReason,
     replies: (Array.isArray(rev.replies) ? rev.replies : []) as FrozenReply[], issuedAt: rev.issuedAt, contentHash: rev.contentHash, prevHash: rev.prevHash,
@@ -229,8 +229,8 @@ export async function getRevisionDetail(id: number, user: SessionUser) {
       decide: canDecide && user.id !== rev.authorId,
       approve: canDecide && user.id !== rev.authorId,
       comment: user.role !== 'records',
-      seal: status.status === 'approved' && (user.role === 'records' || user.role === 'admin'),
-      closeComments: user.role === 'checker' || user.role === 'admin',
+      seal: status.status === 'approved' && user.role === 'records',
+      closeComments: user.role === 'checker',
     },
   }
 }
@@ -254,13 +254,14 @@ export async function revisionDiff(id: number, againstId?: number) {
   return { against: { id: base.id, code: base.code }, diff: diffRevisions(model, side(base), side(rev)), text: proseDiff(base.templateBody, rev.templateBody) }
 }
 
-/** Revisions waiting for a decision: the latest of their sheet and neither returned nor approved. */
+/** Revisions waiting for a decision on the projects the user checks: the latest of their sheet and neither returned nor approved. */
 export async function checkQueue(user: SessionUser) {
   const db = useDb()
   const author = alias(tables.users, 'author')
   const rows = await db.select({ ...revisionSummary, authorName: author.name, checks: checksJson, sheetReference: tables.sheets.reference, sheetTitle: tables.sheets.title, jobNumber: tables.projects.jobNumber, projectName: tables.projects.name })
     .from(r).innerJoin(author, eq(author.id, r.authorId)).innerJoin(tables.sheets, eq(tables.sheets.id, r.sheetId))
-    .innerJoin(tables.projects, eq(tables.projects.id, tables.sheets.projectId)).orderBy(asc(r.issuedAt))
+    .innerJoin(tables.projects, eq(tables.projects.id, tables.sheets.projectId))
+    .where(inArray(tables.projects.id, [0, ...await memberProjectIds(user.id, 'checker')])).orderBy(asc(r.issuedAt))
   const statusBySheet = new Map<number, Map<number, DerivedStatus>>()
   const out = []
   for (const row of rows) {

@@ -37,17 +37,21 @@ export function parseMessage(raw: string): { subject: string, text: string } {
   return { subject: decodeWord(headers.get('subject') ?? ''), text: text.replace(/\r\n/g, '\n').trimEnd() }
 }
 
-export async function readMailbox(dir: string, limit = 100): Promise<MailboxMessage[]> {
+/** The newest messages of the mailbox folder; with `recipient`, only those addressed to that e-mail. */
+export async function readMailbox(dir: string, limit = 100, recipient?: string): Promise<MailboxMessage[]> {
   let files: string[]
   try {
-    files = (await readdir(dir)).filter(f => f.endsWith('.json')).sort().reverse().slice(0, limit)
+    files = (await readdir(dir)).filter(f => f.endsWith('.json')).sort().reverse()
   }
   catch {
     return []
   }
   const out: MailboxMessage[] = []
+  const wanted = recipient?.toLowerCase()
   for (const file of files) {
+    if (out.length >= limit) break
     const stored = JSON.parse(await readFile(join(dir, file), 'utf8')) as { receivedAt: string, from: string, to: string[], raw: string }
+    if (wanted && !stored.to.some(to => to.toLowerCase() === wanted)) continue
     out.push({ file, receivedAt: stored.receivedAt, from: stored.from, to: stored.to, ...parseMessage(stored.raw) })
   }
   return out

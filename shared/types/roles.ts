@@ -8,3 +8,7 @@ export const ROLE_LABELS: Record<Role, string> = {
   records: 'Records',
   admin: 'Administrator',
 }
+
+/** The roles a person holds on one project (design.md §7 "Access by project"): an administrator is never a member. */
+export const PROJECT_ROLES = ['engineer', 'checker', 'records'] as const
+export type ProjectRole = (typeof PROJECT_ROLES)[number]

@@ -2,8 +2,8 @@ import { archiveQuery } from '../../utils/records-schemas'
 
 export default defineEventHandler(async (event) => {
   const query = validQuery(event, archiveQuery)
-  await requireRole(event, 'records', 'admin')
-  const csv = registerCsv(await archiveRegister(query))
+  const user = await authorize(event)
+  const csv = registerCsv(await archiveRegister(query, user.id))
   setResponseHeaders(event, {
     'content-type': 'text/csv; charset=utf-8',
     'content-disposition': `attachment; filename="archive-register-${new Date().toISOString().slice(0, 10)}.csv"`,

@@ -2,7 +2,7 @@ import { revisionIdParams } from '../../utils/records-schemas'
 
 export default defineEventHandler(async (event) => {
   const { id } = validParams(event, revisionIdParams)
-  await requireUser(event)
+  await authorize(event, id)
   const { row, bytes } = await attachmentFile(id)
   setResponseHeaders(event, {
     'content-type': row.mime,

@@ -1,4 +1,4 @@
 export default defineEventHandler(async (event) => {
-  const user = await requireUser(event)
+  const user = await authorize(event)
   return user
 })

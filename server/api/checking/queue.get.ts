@@ -1,4 +1,4 @@
 export default defineEventHandler(async (event) => {
-  const user = await requireRole(event, 'checker', 'admin')
+  const user = await authorize(event)
   return checkQueue(user)
 })

@@ -1,5 +1,5 @@
 /** The history log's latest signed head and the heads published before it (records register). */
 export default defineEventHandler(async (event) => {
-  await requireRole(event, 'records', 'admin')
+  await authorize(event)
   return logRegister()
 })

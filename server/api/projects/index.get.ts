@@ -1,4 +1,4 @@
 export default defineEventHandler(async (event) => {
-  await requireUser(event)
-  return listProjects()
+  const user = await authorize(event)
+  return listProjects(user.id)
 })

@@ -1,8 +1,9 @@
 import { projectCreateSchema } from '../../../shared/schemas/project'
 
+/** A new project; the engineer who creates it is its first member, as its engineer. */
 export default defineEventHandler(async (event) => {
+  const user = await authorize(event)
   const body = await validBody(event, projectCreateSchema)
-  const user = await requireRole(event, 'engineer', 'admin')
   setResponseStatus(event, 201)
-  return createProject(body, user.id)
+  return createProject(event, body, user)
 })

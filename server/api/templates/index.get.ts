@@ -1,4 +1,4 @@
 export default defineEventHandler(async (event) => {
-  await requireUser(event)
+  await authorize(event)
   return listTemplates()
 })

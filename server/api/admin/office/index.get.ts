@@ -1,5 +1,5 @@
 /** The office details in force (null before any are set). */
 export default defineEventHandler(async (event) => {
-  await requireRole(event, 'admin')
+  await authorize(event)
   return currentOfficeDetails()
 })

@@ -1,4 +1,4 @@
 export default defineEventHandler(async (event) => {
-  await requireRole(event, 'admin')
+  await authorize(event)
   return listUsers()
 })

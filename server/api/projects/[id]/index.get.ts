@@ -2,6 +2,6 @@ import { idParamSchema } from '../../../../shared/schemas/project'
 
 export default defineEventHandler(async (event) => {
   const { id } = validParams(event, idParamSchema)
-  await requireUser(event)
-  return getProject(id)
+  const user = await authorize(event, id)
+  return { ...await getProject(id), yourRole: user.role }
 })

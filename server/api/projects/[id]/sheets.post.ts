@@ -3,8 +3,8 @@ import { sheetCreateSchema, sheetFieldLabel } from '../../../../shared/schemas/s
 
 export default defineEventHandler(async (event) => {
   const { id } = validParams(event, idParamSchema)
+  const user = await authorize(event, id)
   const body = await validBody(event, sheetCreateSchema, sheetFieldLabel)
-  const user = await requireRole(event, 'engineer', 'admin')
   setResponseStatus(event, 201)
   return createSheet(id, body, user.id)
 })

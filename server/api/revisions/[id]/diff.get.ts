@@ -2,7 +2,7 @@ import { diffQuery, revisionIdParams } from '../../../utils/records-schemas'
 
 export default defineEventHandler(async (event) => {
   const { id } = validParams(event, revisionIdParams)
+  await authorize(event, id)
   const { against } = validQuery(event, diffQuery)
-  await requireUser(event)
   return revisionDiff(id, against)
 })

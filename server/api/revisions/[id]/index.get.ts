@@ -2,6 +2,6 @@ import { revisionIdParams } from '../../../utils/records-schemas'
 
 export default defineEventHandler(async (event) => {
   const { id } = validParams(event, revisionIdParams)
-  const user = await requireUser(event)
+  const user = await authorize(event, id)
   return getRevisionDetail(id, user)
 })

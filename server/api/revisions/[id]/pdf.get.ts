@@ -3,7 +3,7 @@ import { revisionIdParams } from '../../../utils/records-schemas'
 /** The sealed PDF, checked against its recorded hash before it is sent. */
 export default defineEventHandler(async (event) => {
   const { id } = validParams(event, revisionIdParams)
-  await requireUser(event)
+  await authorize(event, id)
   const { seal, bytes } = await sealedPdf(id)
   setResponseHeaders(event, {
     'content-type': 'application/pdf',

@@ -2,6 +2,6 @@ import { revisionIdParams } from '../../../utils/records-schemas'
 
 export default defineEventHandler(async (event) => {
   const { id } = validParams(event, revisionIdParams)
-  await requireUser(event)
+  await authorize(event, id)
   return listAttachments(id)
 })

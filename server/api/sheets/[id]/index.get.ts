@@ -2,6 +2,6 @@ import { idParamSchema } from '../../../../shared/schemas/project'
 
 export default defineEventHandler(async (event) => {
   const { id } = validParams(event, idParamSchema)
-  await requireUser(event)
-  return getSheet(id)
+  const user = await authorize(event, id)
+  return { ...await getSheet(id), yourRole: user.role }
 })

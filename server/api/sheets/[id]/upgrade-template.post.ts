@@ -2,6 +2,6 @@ import { idParamSchema } from '../../../../shared/schemas/project'
 
 export default defineEventHandler(async (event) => {
   const { id } = validParams(event, idParamSchema)
-  const user = await requireRole(event, 'engineer', 'admin')
+  const user = await authorize(event, id)
   return upgradeTemplate(id, user.id)
 })

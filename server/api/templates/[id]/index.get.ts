@@ -2,7 +2,7 @@ import { idParamSchema } from '../../../../shared/schemas/project'
 
 export default defineEventHandler(async (event) => {
   const { id } = validParams(event, idParamSchema)
-  await requireUser(event)
+  await authorize(event)
   const template = await getTemplate(id)
   return { ...template, versions: await templateVersions(template.slug) }
 })
