@@ -100,7 +100,7 @@ export async function authorize(event: H3Event, recordId?: number): Promise<Acto
   const actor: Actor = { ...user, accountRole: user.role, project: null }
   if (rule.who === 'account') {
     if (rule.roles !== 'any' && !rule.roles.includes(user.role)) {
-      throw createError({ statusCode: 403, message: `This is for ${article(rule.roles[0]!)} ${roleWords(rule.roles)}; you are signed in as ${article(user.role)} ${ROLE_LABELS[user.role].toLowerCase()}` })
+      throw createError({ statusCode: 403, message: `This needs the ${roleWords(rule.roles)} role; you are signed in as ${article(user.role)} ${ROLE_LABELS[user.role].toLowerCase()}` })
     }
     return actor
   }

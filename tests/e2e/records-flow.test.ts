@@ -103,36 +103,32 @@ describe('issue → check → return → issue → approve → seal → verify, 
     await expect.poll(() => records.locator('[data-test=verify-result]').textContent()).toContain('Not a sealed document')
     await screenshot(records, 'records-verify')
 
-    // admin walks the hash chains from the archive page
-    const admin = await newPage(browser)
-    await signInAs(admin, 'admin')
-    await admin.goto('/archive')
-    await admin.waitForLoadState('networkidle')
-    await expect.poll(() => admin.locator('[data-test=archive-table]').textContent()).toContain('-PS-2-C01')
-    await admin.click('[data-test=verify-chain]')
-    await expect.poll(() => admin.locator('[data-test=chain-result]').textContent(), { timeout: 30_000 }).toMatch(/intact|Broken/)
+    // the records clerk walks the hash chains from the archive page
+    await records.goto('/archive')
+    await records.waitForLoadState('networkidle')
+    await expect.poll(() => records.locator('[data-test=archive-table]').textContent()).toContain('-PS-2-C01')
+    await records.click('[data-test=verify-chain]')
+    await expect.poll(() => records.locator('[data-test=chain-result]').textContent(), { timeout: 30_000 }).toMatch(/intact|Broken/)
     // the integration tests tamper with one row for a moment: ask again until the chain reads whole
     await expect.poll(async () => {
-      await admin.click('[data-test=verify-chain]')
-      await admin.waitForTimeout(500)
-      return admin.locator('[data-test=chain-result]').textContent()
+      await records.click('[data-test=verify-chain]')
+      await records.waitForTimeout(500)
+      return records.locator('[data-test=chain-result]').textContent()
     }, { timeout: 30_000, intervals: [1000] }).toContain('Every chain is intact')
-    await screenshot(admin, 'records-archive')
+    await screenshot(records, 'records-archive')
 
-    // the notices reach an SMTP peer, and the dev mailbox page shows what this server's peer received
+    // the notices reach an SMTP peer, and the dev mailbox page shows the signed-in person's own mail only
     await waitForMail(m => m.to.includes(DEMO.engineer.email) && m.raw.includes('approved as C01') && m.raw.includes(`/revisions/${id}`))
+    await waitForMail(m => m.to.includes(DEMO.records.email) && m.raw.includes('ready to seal') && m.raw.includes(`/revisions/${id}`))
     const own = inject('mailboxDir')
-    const newest = readdirSync(own).filter(f => f.endsWith('.json')).sort().at(-1)
-    await admin.goto('/mailbox')
-    await admin.waitForLoadState('networkidle')
-    if (newest) {
-      const raw = (JSON.parse(readFileSync(join(own, newest), 'utf8')) as { raw: string }).raw
-      const subject = /^Subject: (.*)$/m.exec(raw)![1]!.trim()
-      await expect.poll(() => admin.locator('[data-test=mailbox]').textContent()).toContain(subject)
-    }
-    else {
-      await expect.poll(() => admin.locator('[data-test=mailbox]').textContent()).toContain('No messages yet')
-    }
+    const mail = readdirSync(own).filter(f => f.endsWith('.json')).sort().map(f => JSON.parse(readFileSync(join(own, f), 'utf8')) as { to: string[], raw: string })
+    const subjectOf = (raw: string) => /^Subject: (.*)$/m.exec(raw)![1]!.trim()
+    const toRecords = mail.filter(m => m.to.includes(DEMO.records.email)).at(-1)!
+    const approvedToEngineer = mail.filter(m => m.to.includes(DEMO.engineer.email) && !m.to.includes(DEMO.records.email) && m.raw.includes('approved as C01')).at(-1)!
+    await records.goto('/mailbox')
+    await records.waitForLoadState('networkidle')
+    await expect.poll(() => records.locator('[data-test=mailbox]').textContent()).toContain(subjectOf(toRecords.raw))
+    expect(await records.locator('[data-test=mailbox]').textContent()).not.toContain(subjectOf(approvedToEngineer.raw))
   // two sealing renders and a signed head per decision: on a shared, busy machine this takes minutes
   }, 300_000)
 })

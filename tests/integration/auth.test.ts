@@ -34,7 +34,7 @@ describe('sign-in and roles', () => {
     const client = await signedIn('engineer')
     const res = await client.get('/api/admin/users')
     expect(res.status).toBe(403)
-    expect(res.body.message).toMatch(/admin role/)
+    expect(res.body.message).toMatch(/administrator role; you are signed in as an engineer/)
   })
 
   it('lets an admin create a user who can then sign in; short passwords are refused', async () => {

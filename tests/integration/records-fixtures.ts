@@ -88,16 +88,42 @@ export async function userId(role: keyof typeof DEMO) {
   })
 }
 
-/** A new project with one calc sheet holding the PS-2 demo inputs (or others, on the template of the `kind` named). */
+/**
+ * A new project with one calc sheet holding the PS-2 demo inputs (or others, on the template of the
+ * `kind` named); the demo engineer, checker and records clerk are its members, each in their role.
+ */
 export async function makeSheet(inputs: unknown = DEMO_PS2, kind = 'slab') {
   const engineer = await userId('engineer')
+  const members = [['engineer', engineer], ['checker', await userId('checker')], ['records', await userId('records')]] as const
+  const admin = await userId('admin')
   return withDb(async (conn) => {
     const job = unique('R')
     const [p] = await conn.query('INSERT INTO projects (job_number, name, client, site, created_by) VALUES (?, ?, ?, ?, ?)', [job, 'Alder Yard podium (records test)', 'Alder Yard Developments (fictional)', 'Northgate', engineer])
     const projectId = (p as { insertId: number }).insertId
+    for (const [role, id] of members) await conn.query('INSERT INTO project_members (project_id, user_id, role, added_by) VALUES (?, ?, ?, ?)', [projectId, id, role, admin])
     const [s] = await conn.query('INSERT INTO sheets (project_id, reference, title, part_of_structure, template_id, inputs, created_by, updated_by) VALUES (?, ?, ?, ?, ?, ?, ?, ?)', [projectId, kind === 'slab' ? 'PS-2' : 'BB-1', kind === 'slab' ? 'Podium slab strip' : 'Band beam on grid C', 'Level 1 podium', await templateId(conn, kind), JSON.stringify(inputs), engineer, engineer])
     return { projectId, jobNumber: job, sheetId: (s as { insertId: number }).insertId }
   })
+}
+
+/**
+ * A new account of this role (made by the demo admin), signed in, and, when `projectId` is given,
+ * put on that project in the same role through the admin's membership route.
+ */
+export async function newPerson(role: 'engineer' | 'checker' | 'records', name: string, projectId?: number) {
+  const admin = await session('admin')
+  const email = `${unique(role)}@tendonbook.local`
+  const password = 'a-long-enough-password'
+  const made = await admin.json('POST', '/api/admin/users', { email, name, role, password })
+  if (made.status !== 201) throw new Error(`making ${name} failed: ${made.status} ${JSON.stringify(made.body)}`)
+  if (projectId !== undefined) {
+    const added = await admin.json('POST', `/api/admin/projects/${projectId}/members`, { userId: made.body.id, role })
+    if (added.status !== 200) throw new Error(`putting ${name} on project ${projectId} failed: ${added.status} ${JSON.stringify(added.body)}`)
+  }
+  const s = new Session()
+  const signed = await s.json('POST', '/api/auth/signin', { email, password })
+  if (signed.status !== 200) throw new Error(`sign-in as ${name} failed: ${signed.status}`)
+  return { session: s, id: made.body.id as number, email }
 }
 
 /** A save of the draft, as the editor's would be: new inputs, the next draft version. */

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest'
 import { DEMO_PS2 } from '../../shared/engine/input/demo'
 import { verifyTreeHead } from '../../shared/log/tree-head'
 import { countRows, withDb } from '../helpers/db'
-import { chainBreaks, issue, makeSheet, session, userId, withoutTriggers } from './records-fixtures'
+import { chainBreaks, issue, makeSheet, newPerson, session, userId, withoutTriggers } from './records-fixtures'
 
 const LONE = '\ud800'
 
@@ -189,19 +189,20 @@ describe('the history log', () => {
 
 describe('issuing the draft on screen', () => {
   it('refuses to freeze a newer draft saved by someone else, with 409 naming who and which version', async () => {
-    const { sheetId } = await makeSheet()
+    const { sheetId, projectId } = await makeSheet()
     const engineer = await session('engineer')
-    const admin = await session('admin')
+    // a second engineer on the job: any engineer of the project may save its draft
+    const colleague = (await newPerson('engineer', 'Ruth Okafor', projectId)).session
     const missing = await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, { note: 'no version' })
     expect(missing.status).toBe(400)
     expect(missing.body.data.fields.draftVersion).toContain('draft version on your screen')
-    // the engineer has version 1 on screen; the admin saves a change meanwhile (one that keeps every
+    // the engineer has version 1 on screen; the colleague saves a change meanwhile (one that keeps every
     // check passing, so the fresh issue below needs no reason for failing checks)
-    const saved = await admin.json('PUT', `/api/sheets/${sheetId}/draft`, { inputs: { ...DEMO_PS2, section: { ...DEMO_PS2.section, h: 280 } }, draftVersion: 1 })
+    const saved = await colleague.json('PUT', `/api/sheets/${sheetId}/draft`, { inputs: { ...DEMO_PS2, section: { ...DEMO_PS2.section, h: 280 } }, draftVersion: 1 })
     expect(saved.status).toBe(200)
     const stale = await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, { note: 'what I checked', draftVersion: 1 })
     expect(stale.status).toBe(409)
-    expect(stale.body.message).toMatch(/^Sam Keller saved a newer draft of PS-2 \(version 2; you are looking at version 1\).*Reload the sheet/)
+    expect(stale.body.message).toMatch(/^Ruth Okafor saved a newer draft of PS-2 \(version 2; you are looking at version 1\).*Reload the sheet/)
     expect(await countRows('revisions', 'sheet_id = ?', [sheetId])).toBe(0)
     const fresh = await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, { note: 'after reloading', draftVersion: 2 })
     expect(fresh.status).toBe(201)

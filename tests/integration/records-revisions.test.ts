@@ -183,22 +183,30 @@ describe('check and sign-off', () => {
     expect((await checker.json('POST', `/api/revisions/${second.id}/reviews`, { decision: 'approve' })).status).toBe(409)
   })
 
-  it('never lets the author approve their own revision', async () => {
-    const { sheetId } = await makeSheet()
+  it('never lets the author approve their own revision, even once they check the project', async () => {
+    const { sheetId, projectId } = await makeSheet()
+    const engineer = await session('engineer')
+    const rev = (await issue(engineer, sheetId)).body
+    // the author becomes a checker of the project after issuing
     const admin = await session('admin')
-    const rev = (await issue(admin, sheetId)).body
-    expect(rev.can.approve).toBe(false)
-    expect(rev.can.decide).toBe(false)
-    const refused = await admin.json('POST', `/api/revisions/${rev.id}/reviews`, { decision: 'approve' })
+    const authorId = await userId('engineer')
+    expect((await admin.json('POST', `/api/admin/projects/${projectId}/members`, { userId: authorId, role: 'checker' })).status).toBe(200)
+    const seen = (await engineer.json('GET', `/api/revisions/${rev.id}`)).body
+    expect(seen.can.approve).toBe(false)
+    expect(seen.can.decide).toBe(false)
+    const refused = await engineer.json('POST', `/api/revisions/${rev.id}/reviews`, { decision: 'approve' })
     expect(refused.status).toBe(403)
     expect(refused.body.message).toContain('someone other than its author')
     // returning one's own revision is a decision on it too
-    const returned = await admin.json('POST', `/api/revisions/${rev.id}/reviews`, { decision: 'return', comments: [{ anchor: '', text: 'my own' }] })
+    const returned = await engineer.json('POST', `/api/revisions/${rev.id}/reviews`, { decision: 'return', comments: [{ anchor: '', text: 'my own' }] })
     expect(returned.status).toBe(403)
     expect(returned.body.message).toContain('returned by someone other than its author')
     // and the database refuses it too, whatever the application does
-    const adminId = await userId('admin')
-    await expect(withDb(c => c.query('INSERT INTO reviews (revision_id, sheet_id, decision, contract_code, comments, reviewer_id, created_at, content_hash) VALUES (?, ?, \'approve\', \'C01\', \'[]\', ?, NOW(3), REPEAT(\'f\', 64))', [rev.id, sheetId, adminId]))).rejects.toThrow('may not approve')
+    await expect(withDb(c => c.query('INSERT INTO reviews (revision_id, sheet_id, decision, contract_code, comments, reviewer_id, created_at, content_hash) VALUES (?, ?, \'approve\', \'C01\', \'[]\', ?, NOW(3), REPEAT(\'f\', 64))', [rev.id, sheetId, authorId]))).rejects.toThrow('may not approve')
+    // the administrator decides nothing on engineering work
+    const byAdmin = await admin.json('POST', `/api/revisions/${rev.id}/reviews`, { decision: 'approve' })
+    expect(byAdmin.status).toBe(403)
+    expect(byAdmin.body.message).toContain('not engineering work')
     const records = await session('records')
     expect((await records.json('POST', `/api/revisions/${rev.id}/reviews`, { decision: 'approve' })).status).toBe(403)
     const checker = await session('checker')

@@ -73,7 +73,7 @@ describe('calc sheets', () => {
     expect(stored.v).toBe(saved.body.draftVersion)
   })
 
-  it('lets only engineers and admins change a draft', async () => {
+  it('lets only the project\'s engineers change a draft', async () => {
     const engineer = await signedIn('engineer')
     const sheetId = (await engineer.get(`/api/projects/${await demoProject(engineer)}`)).body.sheets[0].id
     const sheet = (await engineer.get(`/api/sheets/${sheetId}`)).body
