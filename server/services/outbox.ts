@@ -1,4 +1,4 @@
-import { and, asc, eq, inArray, lte, sql } from 'drizzle-orm'
+import { and, asc, eq, inArray, lte } from 'drizzle-orm'
 import type { ProjectRole } from '../../shared/types/roles'
 import type { Tx } from '../utils/audit'
 import { CAUTION } from '../utils/print-templates'
@@ -110,9 +110,4 @@ async function markSent(message: { id: number, attempts: number }) {
       await new Promise(r => setTimeout(r, 400 * attempt))
     }
   }
-}
-
-export async function outboxSummary() {
-  const o = tables.outbox
-  return useDb().select({ state: o.state, count: sql<number>`count(*)` }).from(o).groupBy(o.state)
 }

@@ -6,5 +6,5 @@ export default defineEventHandler(async (event) => {
   const user = await authorize(event)
   const config = useRuntimeConfig()
   if (String(config.public.devMailbox) !== 'true' || !config.mailboxDir) throw createError({ statusCode: 404, message: 'No such page' })
-  return { messages: await readMailbox(config.mailboxDir, 100, user.email), outbox: await outboxSummary() }
+  return { messages: await readMailbox(config.mailboxDir, 100, user.email) }
 })
