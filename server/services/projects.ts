@@ -27,7 +27,10 @@ export async function getProject(id: number) {
     .innerJoin(t, eq(t.id, s.templateId))
     .where(eq(s.projectId, id))
     .orderBy(asc(s.reference))
-  return { ...project, sheets }
+  const m = tables.projectMembers
+  const members = await useDb().select({ userId: m.userId, name: tables.users.name, role: m.role })
+    .from(m).innerJoin(tables.users, eq(tables.users.id, m.userId)).where(eq(m.projectId, id)).orderBy(asc(tables.users.name))
+  return { ...project, sheets, members }
 }
 
 /**

@@ -8,7 +8,9 @@ export type RecordKind = (typeof RECORD_KINDS)[number]
  * Who may call a route:
  * - `open`: anyone, signed in or not;
  * - `account`: a signed-in account whose office role is listed ('any' for every role); a route that
- *   lists records (`lists`) shows only the projects where the caller holds the project role named;
+ *   lists records (`lists`) shows only the projects where the caller holds the project role named,
+ *   and is open as well to whoever holds that role on some project (an engineer who checks one job
+ *   has that job's check queue);
  * - `record`: the route names a record of one project by its `:id`; the caller must be a member of
  *   that project (else 404, as if there were no such record) in one of the project roles listed
  *   ('any' for every member; else 403). An administrator is never a member: engineering work is done
@@ -22,9 +24,6 @@ export type AccessRule =
 const open = (): AccessRule => ({ who: 'open' })
 const account = (roles: readonly Role[] | 'any', lists?: ProjectRole | 'any'): AccessRule => ({ who: 'account', roles, lists })
 const member = (record: RecordKind, roles: readonly ProjectRole[] | 'any' = 'any'): AccessRule => ({ who: 'record', record, roles })
-
-/** The office roles that do engineering work (everyone but the administrator). */
-const WORKING = ['engineer', 'checker', 'records'] as const
 
 /**
  * THE permission table: every route under server/api, by method and Nitro path, and who may call
@@ -77,14 +76,14 @@ export const ACCESS_RULES = {
   // a comment from anyone on the job but the records office; return and approve are the checker's (the service says so)
   'POST /api/revisions/:id/reviews': member('revision', ['engineer', 'checker']),
   'POST /api/reviews/:id/comment-state': member('review', ['checker']),
-  'GET /api/checking/queue': account(WORKING, 'checker'),
+  'GET /api/checking/queue': account(['checker'], 'checker'),
 
   // records: seal, archive, verify, the history log
   'POST /api/revisions/:id/seal': member('revision', ['records']),
   'POST /api/revisions/:id/reseal-check': member('revision', ['records']),
   'GET /api/revisions/:id/pdf': member('revision'),
-  'GET /api/archive': account(WORKING, 'records'),
-  'GET /api/archive/export.csv': account(WORKING, 'records'),
+  'GET /api/archive': account(['records'], 'records'),
+  'GET /api/archive/export.csv': account(['records'], 'records'),
   'POST /api/verify': account(['records'], 'records'),
   'POST /api/chain/verify': account(['records']),
   'GET /api/log': account(['records']),

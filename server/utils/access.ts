@@ -99,7 +99,8 @@ export async function authorize(event: H3Event, recordId?: number): Promise<Acto
   const user = await requireUser(event)
   const actor: Actor = { ...user, accountRole: user.role, project: null }
   if (rule.who === 'account') {
-    if (rule.roles !== 'any' && !rule.roles.includes(user.role)) {
+    const held = rule.lists && rule.lists !== 'any' && (await memberProjectIds(user.id, rule.lists)).length > 0
+    if (rule.roles !== 'any' && !rule.roles.includes(user.role) && !held) {
       throw createError({ statusCode: 403, message: `This needs the ${roleWords(rule.roles)} role; you are signed in as ${article(user.role)} ${ROLE_LABELS[user.role].toLowerCase()}` })
     }
     return actor

@@ -46,24 +46,34 @@ describe('the permission table', () => {
   })
 })
 
-type Persona = 'nobody' | 'admin' | `member ${ProjectRole}` | `outsider ${ProjectRole}`
+/** A kind of caller: their account's role (none when not signed in) and their role on the project (none outside it). */
+interface Persona { label: string, account: Role | null, project: ProjectRole | null }
 type Expected = 'allowed' | 401 | 403 | 404
 const PROJECT_ROLE_LIST: ProjectRole[] = ['engineer', 'checker', 'records']
+const PERSONAS: Persona[] = [
+  { label: 'nobody', account: null, project: null },
+  { label: 'admin', account: 'admin', project: null },
+  ...PROJECT_ROLE_LIST.map(role => ({ label: `member ${role}`, account: role, project: role })),
+  ...PROJECT_ROLE_LIST.map(role => ({ label: `outsider ${role}`, account: role, project: null })),
+  // the role on the project, not the account's, is what counts on it
+  { label: 'engineer checking the project', account: 'engineer', project: 'checker' },
+]
 
 /** What the table says a persona gets from a route. */
 function expected(rule: AccessRule, persona: Persona): Expected {
   if (rule.who === 'open') return 'allowed'
-  if (persona === 'nobody') return 401
-  const [where, projectRole] = persona.split(' ') as ['admin' | 'member' | 'outsider', ProjectRole | undefined]
-  const accountRole: Role = where === 'admin' ? 'admin' : projectRole!
-  if (rule.who === 'account') return rule.roles === 'any' || rule.roles.includes(accountRole) ? 'allowed' : 403
-  if (where === 'admin') return 403
-  if (where === 'outsider') return 404
-  return rule.roles === 'any' || rule.roles.includes(projectRole!) ? 'allowed' : 403
+  if (persona.account === null) return 401
+  if (rule.who === 'account') {
+    const heldOnProject = rule.lists !== undefined && rule.lists !== 'any' && persona.project === rule.lists
+    return rule.roles === 'any' || rule.roles.includes(persona.account) || heldOnProject ? 'allowed' : 403
+  }
+  if (persona.account === 'admin') return 403
+  if (persona.project === null) return 404
+  return rule.roles === 'any' || rule.roles.includes(persona.project) ? 'allowed' : 403
 }
 
 describe('every route × every caller', () => {
-  const people = new Map<Persona, Session>()
+  const people = new Map<string, Session>()
   const ids = { project: 0, sheet: 0, revision: 0, review: 0, attachment: 0, template: 0, person: 0 }
 
   beforeAll(async () => {
@@ -78,11 +88,11 @@ describe('every route × every caller', () => {
     const admin = new Session()
     expect((await admin.json('POST', '/api/auth/signin', { email: adminEmail, password: 'a-long-enough-password' })).status).toBe(200)
     people.set('admin', admin)
-    for (const role of PROJECT_ROLE_LIST) {
-      people.set(`member ${role}`, (await newPerson(role, `Member ${role}`, ids.project)).session)
-      const outsider = await newPerson(role, `Outsider ${role}`)
-      people.set(`outsider ${role}`, outsider.session)
-      if (role === 'engineer') ids.person = outsider.id
+    for (const persona of PERSONAS.filter(p => p.account && p.account !== 'admin')) {
+      const person = await newPerson(persona.account as ProjectRole, persona.label)
+      if (persona.project) expect((await boss.json('POST', `/api/admin/projects/${ids.project}/members`, { userId: person.id, role: persona.project })).status).toBe(200)
+      else if (persona.account === 'engineer') ids.person = person.id
+      people.set(persona.label, person.session)
     }
     const engineer = people.get('member engineer')!
     const issued = await issue(engineer, ids.sheet, { note: 'for the access table' })
@@ -90,7 +100,7 @@ describe('every route × every caller', () => {
     ids.revision = issued.body.id
     const reviewed = await people.get('member checker')!.json('POST', `/api/revisions/${ids.revision}/reviews`, { decision: 'comment', comments: [{ anchor: '', text: 'Check the cover.' }] })
     expect(reviewed.status).toBe(201)
-    ids.review = reviewed.body.id
+    ids.review = (reviewed.body.reviews as Array<{ id: number }>).at(-1)!.id
     const uploaded = await engineer.upload(`/api/sheets/${ids.sheet}/attachments`, new TextEncoder().encode('%PDF-1.4\n%%EOF\n'), 'note.pdf', 'application/pdf')
     expect(uploaded.status).toBe(201)
     ids.attachment = uploaded.body.id
@@ -109,7 +119,6 @@ describe('every route × every caller', () => {
   // the routes that end the caller's session go last
   const last = ['POST /api/auth/signout-everywhere', 'POST /api/auth/signout']
   const keys = [...Object.keys(RULES).filter(k => !last.includes(k)), ...last]
-  const personas: Persona[] = ['nobody', 'admin', 'member engineer', 'member checker', 'member records', 'outsider engineer', 'outsider checker', 'outsider records']
 
   it('answers each as the table says: 401 for nobody, 403 for a role that may not act, 404 outside one\'s projects', async () => {
     const wrong: string[] = []
@@ -117,15 +126,15 @@ describe('every route × every caller', () => {
       const rule = RULES[key]!
       const method = key.split(' ')[0]!
       const url = urlOf(key, rule)
-      for (const persona of personas) {
+      for (const persona of PERSONAS) {
         const want = expected(rule, persona)
-        const res = await people.get(persona)!.json(method, url, method === 'GET' ? undefined : {})
+        const res = await people.get(persona.label)!.json(method, url, method === 'GET' ? undefined : {})
         const message = typeof res.body === 'object' && res.body ? String((res.body as { message?: unknown }).message ?? '') : ''
         const hidden = rule.who === 'record' && res.status === 404 && message === `No ${RECORD_NAMES[rule.record]} with id ${ids[rule.record]}`
         const ok = want === 'allowed'
           ? ![401, 403, 500].includes(res.status) && !hidden
           : want === 404 ? hidden : res.status === want
-        if (!ok) wrong.push(`${key} as ${persona}: expected ${want}, got ${res.status} ${message}`)
+        if (!ok) wrong.push(`${key} as ${persona.label}: expected ${want}, got ${res.status} ${message}`)
       }
     }
     expect(wrong).toEqual([])
@@ -138,6 +147,7 @@ describe('membership', () => {
     const jobNumber = unique('M')
     const made = await creator.session.json('POST', '/api/projects', { jobNumber, name: 'Quay car park deck' })
     expect(made.status).toBe(201)
+    expect(made.body.members).toEqual([{ userId: creator.id, name: 'Project Creator', role: 'engineer' }])
     const mine = (await creator.session.json('GET', '/api/projects')).body as Array<{ jobNumber: string, yourRole: string }>
     expect(mine.find(p => p.jobNumber === jobNumber)?.yourRole).toBe('engineer')
     const other = await session('engineer')
