@@ -139,7 +139,7 @@ export async function verifyUpload(event: H3Event, bytes: Uint8Array, user: Sess
   const doc = await sealMatch(user.id, eq(s.pdfSha256, sha256))
   const result: VerifyResult = doc
     ? { match: true, message: describe(doc), sha256, document: doc, inclusion: await inclusionOf(doc) }
-    : { match: false, message: 'Not a sealed document: no sealed PDF has this SHA-256 (a single changed byte gives a different hash)', sha256, document: null, inclusion: null }
+    : { match: false, message: 'Not a sealed document: no sealed PDF of your projects has this SHA-256 (a single changed byte gives a different hash)', sha256, document: null, inclusion: null }
   await recordAudit(event, { action: 'verify.file', subject: sha256, actorId: user.id, detail: { match: result.match, archiveRef: doc?.archiveRef ?? null } })
   return result
 }
@@ -153,12 +153,12 @@ export async function verifyText(event: H3Event, text: string, user: SessionUser
     doc = await sealMatch(user.id, eq(s.pdfSha256, parsed.value)) ?? await sealMatch(user.id, eq(r.contentHash, parsed.value))
     if (!doc) {
       const [rev] = await useDb().select({ code: r.code, ref: tables.sheets.reference }).from(r).innerJoin(tables.sheets, eq(tables.sheets.id, r.sheetId)).where(and(eq(r.contentHash, parsed.value), inArray(tables.sheets.projectId, await recordsProjects(user.id))))
-      message = rev ? `This is the content hash of ${rev.ref} ${rev.code}, which has not been sealed` : 'Not a sealed document: no sealed PDF or revision has this hash'
+      message = rev ? `This is the content hash of ${rev.ref} ${rev.code}, which has not been sealed` : 'Not a sealed document: no sealed PDF or revision of your projects has this hash'
     }
   }
   else if (parsed?.kind === 'ref') {
     doc = await sealMatch(user.id, eq(s.verificationRef, parsed.value))
-    if (!doc) message = `No sealed document has the verification reference ${parsed.value}`
+    if (!doc) message = `No sealed document of your projects has the verification reference ${parsed.value}`
   }
   else {
     doc = await sealMatch(user.id, eq(s.archiveRef, text.trim()))

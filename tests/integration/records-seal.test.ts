@@ -9,7 +9,7 @@ import { DEMO_PS2 } from '../../shared/engine/input/demo'
 import { entryLeafHash } from '../../shared/log/entry'
 import { verifyInclusion } from '../../shared/log/merkle'
 import { withDb } from '../helpers/db'
-import { issue, makeSheet, pdfText, session, setSheetInputs, type Session } from './records-fixtures'
+import { issue, makeSheet, newPerson, pdfText, session, setSheetInputs, type Session } from './records-fixtures'
 
 let engineer: Session
 let checker: Session
@@ -216,6 +216,15 @@ describe('verification', () => {
     expect((await records.json('POST', '/api/verify', { query: 'f'.repeat(64) })).body.match).toBe(false)
     expect((await records.json('POST', '/api/verify', { query: '' })).status).toBe(400)
     expect((await engineer.json('POST', '/api/verify', { query: 'f'.repeat(64) })).status).toBe(403)
+    // a records clerk of other projects finds nothing: the document does not show outside its project
+    const elsewhere = (await newPerson('records', 'Records Elsewhere')).session
+    for (const query of [detail.seal.pdfSha256, detail.seal.verificationRef]) {
+      const res = await elsewhere.json('POST', '/api/verify', { query })
+      expect(res.body.match, query).toBe(false)
+      expect(res.body.message).toContain('of your projects')
+    }
+    expect((await elsewhere.json('GET', '/api/log/export')).body.documents.map((d: { archiveRef: string }) => d.archiveRef)).not.toContain(detail.seal.archiveRef)
+    expect((await records.json('GET', '/api/log/export')).body.documents.map((d: { archiveRef: string }) => d.archiveRef)).toContain(detail.seal.archiveRef)
   })
 
   it('says a sealed document was superseded once a later revision is approved', async () => {
