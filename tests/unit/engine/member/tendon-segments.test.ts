@@ -122,3 +122,17 @@ describe('a member built in segments', () => {
     expect(fieldOf(() => designMember(halves({ support: 5 }), { proposal: false }))).toBe('tendon.joints.0.support')
   })
 })
+
+describe('anchorages at the joints', () => {
+  it('each joint has its anchor plate checked like an end: eq. (6.58) ties by hand, at the tendon\'s depth over the support', () => {
+    const d = designMember(halves({ support: 3, stressed: 'both' }, 'both'), { proposal: false })
+    expect(d.anchorages.map((a) => a.label)).toEqual(['Left end', 'Right end', 'Joint at support 3'])
+    const j = d.anchorages[2]!
+    // the plate centre over support 3 lies at yt + e there (the tendon near the top)
+    expect(j.depth).toBeCloseTo(d.section.yt + d.profile.supportEcc[2]!, 9)
+    // eq. (6.58) by hand: T = ¼·(b − a)/b·F across the tendon's share of the width
+    const a = Math.min(j.plateWidth, j.bAcross)
+    expect(j.tieAcross).toBeCloseTo(0.25 * ((j.bAcross - a) / j.bAcross) * j.FEd, 6)
+    expect(d.checks.find((c) => c.id === 'detailing.anchorageBearing')).toBeDefined()
+  })
+})
