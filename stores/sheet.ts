@@ -60,6 +60,12 @@ export const useSheetStore = defineStore('sheet', () => {
   const redoStack = ref<UndoEntry[]>([])
   const specs = inputFieldSpecs()
 
+  // The sheet's attached images by file name, for ::: figure{image=…} in its text
+  const images = ref<Record<string, { src: string, sha256: string }>>({})
+  function setImages(list: ReadonlyArray<{ id: number, filename: string, mime: string, sha256: string }>) {
+    images.value = Object.fromEntries(list.filter(a => a.mime === 'image/png' || a.mime === 'image/jpeg').map(a => [a.filename, { src: `/api/attachments/${a.id}`, sha256: a.sha256 }]))
+  }
+
   // The sheet's text: its own once the engineer edits it, else its template's. While the text has a
   // problem the report keeps the last text that loaded, and the problems are listed by line.
   const text = ref('')
@@ -131,7 +137,7 @@ export const useSheetStore = defineStore('sheet', () => {
     const r = shownRun.value
     if (!c || !c.ok || !r) return null
     const shownInputs = run.value?.ok && validation.value.ok ? validation.value.value : lastGood.value!.inputs
-    return renderSheet(c.template, shownInputs, r.design, 'edit', { optionLabel })
+    return renderSheet(c.template, shownInputs, r.design, 'edit', { optionLabel, images: images.value })
   })
 
   // the engine's checks and the engineer's own (the sheet's calculation blocks), as the report lists them
@@ -318,7 +324,7 @@ export const useSheetStore = defineStore('sheet', () => {
 
   return {
     sheet, inputs, draftVersion, saveState, saveMessage, savedAt, specs, compiled, validation, run, errors, blocker, stale, report,
-    text, ownText, textErrors, setText,
+    text, ownText, textErrors, setText, images, setImages,
     checks, undoStack, redoStack,
     replies, replyList, answerRevision, setReply, clearReplies,
     load, setInput, setTextError, resizeSpans, applyPatch, replaceInputs, undo, redo, save, flush,

@@ -82,6 +82,33 @@ async function frozenReplies(tx: Tx, sheetId: number, latestRevisionId: number |
   })
 }
 
+/** An attached image is frozen into the revision's report up to this size (its bytes go into the HTML). */
+const FROZEN_IMAGE_MAX_BYTES = 3 * 1024 * 1024
+
+/**
+ * The images the sheet's text shows (::: figure{image=name}), read from storage and checked against
+ * their recorded SHA-256, as data: URIs: the frozen report and its print carry the picture itself.
+ * @throws 400 naming the image when it is too large to freeze into the report.
+ */
+async function frozenImages(tx: Tx, sheetId: number, text: string): Promise<Record<string, { src: string, sha256: string }>> {
+  const names = new Set([...text.matchAll(/^:::\s*figure\{[^}\n]*\bimage=(?:"([^"]*)"|([^\s}]+))/gm)].map(m => m[1] ?? m[2]!))
+  if (names.size === 0) return {}
+  const rows = await tx.select({ id: tables.attachments.id, filename: tables.attachments.filename, mime: tables.attachments.mime, bytes: tables.attachments.bytes })
+    .from(tables.attachments).where(and(eq(tables.attachments.sheetId, sheetId), inArray(tables.attachments.filename, [...names])))
+  const out: Record<string, { src: string, sha256: string }> = {}
+  // the newest upload of a name is the one shown
+  for (const row of rows.sort((a, b) => a.id - b.id)) {
+    if (row.mime !== 'image/png' && row.mime !== 'image/jpeg') continue
+    if (row.bytes > FROZEN_IMAGE_MAX_BYTES) {
+      const message = `${row.filename} is ${(row.bytes / 1048576).toFixed(1)} MB; an image in the sheet is at most 3 MB: attach a smaller copy`
+      throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: `Image: ${message}`, data: { fields: { body: message } } })
+    }
+    const { row: file, bytes } = await attachmentFile(row.id)
+    out[row.filename] = { src: `data:${file.mime};base64,${Buffer.from(bytes).toString('base64')}`, sha256: file.sha256 }
+  }
+  return out
+}
+
 /** @throws 400 naming `failingChecksReason` when checks fail and no reason is given. */
 function requireReasonForFailingChecks(checks: readonly CheckResult[], reason: string) {
   const failing = checks.filter(c => !c.pass)
@@ -124,9 +151,10 @@ export async function issueRevision(event: H3Event, sheetId: number, body: Issue
       const message = 'The sheet\'s text still holds a conflict from the newer template version: choose between the two versions between the markers, then issue'
       throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: `Sheet text: ${message}`, data: { fields: { body: message } } })
     }
+    const images = await frozenImages(tx, sheetId, text)
     let frozen
     try {
-      frozen = freezeRun(template.model, text, sheet.inputs)
+      frozen = freezeRun(template.model, text, sheet.inputs, images)
     }
     catch (error) {
       if (error instanceof EngineInputError) {

@@ -1,6 +1,7 @@
 // The frozen run of an issue: the engine recomputed on the server from the sheet's inputs, and the
 // report rendered from the sheet's own template version, through the same sheet runtime the
 // editor uses (shared/sheet/runtime.ts), so the frozen document is what the engineer saw.
+import type { SheetImage } from '../../shared/report/render'
 import type { CheckResult } from '../../shared/engine/contract'
 import { designMember, type Design } from '../../shared/engine/member/design'
 import { compileSheet, renderSheet } from '../../shared/sheet/runtime'
@@ -18,12 +19,12 @@ export interface FrozenRun {
  * @throws EngineInputError naming the input at fault; 409 when the template no longer loads or
  * binds to another model than the sheet's.
  */
-export function freezeRun(model: string, templateBody: string, inputs: unknown): FrozenRun {
+export function freezeRun(model: string, templateBody: string, inputs: unknown, images: Readonly<Record<string, SheetImage>> = {}): FrozenRun {
   const compiled = compileSheet(templateBody)
   if (!compiled.ok) throw createError({ statusCode: 409, message: `The sheet's template does not load: ${compiled.errors.join('; ')}` })
   if (compiled.meta.model !== model) throw createError({ statusCode: 409, message: `The template binds to "${compiled.meta.model}", the sheet to "${model}"` })
   const design = designMember(inputs)
-  const report = renderSheet(compiled.template, design.input, design, 'frozen')
+  const report = renderSheet(compiled.template, design.input, design, 'frozen', { images })
   // the engineer's own checks (calculation blocks) are checks of the revision like the engine's
   const own = report.checks.filter(c => c.group === 'own').map(({ sectionId: _s, ...c }) => c)
   return {

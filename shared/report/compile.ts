@@ -116,6 +116,12 @@ function checkBlock(model: ReportModel, meta: BlockMeta, scopes: PatternScope[],
   if (directive === 'overview' && !model.overview) {
     errors.push(new TemplateSyntaxError(line, `the model ${model.id} has no front page of results: remove the ::: overview block`))
   }
+  if (directive === 'figure' && (attrs.plot === undefined) === (attrs.image === undefined)) {
+    errors.push(new TemplateSyntaxError(line, '::: figure takes plot=… (a figure of the results) or image=… (an image attached to the sheet, by its file name), one of them'))
+  }
+  if (directive === 'figure' && attrs.image !== undefined && attrs.at !== undefined) {
+    errors.push(new TemplateSyntaxError(line, 'an attached image takes no at=…'))
+  }
   if (directive === 'figure' && attrs.plot !== undefined) {
     const figure = model.figures[attrs.plot]
     if (!figure) errors.push(new TemplateSyntaxError(line, `unknown figure "${attrs.plot}": the model ${model.id} draws ${Object.keys(model.figures).join(', ')}`))

@@ -31,7 +31,14 @@ export interface RenderOptions {
   mode: RenderMode
   /** the words an editable drop-down shows for an option id of the input at `path` (default: the id) */
   optionLabel?: (path: string, option: string) => string
+  /**
+   * the sheet's attached images by file name, for ::: figure{image=…}: where to load each (a URL in
+   * the editor, the bytes as a data: URI in a frozen revision) and its SHA-256
+   */
+  images?: Readonly<Record<string, SheetImage>>
 }
+
+export interface SheetImage { src: string; sha256: string }
 
 export interface ReportSection {
   id: string
@@ -80,6 +87,7 @@ interface ReportEnv {
   checkSummary: Map<string, string>
   unresolved: UnresolvedKey[]
   keySections: Map<string, string>
+  images: Readonly<Record<string, SheetImage>>
   /** each calculation block's result, and every quantity they define by name */
   calc: Map<BlockMeta, CalcBlockResult>
   quantities: Map<string, CalcQuantity>
@@ -461,7 +469,19 @@ function drawFigure(figure: ModelFigure, plot: string, results: unknown, at: str
   return svg
 }
 
+/** An image attached to the sheet, as a numbered figure with its caption; the source only from the sheet's own list. */
+function renderImageFigure(name: string, caption: string, env: ReportEnv): string {
+  const image = Object.hasOwn(env.images, name) ? env.images[name] : undefined
+  const safe = image && (image.src.startsWith('/api/attachments/') || /^data:image\/(png|jpeg);base64,[A-Za-z0-9+/=]+$/.test(image.src))
+  const alt = caption.replace(/<[^>]*>/g, '').trim() || name
+  const drawing = image && safe
+    ? `<img class="tb-image" src="${escapeHtml(image.src)}" alt="${escapeHtml(alt)}" data-sha256="${escapeHtml(image.sha256)}">`
+    : `<p class="tb-missing">The image "${escapeHtml(name)}" is not attached to this sheet: attach it, or correct the name.</p>`
+  return `<figure class="tb-figure" data-image="${escapeHtml(name)}">${drawing}${caption ? `<figcaption>${caption}</figcaption>` : ''}</figure>\n`
+}
+
 function renderFigure(meta: BlockMeta, inner: readonly Token[], env: ReportEnv): string {
+  if (meta.attrs.image !== undefined) return renderImageFigure(meta.attrs.image, renderTokens(inner, env).trim(), env)
   const plot = meta.attrs.plot ?? ''
   const figure = env.model.figures[plot]
   const caption = renderTokens(inner, env).trim()
@@ -531,6 +551,7 @@ export function renderReport(compiled: CompiledTemplate, options: RenderOptions)
     keySections: new Map(),
     calc: new Map(),
     quantities: new Map(),
+    images: options.images ?? {},
   }
   // the engineer's calculations first: their checks join the tables and the summary wherever those stand
   evaluateCalcBlocks(compiled.tokens, env)

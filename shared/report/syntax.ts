@@ -20,7 +20,7 @@ export type BlockDirective = (typeof BLOCK_DIRECTIVES)[number]
 /** Which attributes each block takes, and which of them are required. */
 export const BLOCK_ATTRIBUTES: Record<BlockDirective, { required: readonly string[]; optional: readonly string[] }> = {
   checks: { required: [], optional: ['group'] },
-  figure: { required: ['plot'], optional: ['at'] },
+  figure: { required: [], optional: ['plot', 'at', 'image'] },
   each: { required: ['in', 'as'], optional: ['where', 'is'] },
   overview: { required: [], optional: [] },
   calc: { required: [], optional: [] },

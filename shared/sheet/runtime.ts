@@ -64,7 +64,7 @@ export function compileSheet(text: string): SheetCompile {
   return result
 }
 
-export function renderSheet(template: CompiledTemplate, inputs: unknown, design: Design | null, mode: RenderMode, words: Pick<RenderOptions, 'optionLabel'> = {}) {
+export function renderSheet(template: CompiledTemplate, inputs: unknown, design: Design | null, mode: RenderMode, words: Pick<RenderOptions, 'optionLabel' | 'images'> = {}) {
   const report = renderReport(template, { inputs, results: design, mode, ...words })
   const checkSections: Record<string, string> = {}
   for (const c of report.checks) if (c.sectionId) checkSections[c.id] = c.sectionId

@@ -5,6 +5,9 @@
  */
 import { describe, expect, it } from 'vitest'
 import { signedIn, unique } from '../helpers/client'
+import { png } from '../helpers/png'
+import { sha256Hex } from '../../server/utils/hashing'
+import { makeSheet, session } from './records-fixtures'
 
 async function demoProject(client: Awaited<ReturnType<typeof signedIn>>) {
   const projects = (await client.get('/api/projects')).body as Array<{ id: number, jobNumber: string }>
@@ -69,5 +72,24 @@ describe('the sheet\'s own text', () => {
     await engineer.request('PUT', `/api/sheets/${sheet.id}/draft`, { inputs: merged.body.inputs, draftVersion: merged.body.draftVersion, body: resolved })
     const third = await engineer.issue(sheet.id, { note: 'merged' })
     expect(third.status).toBe(201)
+  })
+})
+
+describe('an attached image as a figure of the sheet', () => {
+  it('is frozen into the revision\'s report as its own bytes, with its SHA-256', async () => {
+    const { sheetId } = await makeSheet()
+    const engineer = await session('engineer')
+    const image = png(6, 4)
+    const up = await engineer.upload(`/api/sheets/${sheetId}/attachments`, image, 'drop-soffit.png')
+    expect(up.status).toBe(201)
+    const sheet = (await engineer.json('GET', `/api/sheets/${sheetId}`)).body
+    const text = `${sheet.template.body}\n\n# Site photographs\n\n::: figure{image="drop-soffit.png"}\nThe drop over the column as cast.\n:::\n`
+    expect((await engineer.json('PUT', `/api/sheets/${sheetId}/draft`, { inputs: sheet.inputs, draftVersion: sheet.draftVersion, body: text })).status).toBe(200)
+    const again = (await engineer.json('GET', `/api/sheets/${sheetId}`)).body
+    const issued = await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, { draftVersion: again.draftVersion, note: 'with a photograph' })
+    expect(issued.status).toBe(201)
+    const rev = JSON.stringify((await engineer.json('GET', `/api/revisions/${issued.body.id}`)).body)
+    expect(rev).toContain(`data:image/png;base64,${Buffer.from(image).toString('base64')}`)
+    expect(rev).toContain(sha256Hex(image))
   })
 })

@@ -8,8 +8,9 @@ import { describe, expect, it } from 'vitest'
 import fc from 'fast-check'
 import { evaluateCalcBlock } from '../../../shared/calc/quantities'
 import type { SheetValue } from '../../../shared/calc/quantities'
-import { lintTemplate } from '../../../shared/report/compile'
-import { beamModel } from './fixtures/beam-model'
+import { compileTemplate, lintTemplate } from '../../../shared/report/compile'
+import { renderReport } from '../../../shared/report/render'
+import { BEAM_INPUT, beamModel, runBeam } from './fixtures/beam-model'
 import { BODY_LINE, renderBody, template, withoutMath } from './helpers'
 
 const SHEET: Record<string, SheetValue> = {
@@ -154,5 +155,29 @@ describe('a calculation block in a sheet', () => {
     expect(messages.some((m) => m.includes(`line ${BODY_LINE + 1}`) && m.includes('"y" is neither a quantity defined above nor a unit'))).toBe(true)
     expect(messages.some((m) => m.includes(`line ${BODY_LINE + 2}`) && m.includes('geometry.nope'))).toBe(true)
     expect(messages.some((m) => m.includes('no calculation block defines "q"'))).toBe(true)
+  })
+})
+
+describe('an image attached to the sheet as a figure', () => {
+  const BODY = '# Site\n\n::: figure{image="soffit-drop.png"}\nThe drop over column B2 as cast.\n:::\n'
+
+  it('shows the attached image with its caption and SHA-256, numbered like the other figures', () => {
+    expect(lintTemplate(template(BODY), beamModel)).toEqual([])
+    const r = renderReport(compileTemplate(template(BODY), beamModel), { inputs: BEAM_INPUT, results: runBeam(BEAM_INPUT), mode: 'frozen', images: { 'soffit-drop.png': { src: 'data:image/png;base64,iVBORw0KGgo=', sha256: 'ab'.repeat(32) } } })
+    expect(r.html).toContain('<img class="tb-image" src="data:image/png;base64,iVBORw0KGgo=" alt="The drop over column B2 as cast."')
+    expect(r.html).toContain(`data-sha256="${'ab'.repeat(32)}"`)
+    expect(r.html).toContain('<figcaption>')
+  })
+
+  it('a name not attached, or a source that is not the sheet\'s own, shows a message instead of loading anything', () => {
+    const missing = renderBody(BODY)
+    expect(missing.html).toContain('The image "soffit-drop.png" is not attached to this sheet')
+    const hostile = renderReport(compileTemplate(template(BODY), beamModel), { inputs: BEAM_INPUT, results: runBeam(BEAM_INPUT), mode: 'frozen', images: { 'soffit-drop.png': { src: 'https://elsewhere.example/x.png', sha256: '' } } })
+    expect(hostile.html).not.toContain('elsewhere.example')
+  })
+
+  it('a figure takes a plot or an image, not both or neither', () => {
+    expect(lintTemplate(template('::: figure{plot=span image=x.png}\n:::'), beamModel).map((e) => e.detail)).toContain('::: figure takes plot=… (a figure of the results) or image=… (an image attached to the sheet, by its file name), one of them')
+    expect(lintTemplate(template('::: figure\n:::'), beamModel).length).toBeGreaterThan(0)
   })
 })
