@@ -8,6 +8,7 @@ import { appendToLog } from '../database/history-log'
 import { compileSheet, starterInputsFor } from '../../shared/sheet/runtime'
 import { memberInputSchema } from '../../shared/engine/input/schema'
 import { DEMO_PS3 } from '../../shared/engine/input/demo'
+import { PS3_OWN_TEXT } from './sheet-texts'
 
 export interface SeedOwners {
   projectId: number
@@ -21,8 +22,8 @@ const root = resolve(dirname(fileURLToPath(import.meta.url)), '..', '..')
 const DEMO_SHEETS = [
   { reference: 'PS-2', title: 'Podium slab strip, grid 1–5', partOfStructure: 'Podium slab, level 1', template: /slab-strip/ },
   { reference: 'BB-1', title: 'Band beam on grid C', partOfStructure: 'Podium band beams, level 1', template: /band-beam/ },
-  { reference: 'PS-3', title: 'Podium edge strip with cantilever, grid A', partOfStructure: 'Podium slab, level 1', template: /slab-strip/, inputs: DEMO_PS3 },
-] as Array<{ reference: string, title: string, partOfStructure: string, template: RegExp, inputs?: unknown }>
+  { reference: 'PS-3', title: 'Podium edge strip with cantilever, grid A', partOfStructure: 'Podium slab, level 1', template: /slab-strip/, inputs: DEMO_PS3, text: PS3_OWN_TEXT },
+] as Array<{ reference: string, title: string, partOfStructure: string, template: RegExp, inputs?: unknown, text?: (templateText: string) => string }>
 
 type Db = MySql2Database<typeof schema>
 
@@ -64,9 +65,13 @@ export async function seedContent(db: Db, owners: SeedOwners) {
     const [exists] = await db.select({ id: schema.sheets.id }).from(schema.sheets)
       .where(and(eq(schema.sheets.projectId, owners.projectId), eq(schema.sheets.reference, demo.reference))).limit(1)
     if (exists) continue
+    // a sheet whose engineer wrote into it keeps its own text, made from its template version's
+    const [template] = demo.text ? await db.select({ body: schema.templates.body }).from(schema.templates).where(eq(schema.templates.id, templates[slug]!)).limit(1) : []
     await db.insert(schema.sheets).values({
       projectId: owners.projectId, reference: demo.reference, title: demo.title, partOfStructure: demo.partOfStructure,
-      templateId: templates[slug]!, inputs: demo.inputs ? memberInputSchema.parse(demo.inputs) : starterInputsFor(slug), createdBy: owners.engineerId, updatedBy: owners.engineerId,
+      templateId: templates[slug]!, inputs: demo.inputs ? memberInputSchema.parse(demo.inputs) : starterInputsFor(slug),
+      body: demo.text && template ? demo.text(template.body) : null,
+      createdBy: owners.engineerId, updatedBy: owners.engineerId,
     })
   }
 }

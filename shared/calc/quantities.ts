@@ -19,6 +19,8 @@ import { valueTex } from '../report/format'
 import type { DisplayUnit } from '../utils/units'
 
 const full = create(all as NonNullable<typeof all>, { number: 'number', precision: 14 })
+// the moment unit engineers write as one word (12 kNm); mathjs knows it only as kN m
+full.createUnit('kNm', { definition: '1 kN m' })
 // kept before the closed scope is made: the block's own parser and unit maker
 const parse = full.parse.bind(full)
 const unitOf = full.unit.bind(full)
@@ -116,6 +118,16 @@ export function sheetQuantity(v: SheetValue): Unit | number {
 
 function isUnit(x: unknown): x is Unit {
   return typeof x === 'object' && x !== null && (x as { type?: string }).type === 'Unit'
+}
+
+/** A quantity's value in `unit` (as mathjs writes it, e.g. 'N mm'), or null when its dimension is another. */
+export function quantityIn(q: CalcQuantity, unit: string): number | null {
+  const v = q.unitValue
+  if (!isUnit(v)) return null
+  const target = math.unit(1, unit)
+  if (!v.equalBase(target)) return null
+  const x = v.toNumber(unit)
+  return Number.isFinite(x) ? x : null
 }
 
 /** How a result is shown: the unit written after `to`, else the first display unit of its dimension, else as mathjs has it. */

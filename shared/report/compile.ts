@@ -9,10 +9,10 @@ import type { PatternScope } from './bind'
 import { TemplateKeyError, TemplateLoadError, TemplateSyntaxError } from './errors'
 import type { TemplateError } from './errors'
 import type { BlockMeta, InlineMeta } from './markdown'
-import type { ReportModel } from './model'
+import type { ModelFigure, ReportModel } from './model'
 import { parseTemplate } from './parse'
 import type { MathMeta, TemplateMeta } from './parse'
-import { BLOCK_ATTRIBUTES, isName, parseKey } from './syntax'
+import { BLOCK_ATTRIBUTES, CALC_PREFIX, isName, markNames, parseKey } from './syntax'
 import { calcNames, lintCalcBlock } from '../calc/quantities'
 
 export interface CompiledTemplate {
@@ -27,8 +27,6 @@ export interface CompiledTemplate {
 
 type Use = 'in' | 'val' | 'each' | 'at'
 
-/** :val[calc.name] shows a quantity a calculation block defines */
-export const CALC_PREFIX = 'calc'
 
 function frontMatterLine(text: string, field: string): number {
   const lines = text.replace(/\r\n?/g, '\n').split('\n')
@@ -36,14 +34,24 @@ function frontMatterLine(text: string, field: string): number {
   return at >= 0 ? at + 1 : 1
 }
 
-/** The quantities the template's calculation blocks define (calc.name keys), per check. */
-let calcDefined: ReadonlySet<string> = new Set()
+/** What one check of a template gathers and consults as it walks the body. */
+interface BodyCheck {
+  model: ReportModel
+  errors: TemplateError[]
+  /** every key pattern the template uses */
+  used: Set<string>
+  /** the quantities the template's calculation blocks define (calc.name keys), wherever they stand */
+  calcDefined: ReadonlySet<string>
+  /** names defined so far by the calculation blocks, in document order */
+  calcKnown: Set<string>
+}
 
-function checkKey(model: ReportModel, key: string, segments: readonly string[], use: Use, line: number, scopes: readonly PatternScope[], errors: TemplateError[], used: Set<string>): string | null {
+function checkKey(check: BodyCheck, key: string, segments: readonly string[], use: Use, line: number, scopes: readonly PatternScope[]): string | null {
+  const { model, errors, used } = check
   if (segments[0] === CALC_PREFIX && !scopes.some((s) => s.name === CALC_PREFIX)) {
     const name = segments[1]
     if (use !== 'val') errors.push(new TemplateKeyError(line, key, `"${key}" is a quantity of a calculation block: show it with :val[${key}]`))
-    else if (segments.length !== 2 || name === undefined || !calcDefined.has(name)) errors.push(new TemplateKeyError(line, key, `no calculation block defines "${segments.slice(1).join('.')}"`))
+    else if (segments.length !== 2 || name === undefined || !check.calcDefined.has(name)) errors.push(new TemplateKeyError(line, key, `no calculation block defines "${segments.slice(1).join('.')}"`))
     return null
   }
   const resolved = resolvePattern(segments, scopes)
@@ -84,7 +92,8 @@ function checkKey(model: ReportModel, key: string, segments: readonly string[], 
   return pattern
 }
 
-function checkBlock(model: ReportModel, meta: BlockMeta, scopes: PatternScope[], errors: TemplateError[], used: Set<string>): PatternScope | null {
+function checkBlock(check: BodyCheck, meta: BlockMeta, scopes: PatternScope[]): PatternScope | null {
+  const { model, errors } = check
   const line = meta.line ?? 1
   if (!meta.directive || meta.problems.length > 0) return meta.directive === 'each' && isName(meta.attrs.as ?? '') ? { name: meta.attrs.as!, pattern: null } : null
   const { directive, attrs } = meta
@@ -105,11 +114,11 @@ function checkBlock(model: ReportModel, meta: BlockMeta, scopes: PatternScope[],
       const parsed = parseKey(key)
       if ('problem' in parsed) return `val("…") needs a key, but ${parsed.problem}`
       const before = errors.length
-      checkKey(model, key, parsed.segments, 'val', line, [], errors, used)
+      checkKey(check, key, parsed.segments, 'val', line, [])
       const found = errors.splice(before)
       return found.length > 0 ? found.map((e) => e.detail).join('; ') : null
     }
-    for (const p of lintCalcBlock(meta.source ?? '', calcKnown, keyProblem)) {
+    for (const p of lintCalcBlock(meta.source ?? '', check.calcKnown, keyProblem)) {
       errors.push(new TemplateSyntaxError(line + p.line, `calculation${p.name ? ` of ${p.name}` : ''}: ${p.message}`))
     }
   }
@@ -125,7 +134,11 @@ function checkBlock(model: ReportModel, meta: BlockMeta, scopes: PatternScope[],
   if (directive === 'figure' && attrs.plot !== undefined) {
     const figure = model.figures[attrs.plot]
     if (!figure) errors.push(new TemplateSyntaxError(line, `unknown figure "${attrs.plot}": the model ${model.id} draws ${Object.keys(model.figures).join(', ')}`))
-    else if (attrs.at !== undefined) checkAt(model, attrs.at, figure.at, line, scopes, errors, used)
+    else if (attrs.at !== undefined) checkAt(check, attrs.at, figure.at, line, scopes)
+    if (figure && attrs.mark !== undefined) checkMarks(check, attrs.mark, figure, line)
+  }
+  if (directive === 'figure' && attrs.image !== undefined && attrs.mark !== undefined) {
+    errors.push(new TemplateSyntaxError(line, 'an attached image takes no mark=…'))
   }
   if (directive === 'each') {
     const local = attrs.as ?? ''
@@ -140,7 +153,7 @@ function checkBlock(model: ReportModel, meta: BlockMeta, scopes: PatternScope[],
       errors.push(new TemplateSyntaxError(line, `::: each{in=…} needs a key, but ${parsed.problem}`))
       return { name: local, pattern: null }
     }
-    const pattern = checkKey(model, attrs.in!, parsed.segments, 'each', line, scopes, errors, used)
+    const pattern = checkKey(check, attrs.in!, parsed.segments, 'each', line, scopes)
     const scope = { name: local, pattern }
     if ((attrs.where === undefined) !== (attrs.is === undefined)) {
       errors.push(new TemplateSyntaxError(line, '::: each takes where=… and is=… together: where names a value of the element, is lists the values to keep, separated by commas'))
@@ -148,14 +161,15 @@ function checkBlock(model: ReportModel, meta: BlockMeta, scopes: PatternScope[],
       const where = parseKey(attrs.where)
       if ('problem' in where) errors.push(new TemplateSyntaxError(line, `where=… needs a key, but ${where.problem}`))
       else if (where.segments[0] !== local) errors.push(new TemplateSyntaxError(line, `where=… names a value of the element, so it starts with the local name: where=${local}.…`))
-      else checkKey(model, attrs.where, where.segments, 'val', line, [...scopes, scope], errors, used)
+      else checkKey(check, attrs.where, where.segments, 'val', line, [...scopes, scope])
     }
     return scope
   }
   return null
 }
 
-function checkAt(model: ReportModel, at: string, wanted: string | undefined, line: number, scopes: readonly PatternScope[], errors: TemplateError[], used: Set<string>): void {
+function checkAt(check: BodyCheck, at: string, wanted: string | undefined, line: number, scopes: readonly PatternScope[]): void {
+  const { errors } = check
   if (!wanted) {
     errors.push(new TemplateSyntaxError(line, 'this figure takes no at=…'))
     return
@@ -165,33 +179,40 @@ function checkAt(model: ReportModel, at: string, wanted: string | undefined, lin
     errors.push(new TemplateSyntaxError(line, `at=… needs a key, but ${parsed.problem}`))
     return
   }
-  const pattern = checkKey(model, at, parsed.segments, 'at', line, scopes, errors, used)
+  const pattern = checkKey(check, at, parsed.segments, 'at', line, scopes)
   if (pattern !== null && pattern !== wanted) errors.push(new TemplateKeyError(line, at, `at=${at} must name one element of ${wanted.replace(/\[\]$/, '')} (e.g. an each over it)`))
 }
 
-/** Names defined so far by the calculation blocks, in document order, during one check. */
-let calcKnown = new Set<string>()
+/** mark=…: the quantities a figure marks, names of calculation blocks' quantities separated by commas. */
+function checkMarks(check: BodyCheck, list: string, figure: ModelFigure, line: number): void {
+  if (!figure.marks) {
+    check.errors.push(new TemplateSyntaxError(line, 'this figure takes no mark=…: quantities can be marked on the figures of moments, shears, forces and deflections'))
+    return
+  }
+  for (const name of markNames(list)) {
+    if (!check.calcDefined.has(name)) check.errors.push(new TemplateKeyError(line, name, `mark=…: no calculation block defines "${name}"`))
+  }
+}
 
 function checkBody(model: ReportModel, tokens: readonly Token[], errors: TemplateError[]): Set<string> {
-  const used = new Set<string>()
   // every quantity the blocks define may be shown anywhere; inside the blocks, only those above
-  calcDefined = new Set(tokens.filter((t) => t.type === 'tb_block_open' && (t.meta as BlockMeta).directive === 'calc').flatMap((t) => calcNames((t.meta as BlockMeta).source ?? '').map((n) => n.name)))
-  calcKnown = new Set()
+  const calcDefined = new Set(tokens.filter((t) => t.type === 'tb_block_open' && (t.meta as BlockMeta).directive === 'calc').flatMap((t) => calcNames((t.meta as BlockMeta).source ?? '').map((n) => n.name)))
+  const check: BodyCheck = { model, errors, used: new Set(), calcDefined, calcKnown: new Set() }
   const frames: Array<PatternScope | null> = []
   const scopes = (): PatternScope[] => frames.filter((f): f is PatternScope => f !== null)
   const visit = (token: Token): void => {
-    if (token.type === 'tb_block_open') frames.push(checkBlock(model, token.meta as BlockMeta, scopes(), errors, used))
+    if (token.type === 'tb_block_open') frames.push(checkBlock(check, token.meta as BlockMeta, scopes()))
     else if (token.type === 'tb_block_close') frames.pop()
     else if (token.type === 'tb_in' || token.type === 'tb_val') {
       const meta = token.meta as InlineMeta
-      checkKey(model, meta.key!, meta.segments!, meta.directive!, meta.line ?? 1, scopes(), errors, used)
+      checkKey(check, meta.key!, meta.segments!, meta.directive!, meta.line ?? 1, scopes())
     } else if (token.type === 'math_inline' || token.type === 'math_block' || token.type === 'math_inline_block') {
-      for (const k of (token.meta as MathMeta | null)?.keys ?? []) checkKey(model, k.key, k.segments, 'val', k.line, scopes(), errors, used)
+      for (const k of (token.meta as MathMeta | null)?.keys ?? []) checkKey(check, k.key, k.segments, 'val', k.line, scopes())
     }
     for (const child of token.children ?? []) visit(child)
   }
   for (const token of tokens) visit(token)
-  return used
+  return check.used
 }
 
 /** Every problem of a template against a model, sorted by line; empty when it loads. */

@@ -29,11 +29,26 @@ export interface ModelOverview {
 }
 
 /** An SVG figure drawn from the results; `at` is the concrete path of an element (e.g. 'sections.2'). */
+/** A quantity of the engineer's own calculation drawn on a figure: a line across it at its value. */
+export interface FigureMark {
+  /** the quantity's name, shown beside the line */
+  label: string
+  /** along the member (a vertical line) or on the figure's value axis (a horizontal line) */
+  axis: 'x' | 'y'
+  /** in the unit the figure declares for that axis */
+  value: number
+}
+
 export interface ModelFigure {
   label: string
   /** the pattern of the array whose element `at` may name (e.g. 'sections[]'); absent: no `at` */
   at?: string
-  render(results: unknown, at?: string): string
+  /**
+   * the units (as mathjs writes them) of the axes a quantity may be marked on, in the engine's
+   * units of the data drawn; absent: the figure takes no marks
+   */
+  marks?: { x?: string; y?: string }
+  render(results: unknown, at?: string, marks?: readonly FigureMark[]): string
 }
 
 export interface ReportModel {

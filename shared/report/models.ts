@@ -19,10 +19,11 @@ import { deflectionSvg } from './figures/deflection'
 import { forceAlongTendonSvg } from './figures/force'
 import { stressEnvelopeSvg } from './figures/stresses'
 import { PALETTE } from './figures/svg'
+import type { PlotMark } from './figures/svg'
 import { tendonProfileSvg } from './figures/tendon'
 import { ulsMomentSvg, ulsShearSvg } from './figures/uls-envelopes'
 import { shapeOf } from './model'
-import type { ModelFigure, ReportModel, ShapeKind } from './model'
+import type { FigureMark, ModelFigure, ReportModel, ShapeKind } from './model'
 
 function supportsX(d: Design): number[] {
   const out = [0]
@@ -74,6 +75,15 @@ function addedLoadMarks(d: Design): Array<{ label: string; X: number; X2?: numbe
   ]
 }
 
+/** The engineer's marks in a figure's plotted units: values in the engine's unit ÷ `per`, places from mm to m. */
+function plotted(marks: readonly FigureMark[] | undefined, per: number): PlotMark[] {
+  return (marks ?? []).map((m) => ({ label: m.label, axis: m.axis, value: m.axis === 'x' ? m.value / 1000 : m.value / per }))
+}
+
+/** Moments are N·mm along mm, shears and forces N, deflections mm. */
+const MOMENT_MARKS = { x: 'mm', y: 'N mm' } as const
+const FORCE_MARKS = { x: 'mm', y: 'N' } as const
+
 const figures: Record<string, ModelFigure> = {
   tendon: {
     label: 'Tendon profile with the eccentricity limits',
@@ -85,7 +95,8 @@ const figures: Record<string, ModelFigure> = {
   },
   'prestress-moments': {
     label: 'Moments of prestress in service: primary, secondary and total',
-    render: (r) => {
+    marks: MOMENT_MARKS,
+    render: (r, _at, marks) => {
       const d = r as Design
       const s = d.series
       return momentDiagramSvg({
@@ -98,12 +109,14 @@ const figures: Record<string, ModelFigure> = {
         ],
         supportsX: supportMarks(d),
         unit: 'kNm',
+        marks: plotted(marks, 1e6),
       })
     },
   },
   moments: {
     label: 'Moments from the loads: characteristic envelope over the load arrangements, and at transfer',
-    render: (r) => {
+    marks: MOMENT_MARKS,
+    render: (r, _at, marks) => {
       const d = r as Design
       const s = d.series
       return momentDiagramSvg({
@@ -118,12 +131,14 @@ const figures: Record<string, ModelFigure> = {
         supportsX: supportMarks(d),
         unit: 'kNm',
         loads: addedLoadMarks(d),
+        marks: plotted(marks, 1e6),
       })
     },
   },
   'uls-moments': {
     label: 'Design moments at ULS (envelope over the load arrangements) against the bending resistance, sagging and hogging',
-    render: (r) => {
+    marks: MOMENT_MARKS,
+    render: (r, _at, marks) => {
       const d = r as Design
       const s = d.series
       return ulsMomentSvg({
@@ -134,12 +149,14 @@ const figures: Record<string, ModelFigure> = {
         hogging: d.uls.sections.map((u) => (u.hogging ? { X: u.X, value: -u.hogging.MRd } : null)),
         supportsX: supportMarks(d),
         unit: 'kNm',
+        marks: plotted(marks, 1e6),
       })
     },
   },
   'uls-shear': {
     label: 'Design shear at ULS (envelope over the load arrangements) against the shear resistance at the supports',
-    render: (r) => {
+    marks: FORCE_MARKS,
+    render: (r, _at, marks) => {
       const d = r as Design
       const s = d.series
       const starts = supportsX(d)
@@ -155,6 +172,7 @@ const figures: Record<string, ModelFigure> = {
         }),
         supportsX: supportMarks(d),
         unit: 'kN',
+        marks: plotted(marks, 1e3),
       })
     },
   },
@@ -162,7 +180,8 @@ const figures: Record<string, ModelFigure> = {
   'stresses-service': stressFigure('Service', 'in service'),
   force: {
     label: 'Force along the tendon after friction, draw-in, at transfer and in service',
-    render: (r) => {
+    marks: FORCE_MARKS,
+    render: (r, _at, marks) => {
       const d = r as Design
       const s = d.series
       return forceAlongTendonSvg({
@@ -174,15 +193,17 @@ const figures: Record<string, ModelFigure> = {
           { label: 'in service', values: s.forceService, stroke: PALETTE.olive },
         ],
         supportsX: supportMarks(d),
+        marks: plotted(marks, 1e3),
       })
     },
   },
   deflection: {
     label: 'Deflection under the quasi-permanent unbalanced load, short-term and long-term',
-    render: (r) => {
+    marks: { x: 'mm', y: 'mm' },
+    render: (r, _at, marks) => {
       const d = r as Design
       const s = d.deflection.series
-      return deflectionSvg({ X: s.x, shortTerm: s.shortTerm, longTerm: s.longTerm, supportsX: supportMarks(d) })
+      return deflectionSvg({ X: s.x, shortTerm: s.shortTerm, longTerm: s.longTerm, supportsX: supportMarks(d), marks: plotted(marks, 1) })
     },
   },
   magnel: {

@@ -15,11 +15,11 @@ import type { CompiledTemplate } from './compile'
 import { checkPrecision, escapeHtml, inputText, valueTex, valueText } from './format'
 import { isLocalImage, md } from './markdown'
 import type { BlockMeta, InlineMeta } from './markdown'
-import type { ModelFigure, ReportModel } from './model'
+import type { FigureMark, ModelFigure, ReportModel } from './model'
 import type { MathMeta } from './parse'
-import { parseKey } from './syntax'
+import { CALC_PREFIX, markNames, parseKey } from './syntax'
 import { tallyByGroup, tallyChecks, tallyText } from './tally'
-import { evaluateCalcBlock } from '../calc/quantities'
+import { evaluateCalcBlock, quantityIn } from '../calc/quantities'
 import type { CalcBlockResult, CalcQuantity, SheetValue } from '../calc/quantities'
 
 export type RenderMode = 'edit' | 'frozen' | 'print'
@@ -133,7 +133,7 @@ function lookup(env: ReportEnv, info: KeyInfo, path: string): unknown {
 }
 
 function resolveValue(env: ReportEnv, segments: readonly string[], key: string, line: number, use: 'input' | 'value' = 'value'): { text: string; tex: string; missing: boolean; words?: boolean } {
-  if (segments[0] === 'calc' && segments.length === 2 && !env.scopes.some((s) => s.name === 'calc')) {
+  if (segments[0] === CALC_PREFIX && segments.length === 2 && !env.scopes.some((s) => s.name === CALC_PREFIX)) {
     const q = env.quantities.get(segments[1]!)
     if (!q) return { text: '—', tex: '\\text{—}', missing: true }
     const digits = q.value.toFixed(q.precision)
@@ -454,19 +454,49 @@ function renderOverview(inner: readonly Token[], env: ReportEnv): string {
 // A figure depends only on the results object and its `at`; the editor re-renders the same results often (memoised by input).
 const figureCache = new WeakMap<object, Map<string, string>>()
 
-function drawFigure(figure: ModelFigure, plot: string, results: unknown, at: string | undefined): string {
-  if (typeof results !== 'object' || results === null) return figure.render(results, at)
+function drawFigure(figure: ModelFigure, plot: string, results: unknown, at: string | undefined, marks: readonly FigureMark[]): string {
+  if (typeof results !== 'object' || results === null) return figure.render(results, at, marks)
   let drawn = figureCache.get(results)
   if (!drawn) {
     drawn = new Map()
     figureCache.set(results, drawn)
   }
-  const key = `${plot}\u0000${at ?? ''}`
+  const key = `${plot}\u0000${at ?? ''}\u0000${marks.map((m) => `${m.label}\u0001${m.axis}\u0001${m.value}`).join('\u0002')}`
   const cached = drawn.get(key)
   if (cached !== undefined) return cached
-  const svg = figure.render(results, at)
+  const svg = figure.render(results, at, marks)
   drawn.set(key, svg)
   return svg
+}
+
+/**
+ * The quantities a figure's mark=… names, each on the axis whose unit it converts to (the value
+ * axis first, then the place along the member); those that fit neither, or are not defined, are
+ * said in words under the figure.
+ */
+function figureMarks(list: string | undefined, figure: ModelFigure, env: ReportEnv): { marks: FigureMark[]; notes: string[] } {
+  const marks: FigureMark[] = []
+  const notes: string[] = []
+  if (list === undefined || !figure.marks) return { marks, notes }
+  for (const name of markNames(list)) {
+    const q = env.quantities.get(name)
+    if (!q) {
+      notes.push(`"${name}" cannot be marked: no calculation block gives it a value.`)
+      continue
+    }
+    const onY = figure.marks.y ? quantityIn(q, figure.marks.y) : null
+    const onX = onY === null && figure.marks.x ? quantityIn(q, figure.marks.x) : null
+    if (onY !== null) marks.push({ label: name, axis: 'y', value: onY })
+    else if (onX !== null) marks.push({ label: name, axis: 'x', value: onX })
+    else notes.push(`"${name}" (${q.unit || 'a number without a unit'}) cannot be marked: this figure plots ${axisWords(figure.marks)}.`)
+  }
+  return { marks, notes }
+}
+
+function axisWords(axes: NonNullable<ModelFigure['marks']>): string {
+  const words: Record<string, string> = { 'N mm': 'moments', N: 'forces', mm: 'lengths', MPa: 'stresses' }
+  const y = axes.y ? words[axes.y] ?? axes.y : null
+  return y ? `${y} along the member` : 'along the member'
 }
 
 /** An image attached to the sheet, as a numbered figure with its caption; the source only from the sheet's own list. */
@@ -495,11 +525,13 @@ function renderFigure(meta: BlockMeta, inner: readonly Token[], env: ReportEnv):
   if (!figure) drawing = ''
   else if (env.results === null || env.results === undefined) drawing = '<p class="tb-missing">No results yet: the figure appears once the inputs are complete.</p>'
   else {
+    const { marks, notes } = figureMarks(meta.attrs.mark, figure, env)
     try {
-      drawing = drawFigure(figure, plot, env.results, at)
+      drawing = drawFigure(figure, plot, env.results, at, marks)
     } catch (error) {
       drawing = `<p class="tb-missing">The figure could not be drawn: ${escapeHtml(error instanceof Error ? error.message : String(error))}</p>`
     }
+    drawing += notes.map((note) => `<p class="tb-missing">${escapeHtml(note)}</p>`).join('')
   }
   return `<figure class="tb-figure" data-plot="${escapeHtml(plot)}">${drawing}${caption ? `<figcaption>${caption}</figcaption>` : ''}</figure>\n`
 }

@@ -20,7 +20,7 @@ export type BlockDirective = (typeof BLOCK_DIRECTIVES)[number]
 /** Which attributes each block takes, and which of them are required. */
 export const BLOCK_ATTRIBUTES: Record<BlockDirective, { required: readonly string[]; optional: readonly string[] }> = {
   checks: { required: [], optional: ['group'] },
-  figure: { required: [], optional: ['plot', 'at', 'image'] },
+  figure: { required: [], optional: ['plot', 'at', 'image', 'mark'] },
   each: { required: ['in', 'as'], optional: ['where', 'is'] },
   overview: { required: [], optional: [] },
   calc: { required: [], optional: [] },
@@ -29,6 +29,14 @@ export const BLOCK_ATTRIBUTES: Record<BlockDirective, { required: readonly strin
 const NAME = /^[A-Za-z_][A-Za-z0-9_]*$/
 const SEGMENT = /^(?:[A-Za-z_][A-Za-z0-9_]*|\d+|#[A-Za-z_][A-Za-z0-9_]*)$/
 const POSITION = /^#[A-Za-z_][A-Za-z0-9_]*$/
+
+/** :val[calc.name] shows a quantity a calculation block defines */
+export const CALC_PREFIX = 'calc'
+
+/** The names a figure's mark=… lists, separated by commas (spaces around them ignored). */
+export function markNames(list: string): string[] {
+  return list.split(',').map((s) => s.trim()).filter((s) => s.length > 0)
+}
 
 /** `#s`: the position of the element the local name s stands for. */
 export function isPosition(segment: string): boolean {

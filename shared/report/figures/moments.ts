@@ -2,8 +2,8 @@
  * Bending-moment diagrams along the member, drawn on the tension side as engineers draw them:
  * sagging (+) below the axis, hogging above. Values in N·mm, shown in kNm.
  */
-import { PALETTE, bandPath, esc, extent, frame, hline, legend, linear, n, seriesPath, supports, svgOpen, text, xAxis, yAxis } from './svg'
-import type { Dash, LegendItem } from './svg'
+import { PALETTE, bandPath, esc, extent, frame, hline, legend, linear, markLines, markValues, n, seriesPath, supports, svgOpen, text, xAxis, yAxis } from './svg'
+import type { Dash, LegendItem, PlotMark } from './svg'
 
 export interface MomentCurve {
   label: string
@@ -30,6 +30,8 @@ export interface MomentDiagramData {
   unit: string
   /** point, line and partial loads drawn on the member above the plot: X (and X2 for a partial load) in mm */
   loads?: ReadonlyArray<{ label: string; X: number; X2?: number }>
+  /** the engineer's own quantities marked on the plot (kNm; places in m) */
+  marks?: readonly PlotMark[]
 }
 
 /** Each load as an arrow (point and line loads) or a bar with arrows (partial loads) above the plot, with its label. */
@@ -56,7 +58,7 @@ export function momentDiagramSvg(d: MomentDiagramData): string {
   const f = d.loads?.length ? frame(720, 290, { top: 48 }) : frame(720, 270)
   const length = Math.max(...d.X, ...d.supportsX, 1)
   const kNm = (v: readonly number[]): number[] => v.map((m) => m / 1e6)
-  const all = [...d.curves.flatMap((c) => kNm(c.values)), ...(d.band ? [...kNm(d.band.min), ...kNm(d.band.max)] : []), 0]
+  const all = [...d.curves.flatMap((c) => kNm(c.values)), ...(d.band ? [...kNm(d.band.min), ...kNm(d.band.max)] : []), ...markValues(d.marks), 0]
   const [lo, hi] = extent(all)
   const x = linear([0, length / 1000], [f.left, f.width - f.right])
   // tension side: sagging (+) downwards
@@ -81,5 +83,6 @@ export function momentDiagramSvg(d: MomentDiagramData): string {
     + body
     + supports(d.supportsX.map((v) => v / 1000), x, y(0))
     + loadMarks(d, x, f.top)
+    + markLines(f, x, y, d.marks, d.unit)
     + '</svg>'
 }

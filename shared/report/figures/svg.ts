@@ -167,3 +167,43 @@ export function supports(xs: readonly number[], x: ScaleLinear<number, number>, 
     return `<path d="M${n(cx)},${n(yLine)}L${n(cx - 6)},${n(yLine + 9)}L${n(cx + 6)},${n(yLine + 9)}Z" fill="${PALETTE.axis}" stroke="none"/>`
   }).join('')
 }
+
+/** A value the engineer marks on a figure, in the figure's plotted units (x in m along the member). */
+export interface PlotMark {
+  label: string
+  axis: 'x' | 'y'
+  value: number
+}
+
+/** The marks' values on the value axis, for the plot's extent: a marked value is always in view. */
+export function markValues(marks: readonly PlotMark[] | undefined): number[] {
+  return (marks ?? []).filter((m) => m.axis === 'y' && Number.isFinite(m.value)).map((m) => m.value)
+}
+
+/**
+ * Each mark as a dash-dot line across the plot (horizontal at a value, vertical at a place along the
+ * member) with its name and value at the end, in a group named for it. A place beyond the member
+ * is left out of the drawing and said in words at the top of the plot.
+ */
+export function markLines(f: Frame, x: ScaleLinear<number, number>, y: ScaleLinear<number, number>, marks: readonly PlotMark[] | undefined, unit: string): string {
+  const stroke = PALETTE.plum
+  const dash = 'stroke-dasharray="8 3 2 3" stroke-width="1.3"'
+  const [x0, x1] = x.domain() as [number, number]
+  const round = (v: number): string => String(Number(v.toPrecision(4))).replace('-', '−')
+  let beyond = 0
+  return (marks ?? []).map((m) => {
+    if (!Number.isFinite(m.value)) return ''
+    if (m.axis === 'y') {
+      const py = y(m.value)
+      return `<g aria-label="${esc(`${m.label} = ${round(m.value)} ${unit}`)}">${hline(f.left, f.width - f.right, py, stroke, dash)}`
+        + text(f.width - f.right - 2, py - 4, `${m.label} = ${round(m.value)} ${unit}`, 'font-size="10" text-anchor="end"') + '</g>'
+    }
+    if (m.value < x0 || m.value > x1) {
+      beyond += 1
+      return text(f.left + 4, f.top + 12 * beyond, `${m.label} = ${round(m.value)} m lies beyond the member`, 'font-size="9"')
+    }
+    const px = x(m.value)
+    return `<g aria-label="${esc(`${m.label} = ${round(m.value)} m`)}">${vline(px, f.top, f.height - f.bottom, stroke, dash)}`
+      + text(px + 3, f.top + 10, `${m.label} = ${round(m.value)} m`, 'font-size="10"') + '</g>'
+  }).join('')
+}

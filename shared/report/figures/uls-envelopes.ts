@@ -6,8 +6,8 @@
  * shear is drawn upwards where positive. Each curve sits in a group named for what it shows, and
  * design values and resistances differ by line dash, marker shape and text, not by colour alone.
  */
-import { PALETTE, bandPath, dashAttr, esc, extent, frame, hline, legend, linear, n, seriesPath, supports, svgOpen, text, xAxis, yAxis } from './svg'
-import type { LegendItem } from './svg'
+import { PALETTE, bandPath, dashAttr, esc, extent, frame, hline, legend, linear, markLines, markValues, n, seriesPath, supports, svgOpen, text, xAxis, yAxis } from './svg'
+import type { LegendItem, PlotMark } from './svg'
 
 /** A resistance at one section, signed as plotted (hogging and negative shear −); X along the member, mm. */
 export interface ResistancePoint {
@@ -27,6 +27,8 @@ export interface UlsMomentData {
   hogging: ReadonlyArray<ResistancePoint | null>
   supportsX: readonly number[]
   unit: string
+  /** the engineer's own quantities marked on the plot (kNm; places in m) */
+  marks?: readonly PlotMark[]
 }
 
 export interface UlsShearData {
@@ -38,6 +40,8 @@ export interface UlsShearData {
   resistances: ReadonlyArray<ResistancePoint & { toward: 'left' | 'right' }>
   supportsX: readonly number[]
   unit: string
+  /** the engineer's own quantities marked on the plot (kN; places in m) */
+  marks?: readonly PlotMark[]
 }
 
 /** A whole number with a true minus sign, as the axes print them. */
@@ -83,7 +87,7 @@ export function ulsMomentSvg(d: UlsMomentData): string {
   const length = Math.max(...d.X, ...d.supportsX, 1)
   const kNm = (v: readonly number[]): number[] => v.map((m) => m / 1e6)
   const resist = [...d.sagging, ...d.hogging].filter((p): p is ResistancePoint => p !== null).map((p) => p.value / 1e6)
-  const [lo, hi] = extent([...kNm(d.max), ...kNm(d.min), ...resist, 0])
+  const [lo, hi] = extent([...kNm(d.max), ...kNm(d.min), ...resist, ...markValues(d.marks), 0])
   const x = linear([0, length / 1000], [f.left, f.width - f.right])
   // tension side: sagging (+) downwards, as the moments figure
   const y = linear([lo, hi], [f.top, f.height - f.bottom]).nice()
@@ -108,6 +112,7 @@ export function ulsMomentSvg(d: UlsMomentData): string {
     + lineLabel(d.sagging, 'MRd sagging', x, y, true)
     + lineLabel(d.hogging, 'MRd hogging', x, y, false)
     + supports(d.supportsX.map((v) => v / 1000), x, y(0))
+    + markLines(f, x, y, d.marks, d.unit)
     + '</svg>'
 }
 
@@ -115,7 +120,7 @@ export function ulsShearSvg(d: UlsShearData): string {
   const f = frame(720, 290, { top: 46 })
   const length = Math.max(...d.X, ...d.supportsX, 1)
   const kN = (v: readonly number[]): number[] => v.map((V) => V / 1e3)
-  const [lo, hi] = extent([...kN(d.max), ...kN(d.min), ...d.resistances.map((r) => r.value / 1e3), 0])
+  const [lo, hi] = extent([...kN(d.max), ...kN(d.min), ...d.resistances.map((r) => r.value / 1e3), ...markValues(d.marks), 0])
   const x = linear([0, length / 1000], [f.left, f.width - f.right])
   const y = linear([lo, hi], [f.height - f.bottom, f.top]).nice()
   const xs = d.X.map((v) => v / 1000)
@@ -144,5 +149,6 @@ export function ulsShearSvg(d: UlsShearData): string {
     + group('VEd, least', seriesPath({ label: 'VEd, least', x: xs, y: kN(d.min), stroke: PALETTE.blue }, x, y))
     + group('VRd', marks)
     + supports(d.supportsX.map((v) => v / 1000), x, y(0))
+    + markLines(f, x, y, d.marks, d.unit)
     + '</svg>'
 }

@@ -39,6 +39,13 @@ describe('quantities with units (hand calculations)', () => {
     expect(M.value).toBeCloseTo(144, 9) // by hand: 12.5 × 9.6² / 8 = 144.0
   })
 
+  it('a moment written as one word: 12 kNm + 3 kN × 2 m = 18 kNm, and 12 kNm ≤ 20 kNm has utilisation 0.6', () => {
+    const r = run('a = 12 kNm\nb = 3 kN * 2 m\nc = a + b\ncheck a <= 20 kNm')
+    expect(r.problems).toEqual([])
+    expect(r.quantities.map((q) => [q.name, q.value, q.unit])).toEqual([['a', 12, 'kNm'], ['b', 6, 'kNm'], ['c', 18, 'kNm']]) // by hand
+    expect(r.checks[0]!.utilisation).toBeCloseTo(0.6, 12) // by hand: 12 / 20
+  })
+
   it('the sheet\'s own values by key, in their display units: 2 × q_k = 10 kN/m²; h in m = 0.26 m', () => {
     const r = run('q_2 = 2 * val("loads.imposed")\nh_m = val("section.h") to m')
     expect(r.problems).toEqual([])
