@@ -45,3 +45,21 @@ export async function readUpload(event: H3Event, rules: UploadRules): Promise<{ 
   }
   return { file: { bytes: new Uint8Array(part.data), mime: detected.mime, extension, filename: part.filename ?? '' }, fields }
 }
+
+/** Other spellings of a detected type's extension that a name may keep. */
+const SAME_TYPE: Readonly<Record<string, readonly string[]>> = { jpg: ['jpg', 'jpeg'], png: ['png'], pdf: ['pdf'] }
+
+/**
+ * The name an upload is stored and shown under: the base name of what the browser sent, with only
+ * the real extension of its detected type. Every extension-like ending is taken off
+ * (`report.pdf.html` sent as a PDF → `report.pdf`), so a name never claims another type.
+ */
+export function storedFileName(sent: string, extension: string, fallback: string) {
+  const base = (sent.split(/[\\/]/).pop() ?? '').replace(/[^\p{L}\p{N} ._()-]+/gu, '_').trim()
+  const own = /\.([A-Za-z0-9]{1,8})$/.exec(base)?.[1]
+  const keep = own && (SAME_TYPE[extension] ?? [extension]).includes(own.toLowerCase()) ? own : extension
+  let stem = base
+  while (/\.[A-Za-z][A-Za-z0-9]{0,7}$/.test(stem)) stem = stem.replace(/\.[A-Za-z][A-Za-z0-9]{0,7}$/, '')
+  stem = stem.replace(/[. ]+$/, '').slice(0, 190) || fallback
+  return `${stem}.${keep}`
+}
