@@ -23,8 +23,8 @@ export default async function setup(project: TestProject) {
 
   const { startMailPeer } = await import('../../scripts/mail-peer.mjs')
   const { instance } = await import('../../scripts/db.mjs')
-  // integration and e2e may run side by side: each gets its own server, SMTP port and mailbox
-  const offset = project.name === 'e2e' ? 1 : 0
+  // integration and e2e run side by side, hardening after them: each gets its own server, SMTP port and mailbox
+  const offset = project.name === 'e2e' ? 1 : project.name === 'hardening' ? 2 : 0
   const inst = instance(true)
   const port = inst.appPort + offset
   const mail = await startMailPeer(inst, inst.mailPort + offset * 10, `mailbox-${project.name}`)
