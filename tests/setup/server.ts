@@ -11,6 +11,8 @@ declare module 'vitest' {
   export interface ProvidedContext {
     baseUrl: string
     mailboxDir: string
+    /** the test server's process, whose Chromium the fault tests may kill */
+    serverPid: number
   }
 }
 
@@ -55,6 +57,7 @@ export default async function setup(project: TestProject) {
   }
   project.provide('baseUrl', baseUrl)
   project.provide('mailboxDir', mail.env.NUXT_MAILBOX_DIR)
+  project.provide('serverPid', server.pid!)
 
   return async () => {
     server.kill('SIGTERM')
