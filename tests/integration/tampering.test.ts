@@ -21,45 +21,42 @@ const rows = {} as Record<Table, [number, number]>
 let tried = 0
 let detected = 0
 
+/** The two latest rows of a table, when it has two. */
+async function latestTwo(table: Table): Promise<[number, number] | null> {
+  return withRoot(async (root) => {
+    const [found] = await root.query(`SELECT id FROM \`${table}\` ORDER BY id DESC LIMIT 2`)
+    const got = (found as Array<{ id: number }>).map(r => r.id).reverse()
+    return got.length === 2 ? [got[0]!, got[1]!] : null
+  })
+}
+
+// Rows written through the product: those other tests left when there are two of a kind (the
+// whole suite seals several revisions), else made here: a seal takes a few PDF renders.
 beforeAll(async () => {
   ;[engineer, checker, records, admin] = await Promise.all([session('engineer'), session('checker'), session('records'), session('admin')])
-  const revs: number[] = []
-  const reviews: number[] = []
-  const seals: number[] = []
-  for (const _ of [1, 2]) {
-    const { sheetId } = await makeSheet()
-    const rev = await issue(engineer, sheetId, { note: 'For the tampering test' })
-    expect(rev.status).toBe(201)
-    revs.push(rev.body.id)
-    const approval = await checker.json('POST', `/api/revisions/${rev.body.id}/reviews`, { decision: 'approve' })
-    expect(approval.status).toBe(201)
-    reviews.push(approval.body.id)
-    const seal = await records.json('POST', `/api/revisions/${rev.body.id}/seal`)
-    expect(seal.status).toBe(201)
-    seals.push(seal.body.seal.id)
-    const form = new FormData()
-    form.append('file', new Blob([png(8, 8)], { type: 'image/png' }), `sketch-${sheetId}.png`)
-    const upload = await engineer.fetch(`/api/sheets/${sheetId}/attachments`, { method: 'POST', body: form })
-    expect(upload.status).toBe(201)
-    rows.attachments = [...(rows.attachments ?? []), (await upload.json()).id] as [number, number]
+  if (!(await latestTwo('seals')) || !(await latestTwo('reviews')) || !(await latestTwo('attachments'))) {
+    for (const _ of [1, 2]) {
+      const { sheetId } = await makeSheet()
+      const rev = await issue(engineer, sheetId, { note: 'For the tampering test' })
+      expect(rev.status).toBe(201)
+      const approval = await checker.json('POST', `/api/revisions/${rev.body.id}/reviews`, { decision: 'approve' })
+      expect(approval.status).toBe(201)
+      const seal = await records.json('POST', `/api/revisions/${rev.body.id}/seal`)
+      expect(seal.status).toBe(201)
+      const form = new FormData()
+      form.append('file', new Blob([png(8, 8)], { type: 'image/png' }), `sketch-${sheetId}.png`)
+      const upload = await engineer.fetch(`/api/sheets/${sheetId}/attachments`, { method: 'POST', body: form })
+      expect(upload.status).toBe(201)
+    }
   }
-  rows.revisions = revs as [number, number]
-  rows.reviews = reviews as [number, number]
-  rows.seals = seals as [number, number]
-  const templates: number[] = []
-  for (const n of [1, 2]) {
-    const body = `---\nmodel: pt-member\ntitle: Tampering test ${n}\nversion: 1.0.${n}\n---\n# Prestress\n\nThe governing force is :val[balancing.governing].\n`
-    const published = await admin.json('POST', '/api/templates', { slug: `tampering-${Date.now().toString(36)}-${n}`, body })
-    expect(published.status).toBe(201)
-    templates.push(published.body.id)
+  if (!(await latestTwo('templates'))) {
+    for (const n of [1, 2]) {
+      const body = `---\nmodel: pt-member\ntitle: Tampering test ${n}\nversion: 1.0.${n}\n---\n# Prestress\n\nThe governing force is :val[balancing.governing].\n`
+      expect((await admin.json('POST', '/api/templates', { slug: `tampering-${Date.now().toString(36)}-${n}`, body })).status).toBe(201)
+    }
   }
-  rows.templates = templates as [number, number]
-  const verified = await chainBreaks(records)
-  expect(verified.breaks).toEqual([])
-  rows.audit_events = await withRoot(async (root) => {
-    const [events] = await root.query('SELECT id FROM audit_events ORDER BY id DESC LIMIT 2')
-    return (events as Array<{ id: number }>).map(e => e.id).reverse() as [number, number]
-  })
+  expect((await chainBreaks(records)).breaks).toEqual([])
+  for (const table of TABLES) rows[table] = (await latestTwo(table))!
   expect(Object.values(rows).every(r => r?.length === 2 && r.every(Number.isInteger))).toBe(true)
 })
 
