@@ -19,6 +19,12 @@ export default function errorInWords(error: H3Error, event: H3Event) {
     error.unhandled = false
     return
   }
+  if (error.statusCode === 404 && event.path.startsWith('/api/') && (error.fatal || error.unhandled || !error.message || error.message === 'Server Error')) {
+    error.message = `There is no ${event.method} ${event.path.split('?')[0]} in Tendonbook's API`
+    error.fatal = false
+    error.unhandled = false
+    return
+  }
   if (error.unhandled) {
     const reference = randomBytes(4).toString('hex')
     console.error(`[error ${reference}] ${event.method} ${event.path}`, cause)
