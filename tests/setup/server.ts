@@ -1,7 +1,7 @@
 // Global setup for the integration and e2e projects: the built server (.output) on a test port,
 // pointed at the test MariaDB started by scripts/test.mjs, plus the local SMTP peer.
 import { spawn, type ChildProcess } from 'node:child_process'
-import { existsSync } from 'node:fs'
+import { createWriteStream, existsSync } from 'node:fs'
 import { join, resolve } from 'node:path'
 import type { TestProject } from 'vitest/node'
 
@@ -37,8 +37,10 @@ export default async function setup(project: TestProject) {
     stdio: ['ignore', 'pipe', 'pipe'],
   })
   let output = ''
-  server.stdout?.on('data', (c: Buffer) => { output += c.toString() })
-  server.stderr?.on('data', (c: Buffer) => { output += c.toString() })
+  // the server's log stays beside the test data, for the line an error answer's reference names
+  const log = createWriteStream(join(inst.base, `server-${project.name}.log`))
+  server.stdout?.on('data', (c: Buffer) => { output += c.toString(); log.write(c) })
+  server.stderr?.on('data', (c: Buffer) => { output += c.toString(); log.write(c) })
 
   const baseUrl = `http://127.0.0.1:${port}`
   const until = Date.now() + 60_000
