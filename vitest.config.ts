@@ -5,7 +5,10 @@ const root = fileURLToPath(new URL('.', import.meta.url))
 const alias = { '~': root, '@': root, '#shared': `${root}shared` }
 
 // The hardening suites of tests/integration (hostile bodies, tampering, faults, web attacks) run as
-// their own project once the others are done; they add their figures to the closing table.
+// their own project once the others are done; they add their figures to the closing table. Vitest
+// runs groups in `groupOrder`: unit (0) in parallel, then integration and e2e (1) one file at a
+// time as before, then hardening (2) alone. (A project left at 0 without file parallelism would
+// be put after every numbered group.)
 const HARDENING = ['tests/integration/hostile-bodies.test.ts', 'tests/integration/tampering.test.ts', 'tests/integration/faults.test.ts', 'tests/integration/web-attacks.test.ts']
 
 // Projects: unit (pure code), integration (real MariaDB + Nitro server), e2e (real Chromium), hardening.
@@ -37,6 +40,7 @@ export default defineConfig({
           testTimeout: 60_000,
           hookTimeout: 180_000,
           fileParallelism: false,
+          sequence: { groupOrder: 1 },
         },
       },
       {
@@ -50,6 +54,7 @@ export default defineConfig({
           testTimeout: 120_000,
           hookTimeout: 180_000,
           fileParallelism: false,
+          sequence: { groupOrder: 1 },
         },
       },
       {
@@ -65,7 +70,7 @@ export default defineConfig({
           testTimeout: 300_000,
           hookTimeout: 180_000,
           fileParallelism: false,
-          sequence: { groupOrder: 1 },
+          sequence: { groupOrder: 2 },
         },
       },
     ],
