@@ -157,7 +157,7 @@ beforeAll(async () => {
   expect(review.status).toBe(201)
   const person = await newPerson('checker', 'Fuzz Target')
   const [template] = await withDb(async conn => (await conn.query('SELECT id FROM templates ORDER BY id LIMIT 1'))[0] as Array<{ id: number }>)
-  ids = { ...made, revisionId: issued.body.id, reviewId: review.body.id, personId: person.id, templateId: template!.id }
+  ids = { ...made, revisionId: issued.body.id, reviewId: (review.body.reviews as Array<{ id: number }>).at(-1)!.id, personId: person.id, templateId: template!.id }
   before = await snapshot()
 })
 
@@ -178,9 +178,10 @@ describe('hostile bodies on every route that changes something', () => {
       const path = spec.path()
       const problems: string[] = []
       for (const bad of HOSTILE_IDS) {
-        // every numeric id of the path in turn
-        for (const id of new Set(path.match(/\/\d+/g) ?? [])) {
-          const hostilePath = path.replace(id, `/${bad}`)
+        // every numeric id of the path in turn, by its place (the same digits may stand in two places)
+        const segments = path.split('/')
+        for (const [at] of segments.map((seg, i) => [i, seg] as const).filter(([, seg]) => /^\d+$/.test(seg))) {
+          const hostilePath = segments.map((seg, i) => (i === at ? bad : seg)).join('/')
           const res = await rawJson(method, hostilePath, spec.base ? JSON.stringify(spec.base()) : undefined, cookieOf(spec.caller()))
           tried += 1
           if (res.status >= 500) serverErrors += 1
