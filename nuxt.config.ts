@@ -1,3 +1,5 @@
+import { fileURLToPath } from 'node:url'
+
 // Nuxt 4 with the root-level layout: pages/, components/, server/, shared/ sit at the top.
 export default defineNuxtConfig({
   compatibilityDate: '2026-06-01',
@@ -63,6 +65,12 @@ export default defineNuxtConfig({
   nitro: {
     experimental: { tasks: true },
     imports: { dirs: ['./server/services'] },
+  },
+  hooks: {
+    // security: errors nobody answered for are put into words before Nuxt's own handler renders them
+    'nitro:config'(config) {
+      config.errorHandler = [fileURLToPath(new URL('./server/error-words.ts', import.meta.url)), ...[config.errorHandler ?? []].flat()]
+    },
   },
   typescript: { strict: true },
   vite: {

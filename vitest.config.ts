@@ -4,7 +4,14 @@ import { defineConfig } from 'vitest/config'
 const root = fileURLToPath(new URL('.', import.meta.url))
 const alias = { '~': root, '@': root, '#shared': `${root}shared` }
 
-// Three projects: unit (pure code), integration (real MariaDB + Nitro server), e2e (real Chromium).
+// The hardening suites of tests/integration (hostile bodies, tampering, faults, web attacks) run as
+// their own project once the others are done; they add their figures to the closing table. Vitest
+// runs groups in `groupOrder`: unit (0) in parallel, then integration and e2e (1) one file at a
+// time as before, then hardening (2) alone. (A project left at 0 without file parallelism would
+// be put after every numbered group.)
+const HARDENING = ['tests/integration/hostile-bodies.test.ts', 'tests/integration/tampering.test.ts', 'tests/integration/faults.test.ts', 'tests/integration/web-attacks.test.ts']
+
+// Projects: unit (pure code), integration (real MariaDB + Nitro server), e2e (real Chromium), hardening.
 // `npm test` (scripts/test.mjs) starts the test database and runs them all; `vitest run --project unit`
 // runs the pure tests alone without any service.
 export default defineConfig({
@@ -26,12 +33,14 @@ export default defineConfig({
         test: {
           name: 'integration',
           include: ['tests/integration/**/*.test.ts'],
+          exclude: HARDENING,
           environment: 'node',
           globalSetup: ['tests/setup/server.ts'],
           setupFiles: ['tests/setup/http.ts'],
           testTimeout: 60_000,
           hookTimeout: 180_000,
           fileParallelism: false,
+          sequence: { groupOrder: 1 },
         },
       },
       {
@@ -45,6 +54,23 @@ export default defineConfig({
           testTimeout: 120_000,
           hookTimeout: 180_000,
           fileParallelism: false,
+          sequence: { groupOrder: 1 },
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
+          // fuzzing, tampering as root, stopping the database: alone, after every other project,
+          // so that row counts are exact and no other test sees the faults
+          name: 'hardening',
+          include: HARDENING,
+          environment: 'node',
+          globalSetup: ['tests/setup/server.ts'],
+          setupFiles: ['tests/setup/http.ts'],
+          testTimeout: 300_000,
+          hookTimeout: 180_000,
+          fileParallelism: false,
+          sequence: { groupOrder: 2 },
         },
       },
     ],

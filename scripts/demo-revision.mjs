@@ -5,7 +5,7 @@ export async function issueDemoRevision(base) {
   const call = async (method, path, body) => {
     const res = await fetch(`${base}${path}`, {
       method,
-      headers: { 'content-type': 'application/json', ...(cookie ? { cookie } : {}) },
+      headers: { 'content-type': 'application/json', origin: base, ...(cookie ? { cookie } : {}) },
       body: body ? JSON.stringify(body) : undefined,
     })
     const set = res.headers.getSetCookie()[0]

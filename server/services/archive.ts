@@ -4,6 +4,7 @@ import { alias } from 'drizzle-orm/mysql-core'
 import Papa from 'papaparse'
 import type { ArchiveQuery } from '../utils/records-schemas'
 import { parseVerifyQuery, sha256Hex } from '../utils/hashing'
+import { CSV_FORMULA_START } from '../../shared/utils/csv'
 
 type SessionUser = { id: number, name: string, email: string, role: import('../../shared/types/roles').Role }
 
@@ -63,7 +64,7 @@ export async function archiveRegister(q: ArchiveQuery, userId: number) {
   return rows
 }
 
-/** The register as CSV; a cell starting with = + - @ (tab, CR) is quoted with ' so no spreadsheet runs it as a formula. */
+/** The register as CSV; a text cell starting with = + - @, tab or CR gets a leading ' so no spreadsheet runs it as a formula. */
 export function registerCsv(rows: Awaited<ReturnType<typeof archiveRegister>>) {
   return Papa.unparse(rows.map(x => ({
     'Archive ref.': x.archiveRef,
@@ -81,7 +82,7 @@ export function registerCsv(rows: Awaited<ReturnType<typeof archiveRegister>>) {
     'Pages': x.pages,
     'PDF SHA-256': x.pdfSha256,
     'Content SHA-256': x.contentHash,
-  })), { newline: '\r\n', escapeFormulae: true })
+  })), { newline: '\r\n', escapeFormulae: CSV_FORMULA_START })
 }
 
 /** Approved revisions that still wait for their seal (and are not superseded). */

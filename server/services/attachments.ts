@@ -10,12 +10,6 @@ export const ATTACHMENT_MAX_BYTES = 10 * 1024 * 1024
 /** Types accepted, decided by the file's content (magic numbers), never by its name. */
 const ACCEPTED: Record<string, string> = { 'application/pdf': 'pdf', 'image/png': 'png', 'image/jpeg': 'jpg' }
 
-function safeName(name: string) {
-  const base = name.split(/[\\/]/).pop() ?? ''
-  const cleaned = base.replace(/[^\p{L}\p{N} ._()-]+/gu, '_').trim().slice(0, 200)
-  return cleaned || 'attachment'
-}
-
 export async function uploadAttachment(event: H3Event, sheetId: number, user: SessionUser) {
   const [sheet] = await useDb().select({ id: tables.sheets.id, reference: tables.sheets.reference }).from(tables.sheets).where(eq(tables.sheets.id, sheetId))
   if (!sheet) throw createError({ statusCode: 404, message: `No calc sheet with id ${sheetId}` })
@@ -25,7 +19,7 @@ export async function uploadAttachment(event: H3Event, sheetId: number, user: Se
   const sha256 = sha256Hex(bytes)
   const storageKey = generatedKey(`attachments:${sheetId}`, extension)
   await writeStored(storageKey, bytes)
-  const filename = safeName(file!.filename)
+  const filename = storedFileName(file!.filename, extension, 'attachment')
   const id = await historyTransaction(async (tx) => {
     const [{ id }] = await tx.insert(tables.attachments).values({ sheetId, storageKey, filename, mime, bytes: bytes.length, sha256, uploadedBy: user.id, createdAt: new Date() }).$returningId()
     await logWrittenRow(tx, 'attachment', id)

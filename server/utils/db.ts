@@ -39,8 +39,11 @@ const NOT_SENT = new Set(['ECONNREFUSED', 'EHOSTUNREACH', 'ENOTFOUND', 'PROTOCOL
 const LOST = new Set(['ECONNRESET', 'EPIPE', 'ETIMEDOUT', 'PROTOCOL_CONNECTION_LOST', 'ER_SERVER_SHUTDOWN', 'ER_CONNECTION_KILLED', 'ER_UNKNOWN_COM_ERROR'])
 const NODE_NOT_READY = 1047
 
+/** mysql2's word for a pooled connection the server closed (KILL, restart) before the command went out; it has no code. */
+const CLOSED_BEFORE_SENT = /can't add new command when connection is in closed state/i
+
 function isNotSent(error: unknown) {
-  return causes(error).some(e => (e.code && NOT_SENT.has(e.code)) || e.errno === NODE_NOT_READY)
+  return causes(error).some(e => (e.code && NOT_SENT.has(e.code)) || e.errno === NODE_NOT_READY || CLOSED_BEFORE_SENT.test(String((e as { message?: unknown }).message ?? '')))
 }
 
 export function isConnectionLost(error: unknown) {

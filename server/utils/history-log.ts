@@ -5,6 +5,7 @@ import { publicKeyOf, signTreeHead, type TreeHead } from '../../shared/log/tree-
 import type { LogKind } from '../../shared/log/entry'
 import { appendToLog } from '../database/history-log'
 import type { Tx } from './audit'
+import { markIdempotentWorkDone } from './idempotency'
 
 let signingKey: { privatePem: string, publicPem: string, keyId: string } | undefined
 
@@ -76,7 +77,12 @@ export async function publishHead(): Promise<PublishedHead> {
 
 /** Runs `work` as one transaction, then publishes a signed head covering what it appended. */
 export async function historyTransaction<T>(work: (tx: Tx) => Promise<T>, config?: Parameters<ReturnType<typeof useDb>['transaction']>[1]): Promise<T> {
-  const result = await useDb().transaction(work, config)
+  // a request under an Idempotency-Key records, in the same commit, that its work was done
+  const result = await useDb().transaction(async (tx) => {
+    const out = await work(tx)
+    await markIdempotentWorkDone(tx)
+    return out
+  }, config)
   await publishHead()
   return result
 }

@@ -1,8 +1,37 @@
+import { AsyncLocalStorage } from 'node:async_hooks'
 import type { H3Event } from 'h3'
-import { and, eq } from 'drizzle-orm'
+import { and, eq, isNull } from 'drizzle-orm'
 import { canonicalJson, sha256Hex } from '../../shared/log/canonical'
+import type { Tx } from './audit'
 
 const KEY = /^[\x21-\x7E]{8,100}$/
+
+/** `status_code` of a key whose work committed before its answer was stored (the connection dropped between). */
+const DONE_ANSWER_LOST = 0
+
+/** The key of the request being run, for the transaction that does its work to mark it done in the same commit. */
+const running = new AsyncLocalStorage<{ userId: number, key: string }>()
+
+/** Marks the running request's key as done, inside the transaction of its work: the mark and the work commit together. */
+export async function markIdempotentWorkDone(tx: Tx) {
+  const current = running.getStore()
+  if (!current) return
+  const t = tables.idempotencyKeys
+  await tx.update(t).set({ statusCode: DONE_ANSWER_LOST }).where(and(eq(t.userId, current.userId), eq(t.idempotencyKey, current.key)))
+}
+
+/** A statement outside any transaction that only sets values: safe to send again when the connection dropped. */
+async function again<T>(statement: () => Promise<T>, attempts = 3): Promise<T> {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      return await statement()
+    }
+    catch (error) {
+      if (attempt >= attempts || !isConnectionLost(error)) throw error
+      await new Promise(r => setTimeout(r, 100 * attempt))
+    }
+  }
+}
 
 function duplicate(error: unknown) {
   const e = error as { code?: string, cause?: { code?: string } }
@@ -13,8 +42,10 @@ function duplicate(error: unknown) {
  * Runs a state-changing request once per `Idempotency-Key` (header, per user): the first result is
  * stored with the user and the route, and a retry with the same key gets it back instead of acting
  * again. Without the header the request simply runs.
+ * The work's own transaction marks the key done in its commit, so a connection lost after that
+ * commit never lets a retry do the work twice.
  * @throws 400 for a malformed key, 422 when the key was used for another request, 409 while the
- * first request with the key is still running.
+ * first request with the key is still running, or when it was saved but its answer was lost.
  */
 export async function idempotent<T>(event: H3Event, userId: number, body: unknown, work: () => Promise<T>): Promise<T> {
   const key = getRequestHeader(event, 'idempotency-key')
@@ -33,19 +64,20 @@ export async function idempotent<T>(event: H3Event, userId: number, body: unknow
       throw createError({ statusCode: 422, message: `This Idempotency-Key was already used for another request${first && first.route !== route ? ` (${first.route})` : ' with different content'}; use a new key for a new action` })
     }
     if (first.statusCode === null) throw createError({ statusCode: 409, message: 'The first request with this Idempotency-Key is still being processed; try again in a moment' })
+    if (first.statusCode === DONE_ANSWER_LOST) throw createError({ statusCode: 409, message: 'Your first request with this Idempotency-Key was saved, but its answer was lost on the way: reload the page to see the result (nothing was done twice)' })
     setResponseStatus(event, first.statusCode)
     setResponseHeader(event, 'idempotent-replayed', 'true')
     return (typeof first.response === 'string' ? JSON.parse(first.response) : first.response) as T
   }
   let result: T
   try {
-    result = await work()
+    result = await running.run({ userId, key }, work)
   }
   catch (error) {
-    // nothing was done: the same key may try again
-    await useDb().delete(t).where(and(eq(t.userId, userId), eq(t.idempotencyKey, key)))
+    // unless its work committed (then the key is marked done), nothing was done: the same key may try again
+    await again(() => useDb().delete(t).where(and(eq(t.userId, userId), eq(t.idempotencyKey, key), isNull(t.statusCode))))
     throw error
   }
-  await useDb().update(t).set({ statusCode: getResponseStatus(event), response: JSON.parse(JSON.stringify(result)) }).where(and(eq(t.userId, userId), eq(t.idempotencyKey, key)))
+  await again(() => useDb().update(t).set({ statusCode: getResponseStatus(event), response: JSON.parse(JSON.stringify(result)) }).where(and(eq(t.userId, userId), eq(t.idempotencyKey, key))))
   return result
 }

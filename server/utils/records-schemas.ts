@@ -1,9 +1,10 @@
 import { z } from 'zod'
 import { textField } from '../../shared/schemas/text'
+import { recordId } from '../../shared/schemas/record-id'
 
 /** A record's numeric id in the path (a revision, a review, a version of the office details). */
 export const idParams = z.object({
-  id: z.coerce.number({ message: 'id must be a number' }).int().positive('id must be a positive whole number'),
+  id: recordId('id must be a positive whole number'),
 })
 
 export const revisionIdParams = idParams
@@ -22,11 +23,11 @@ export const reviewBody = z.object({
 export type ReviewBody = z.infer<typeof reviewBody>
 
 export const diffQuery = z.object({
-  against: z.coerce.number().int().positive('against must be a revision id').optional(),
+  against: recordId('against must be a revision id').optional(),
 })
 
 export const archiveQuery = z.object({
-  project: z.coerce.number().int().positive().optional(),
+  project: recordId('project must be a project id').optional(),
   from: z.iso.date({ message: 'from is a date like 2026-01-31' }).optional(),
   to: z.iso.date({ message: 'to is a date like 2026-01-31' }).optional(),
   status: z.enum(['current', 'superseded', 'all']).default('all'),

@@ -1,6 +1,7 @@
 import { z } from 'zod'
 import { textField } from './text'
 import { PROJECT_ROLES } from '../types/roles'
+import { recordId } from './record-id'
 
 /** One schema for the project form and the route that creates a project. */
 export const projectCreateSchema = z.object({
@@ -16,18 +17,18 @@ export const projectCreateSchema = z.object({
 export type ProjectCreateBody = z.infer<typeof projectCreateSchema>
 
 export const idParamSchema = z.object({
-  id: z.coerce.number({ message: 'id must be a number' }).int().positive('id must be a positive whole number'),
+  id: recordId('id must be a positive whole number'),
 })
 
 /** One schema for the membership form of the people page and the route that adds a member or changes their role. */
 export const memberSetSchema = z.object({
-  userId: z.coerce.number({ message: 'Choose a person' }).int('Choose a person').positive('Choose a person'),
+  userId: recordId('Choose a person'),
   role: z.enum(PROJECT_ROLES, { message: 'Choose the role on the project: engineer, checker or records' }),
 })
 
 export type MemberSetBody = z.infer<typeof memberSetSchema>
 
 export const memberParamSchema = z.object({
-  id: z.coerce.number({ message: 'id must be a number' }).int().positive('id must be a positive whole number'),
-  userId: z.coerce.number({ message: 'userId must be a number' }).int().positive('userId must be a positive whole number'),
+  id: recordId('id must be a positive whole number'),
+  userId: recordId('userId must be a positive whole number'),
 })

@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { textField } from './text'
+import { recordId } from './record-id'
 
 /** One schema for the new-sheet form and the route that creates a sheet. */
 export const sheetCreateSchema = z.object({
@@ -9,12 +10,12 @@ export const sheetCreateSchema = z.object({
     .regex(/^[A-Za-z0-9][A-Za-z0-9./_-]*$/, 'Calc reference may hold letters, digits and . / _ - only'),
   title: textField('Title').trim().min(3, 'Title must be at least 3 characters').max(200, 'Title is at most 200 characters'),
   partOfStructure: textField('Part of structure').trim().max(200, 'Part of structure is at most 200 characters').default(''),
-  templateId: z.coerce.number({ message: 'Choose a template' }).int().positive('Choose a template'),
+  templateId: recordId('Choose a template'),
   /** span lengths in metres, as typed; left out: the template's starter spans */
   spans: z.array(z.number({ message: 'Enter the span length in metres' }).min(1, 'A span must be at least 1 m').max(40, 'A span must not exceed 40 m'))
     .min(1, 'Give at least one span').max(10, 'At most 10 spans').optional(),
   /** another sheet of the project whose inputs the new sheet starts from */
-  copyFrom: z.coerce.number({ message: 'Choose the sheet to start from' }).int().positive('Choose the sheet to start from').optional(),
+  copyFrom: recordId('Choose the sheet to start from').optional(),
 }).refine(b => !(b.spans && b.copyFrom), { path: ['spans'], message: 'Either give the spans or start from another sheet, not both' })
 
 export type SheetCreateBody = z.infer<typeof sheetCreateSchema>

@@ -8,6 +8,7 @@
 import Papa from 'papaparse'
 import { DISPLAY_UNITS, fromEngine, isDisplayUnit, toEngine, type DisplayUnit } from '../utils/units'
 import { clonePlain, fieldFor, getPath, leafPaths, setPath } from '../utils/paths'
+import { CSV_FORMULA_START, unescapeCsvCell } from '../utils/csv'
 import { inputLabel } from './labels'
 
 export const INPUTS_FORMAT = 'tendonbook-inputs/2'
@@ -93,10 +94,10 @@ export function exportCsv(inputs: unknown, fields: FieldUnit[]) {
     const value = getPath(inputs, path)
     const field = fieldOfPath(fields, path)
     const label = field ? inputLabel(path) : ''
-    if (typeof value === 'number' && field) return [path, String(shown(value, field.unit)), unitLabel(field.unit), label]
+    if (typeof value === 'number' && field) return [path, shown(value, field.unit), unitLabel(field.unit), label]
     return [path, value === null || value === undefined ? '' : String(value), '', label]
   })
-  return `${Papa.unparse({ fields: ['field', 'value', 'unit', 'label'], data: rows }, { newline: '\n' })}\n`
+  return `${Papa.unparse({ fields: ['field', 'value', 'unit', 'label'], data: rows }, { newline: '\n', escapeFormulae: CSV_FORMULA_START })}\n`
 }
 
 /** Parses an uploaded inputs file (JSON or CSV) into engine-unit inputs merged over `base`. */
@@ -196,7 +197,7 @@ function importCsv(text: string, base: unknown, fields: FieldUnit[]) {
   let inputs = clonePlain(base) as Record<string, unknown>
   rows.slice(1).forEach((row, i) => {
     const line = i + 2
-    const [path = '', raw = '', unitText = ''] = row.map(c => c.trim())
+    const [path = '', raw = '', unitText = ''] = row.map(c => unescapeCsvCell(c.trim()))
     const field = fieldOfPath(fields, path)
     if (!field) {
       problems.push(`line ${line}: "${path || '(empty)'}" is not an input of this sheet`)

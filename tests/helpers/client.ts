@@ -21,6 +21,8 @@ export class ApiClient {
     const res = await fetch(`${this.baseUrl}${path}`, {
       method,
       headers: {
+        // the browser sends its page's origin with every request that changes something
+        ...(method !== 'GET' && method !== 'HEAD' ? { origin: this.baseUrl } : {}),
         ...(body !== undefined ? { 'content-type': 'application/json' } : {}),
         ...(this.cookies.size ? { cookie: [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ') } : {}),
         ...headers,

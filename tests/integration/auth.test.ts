@@ -98,7 +98,7 @@ function fromAddress(localAddress: string, method: string, path: string, body?: 
   const url = new URL(inject('baseUrl'))
   const data = body === undefined ? undefined : JSON.stringify(body)
   return new Promise((done, fail) => {
-    const req = request({ host: url.hostname, port: url.port, localAddress, method, path, agent: false, headers: { ...(data ? { 'content-type': 'application/json', 'content-length': Buffer.byteLength(data) } : {}), ...(cookie ? { cookie } : {}) } }, (res) => {
+    const req = request({ host: url.hostname, port: url.port, localAddress, method, path, agent: false, headers: { ...(method !== 'GET' ? { origin: url.origin } : {}), ...(data ? { 'content-type': 'application/json', 'content-length': Buffer.byteLength(data) } : {}), ...(cookie ? { cookie } : {}) } }, (res) => {
       let text = ''
       res.on('data', (c: Buffer) => { text += c.toString() })
       res.on('end', () => {

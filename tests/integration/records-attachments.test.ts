@@ -13,10 +13,10 @@ describe('attachments', () => {
     const doc = await PDFDocument.create()
     doc.addPage([595.28, 841.89])
     const pdf = await doc.save()
-    // the name says .txt: the content decides the type
+    // the name says .txt: the content decides the type, and the stored name takes its extension
     const a = await engineer.upload(`/api/sheets/${sheetId}/attachments`, image, 'site-photo.txt')
     expect(a.status).toBe(201)
-    expect(a.body).toMatchObject({ mime: 'image/png', sha256: sha256Hex(image), filename: 'site-photo.txt' })
+    expect(a.body).toMatchObject({ mime: 'image/png', sha256: sha256Hex(image), filename: 'site-photo.png' })
     const b = await engineer.upload(`/api/sheets/${sheetId}/attachments`, pdf, '../../etc/stressing record.pdf')
     expect(b.status).toBe(201)
     expect(b.body).toMatchObject({ mime: 'application/pdf', filename: 'stressing record.pdf' })

@@ -17,7 +17,7 @@ export class Session {
   constructor(readonly baseUrl: string = inject('baseUrl')) {}
 
   async fetch(path: string, init: RequestInit = {}) {
-    const res = await fetch(`${this.baseUrl}${path}`, { ...init, headers: { ...(init.headers as Record<string, string> ?? {}), cookie: this.cookie }, redirect: 'manual' })
+    const res = await fetch(`${this.baseUrl}${path}`, { ...init, headers: { origin: this.baseUrl, ...(init.headers as Record<string, string> ?? {}), cookie: this.cookie }, redirect: 'manual' })
     const set = res.headers.getSetCookie().map(l => l.split(';')[0]!).filter(p => !p.endsWith('='))
     if (set.length) this.cookie = set.join('; ')
     return res

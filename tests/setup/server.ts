@@ -1,7 +1,7 @@
 // Global setup for the integration and e2e projects: the built server (.output) on a test port,
 // pointed at the test MariaDB started by scripts/test.mjs, plus the local SMTP peer.
 import { spawn, type ChildProcess } from 'node:child_process'
-import { existsSync } from 'node:fs'
+import { createWriteStream, existsSync } from 'node:fs'
 import { join, resolve } from 'node:path'
 import type { TestProject } from 'vitest/node'
 
@@ -11,6 +11,8 @@ declare module 'vitest' {
   export interface ProvidedContext {
     baseUrl: string
     mailboxDir: string
+    /** the test server's process, whose Chromium the fault tests may kill */
+    serverPid: number
   }
 }
 
@@ -23,8 +25,8 @@ export default async function setup(project: TestProject) {
 
   const { startMailPeer } = await import('../../scripts/mail-peer.mjs')
   const { instance } = await import('../../scripts/db.mjs')
-  // integration and e2e may run side by side: each gets its own server, SMTP port and mailbox
-  const offset = project.name === 'e2e' ? 1 : 0
+  // integration and e2e run side by side, hardening after them: each gets its own server, SMTP port and mailbox
+  const offset = project.name === 'e2e' ? 1 : project.name === 'hardening' ? 2 : 0
   const inst = instance(true)
   const port = inst.appPort + offset
   const mail = await startMailPeer(inst, inst.mailPort + offset * 10, `mailbox-${project.name}`)
@@ -35,8 +37,10 @@ export default async function setup(project: TestProject) {
     stdio: ['ignore', 'pipe', 'pipe'],
   })
   let output = ''
-  server.stdout?.on('data', (c: Buffer) => { output += c.toString() })
-  server.stderr?.on('data', (c: Buffer) => { output += c.toString() })
+  // the server's log stays beside the test data, for the line an error answer's reference names
+  const log = createWriteStream(join(inst.base, `server-${project.name}.log`))
+  server.stdout?.on('data', (c: Buffer) => { output += c.toString(); log.write(c) })
+  server.stderr?.on('data', (c: Buffer) => { output += c.toString(); log.write(c) })
 
   const baseUrl = `http://127.0.0.1:${port}`
   const until = Date.now() + 60_000
@@ -55,6 +59,7 @@ export default async function setup(project: TestProject) {
   }
   project.provide('baseUrl', baseUrl)
   project.provide('mailboxDir', mail.env.NUXT_MAILBOX_DIR)
+  project.provide('serverPid', server.pid!)
 
   return async () => {
     server.kill('SIGTERM')

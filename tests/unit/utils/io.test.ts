@@ -18,6 +18,21 @@ describe('inputs files', () => {
     expect((back.loads as { sdl: number }).sdl).toBeCloseTo(0.002, 12)
   })
 
+  it('writes a text cell that a spreadsheet would run as a formula with a leading \' and reads it back unchanged; numbers stay numbers', () => {
+    const textFields: FieldUnit[] = [...fields, { path: 'note', unit: '', kind: 'text' }, { path: 'offset', unit: 'mm', kind: 'number' }]
+    // OWASP CSV injection: = + - @ tab CR at a cell's start; a line break after the formula must not hide it
+    for (const hostile of ['=HYPERLINK("http://x.example","y")', '+1+1', '-2+3', '@SUM(A1)', '\t=1', '\r=1', '=1\n2']) {
+      const csv = exportCsv({ ...inputs, note: hostile, offset: -25 }, textFields)
+      const cells = csv.split('\n').filter(l => l.startsWith('note,') || l.startsWith('"note"'))
+      expect(csv).toMatch(/note,"'/)
+      expect(cells.length).toBe(1)
+      expect(csv).toContain('offset,-25,mm')
+      const back = importInputs(csv, 'x.csv', inputs, textFields, 'pt-member') as { note: string, offset: number }
+      expect(back.note).toBe(hostile)
+      expect(back.offset).toBe(-25)
+    }
+  })
+
   it('writes JSON in the units the engineer types, each value naming its unit, and reads it back', () => {
     const json = exportJson('pt-member', inputs, fields)
     const doc = JSON.parse(json)
