@@ -1,7 +1,8 @@
 import { and, eq, inArray, like } from 'drizzle-orm'
 import type { HeightRow, TendonHeightSchedule } from '../../shared/engine/site/tendon-heights'
 import type { StressingSchedule } from '../../shared/engine/site/stressing'
-import { parseVerifyQuery, verificationRef } from '../utils/hashing'
+import { parseVerifyQuery } from '../utils/hashing'
+import { verificationRef } from '../../shared/utils/verification-ref'
 import { getRevisionDetail, sheetRevisionStatuses } from './revisions'
 
 type SessionUser = { id: number, name: string, email: string, role: import('../../shared/types/roles').Role }
