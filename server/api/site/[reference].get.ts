@@ -4,7 +4,7 @@ const siteParams = z.object({ reference: z.string().trim().min(1, 'Give the veri
 
 /** The site view of an approved revision by the verification reference on its sealed PDF (the caller's projects only). */
 export default defineEventHandler(async (event) => {
-  const { reference } = validParams(event, siteParams)
   const user = await authorize(event)
+  const { reference } = validParams(event, siteParams)
   return siteView(reference, user)
 })
