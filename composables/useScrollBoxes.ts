@@ -3,7 +3,7 @@
  * joins the tab order (tabindex 0), so the keyboard can scroll it too (WCAG 2.1.1). Watches the
  * element's content as it is re-rendered and its width as the window changes.
  */
-const SCROLL_BOXES = '.tb-math, table, pre, .tb-overview, .katex-display'
+const SCROLL_BOXES = '.tb-math, table, pre, .tb-overview, .katex-display, .overflow-x-auto'
 
 export function useScrollBoxes(root: Ref<HTMLElement | null | undefined>) {
   let mutations: MutationObserver | undefined
