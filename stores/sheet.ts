@@ -6,6 +6,7 @@ import { runSheet, renderSheet, compileSheet, type SheetRun } from '~/shared/she
 import { describeInputError, inputLabel, optionLabel } from '~/shared/sheet/labels'
 import { resizeSpanLists, spanCount } from '~/shared/sheet/spans'
 import { CONFLICT_MARKERS } from '~/shared/sheet/text-merge'
+import { withoutHiddenValues } from '~/shared/sheet/relevance'
 
 /** 1-based lines where a merge left a conflict's opening marker. */
 function conflictLines(text: string): number[] {
@@ -206,7 +207,8 @@ export const useSheetStore = defineStore('sheet', () => {
     clearTextErrors(path)
     if (JSON.stringify(value) === JSON.stringify(getPath(inputs.value, path))) return
     remember(`Change ${inputLabel(path)}`, path)
-    inputs.value = setPath(inputs.value, path, value)
+    // a mode changed: its own values for the mode left are dropped, not kept hidden (undo restores them)
+    inputs.value = withoutHiddenValues(setPath(inputs.value, path, value))
     scheduleSave()
   }
 
@@ -235,7 +237,7 @@ export const useSheetStore = defineStore('sheet', () => {
   /** Applies a partial input (e.g. the Magnel proposal) as one undoable step. */
   function applyPatch(label: string, patch: Record<string, unknown>) {
     remember(label)
-    inputs.value = mergePatch(inputs.value, patch)
+    inputs.value = withoutHiddenValues(mergePatch(inputs.value, patch))
     scheduleSave()
   }
 

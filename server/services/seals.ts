@@ -1,6 +1,7 @@
 import type { H3Event } from 'h3'
 import { eq } from 'drizzle-orm'
-import { sha256Hex, verificationRef } from '../utils/hashing'
+import { sha256Hex } from '../utils/hashing'
+import { verificationRef } from '../../shared/utils/verification-ref'
 import { makeReproducible, namedDestinationPages, PdfBusyError, PdfRenderError, printOrigin, renderPdf } from '../utils/pdf'
 import { CAUTION, footerTemplate, headerTemplate, isoDay, logStampKeywords, type LogStamp, type TitleBlock } from '../utils/print-templates'
 import { encodePages } from '../../shared/report/page-references'

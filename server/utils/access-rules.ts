@@ -88,6 +88,9 @@ export const ACCESS_RULES = {
   'POST /api/chain/verify': account(['records']),
   'GET /api/log': account(['records']),
   'GET /api/log/export': account(['records'], 'records'),
+
+  // the site's view of an approved revision, by the verification reference on its PDF: any member of its project
+  'GET /api/site/:reference': account('any', 'any'),
 } as const satisfies Record<string, AccessRule>
 
 export type RouteKey = keyof typeof ACCESS_RULES

@@ -2,6 +2,7 @@
 // Pure functions (no Nitro auto-imports) so unit tests can check them against independent values.
 import { assertPlainJson, canonicalJson, sha256Hex } from '../../shared/log/canonical'
 import { laterFields } from '../../shared/log/row-form'
+import { verificationRef } from '../../shared/utils/verification-ref'
 
 export { canonicalJson, sha256Hex }
 
@@ -113,14 +114,6 @@ export function auditHash(e: AuditHashFields): string {
   })
 }
 
-/**
- * Short reference printed on a sealed PDF and typed back to verify it: TB-XXXX-XXXX-XXXX, from the
- * revision's content hash (the PDF's own hash cannot be printed inside it).
- */
-export function verificationRef(contentHash: string): string {
-  const h = contentHash.slice(0, 12).toUpperCase()
-  return `TB-${h.slice(0, 4)}-${h.slice(4, 8)}-${h.slice(8, 12)}`
-}
 
 /** What a person might paste: a 64-hex hash or a verification reference, normalised. */
 export function parseVerifyQuery(text: string): { kind: 'hash', value: string } | { kind: 'ref', value: string } | null {

@@ -1,9 +1,10 @@
 /**
  * Which input fields apply to the member as set up: a slab strip has no flange, a beam no tendon
  * spacing, a profile of the deepest kind no hand-set eccentricities. Fields that do not apply are
- * hidden in the form (their values are kept, the engine ignores them).
+ * hidden in the form and the engine ignores them; the engineer's own values for a mode not chosen
+ * are dropped (`withoutHiddenValues`), not kept out of sight.
  */
-import { getPath } from '../utils/paths'
+import { clonePlain, getPath } from '../utils/paths'
 
 type Rule = (inputs: unknown) => boolean
 
@@ -41,4 +42,25 @@ export function isRelevant(path: string, inputs: unknown): boolean {
   if (FIRE_DETAIL.test(path) && (getPath(inputs, 'fire.rating') ?? 'none') === 'none') return false
   const rule = RULES[path]
   return rule ? rule(inputs) : true
+}
+
+/**
+ * Fields whose value is the engineer's own for one mode, with no default standing in for it (the
+ * hand-set eccentricities of a custom profile, a rectangle's width, a flange): once the mode changes
+ * they do not apply, and they are dropped rather than kept as hidden values. Fields with a default
+ * keep it while hidden, as the form would show it again.
+ */
+const OWN_VALUES_OF_A_MODE = ['section.b', 'section.bw', 'section.bf', 'section.hf', 'section.tributaryWidth', 'profile.supportEcc', 'profile.spanEcc', 'site.stripWidth']
+
+/** The inputs without the values of fields that do not apply to the member as set up (see above). */
+export function withoutHiddenValues<T>(inputs: T): T {
+  const drop = OWN_VALUES_OF_A_MODE.filter(path => getPath(inputs, path) !== undefined && !isRelevant(path, inputs))
+  if (!drop.length) return inputs
+  const out = clonePlain(inputs)
+  for (const path of drop) {
+    const parts = path.split('.')
+    const parent = getPath(out, parts.slice(0, -1).join('.')) as Record<string, unknown>
+    delete parent[parts.at(-1)!]
+  }
+  return out
 }

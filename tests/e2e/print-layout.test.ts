@@ -89,7 +89,7 @@ describe('printing a revision', () => {
     await admin.setInputFiles('#office-logo', { name: 'logo.png', mimeType: 'image/png', buffer: Buffer.from('%PDF-1.4 not an image') })
     await admin.fill('#office-name', 'Not saved')
     await admin.click('[data-test=office-save]')
-    await poll(() => admin.locator('[role=alert]').textContent()).toContain('upload a PNG or JPEG image')
+    await poll(() => admin.locator('[data-test=notices]').textContent()).toContain('upload a PNG or JPEG image')
     expect(await admin.locator('[data-test=office-name]').textContent()).toContain('Harrow & Vane')
     await screenshot(admin, 'office-details')
 

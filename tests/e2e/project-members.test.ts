@@ -21,7 +21,7 @@ describe('project members in the browser', () => {
     expect(await card.locator(`#add-role-${projectId}`).inputValue()).toBe('engineer')
     await card.locator(`#add-role-${projectId}`).selectOption('checker')
     await card.locator('button[type=submit]').click()
-    await expect.poll(() => admin.locator('[role=status]').first().textContent()).toContain('is checker on Alder Yard podium')
+    await expect.poll(() => admin.locator('[data-test=notices]').textContent()).toContain('is checker on Alder Yard podium')
     await expect.poll(() => card.textContent()).toContain(person.email)
     await screenshot(admin, 'project-members')
 

@@ -54,8 +54,28 @@ describe('the calc-sheet editor', () => {
     const failing = await page.locator('[data-test=check-state]').innerText()
     const propose = page.locator('[data-test=propose]')
     await expect.poll(() => propose.isEnabled(), { timeout: 10_000 }).toBe(true)
+    await expect.poll(() => page.locator('[data-test=save-state]').innerText(), { timeout: 10_000 }).toMatch(/^Saved/)
+    const client = await signedIn('engineer')
+    const before = ((await client.get(`/api/sheets/${id}`)).body as { inputs: unknown }).inputs
+
+    // the proposal first shows what it would change, by label from the value now to the value proposed
     await propose.click()
+    const dialog = page.locator('[data-test=proposal-dialog]')
+    await expect.poll(() => dialog.locator('tbody').innerText()).toContain('Tendon spacing')
+    expect(await dialog.locator('tbody tr', { hasText: 'Tendon spacing' }).innerText()).toMatch(/1\D?500\Wmm\s+\S+/)
+    expect(await page.evaluate(() => document.activeElement?.id)).toBe('proposal-title')
+    // cancelling changes nothing and gives the focus back to the button
+    await page.keyboard.press('Escape')
+    await expect.poll(() => dialog.count()).toBe(0)
+    expect(await page.evaluate(() => document.activeElement?.getAttribute('data-test'))).toBe('propose')
+    expect(await spacing.inputValue()).toBe('1500')
+
+    await propose.click()
+    await dialog.locator('[data-test=proposal-apply]').click()
     await expect.poll(() => page.locator('[data-test=notice]').innerText()).toContain('Applied the proposed force')
+    // the focus moves to the result, and the layout's live region says it
+    expect(await page.evaluate(() => document.activeElement?.getAttribute('data-test'))).toBe('notice')
+    await expect.poll(() => page.locator('.nuxt-announcer').innerText()).toContain('Applied the proposed force')
     await expect.poll(() => page.locator('[data-test=check-state]').innerText(), { timeout: 10_000 }).not.toBe(failing)
     expect(Number(await spacing.inputValue())).toBeLessThan(1500)
     await screenshot(page, 'sheet-ps2-proposal')
@@ -64,6 +84,9 @@ describe('the calc-sheet editor', () => {
     await expect.poll(() => page.locator('[data-test=check-state]').innerText()).toBe(failing)
     // the "Applied…" notice is about a step that was just undone: it goes
     await expect.poll(() => page.locator('[data-test=notice]').count()).toBe(0)
+    // undo restores exactly the inputs before the proposal
+    await expect.poll(() => page.locator('[data-test=save-state]').innerText(), { timeout: 10_000 }).toMatch(/^Saved/)
+    expect(((await client.get(`/api/sheets/${id}`)).body as { inputs: unknown }).inputs).toEqual(before)
     await page.locator('[data-test=undo]').click()
     await expect.poll(() => page.locator('[data-test=save-state]').innerText(), { timeout: 10_000 }).toMatch(/^Saved/)
   })

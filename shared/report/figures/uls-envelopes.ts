@@ -51,7 +51,7 @@ function signed(v: number): string {
 
 /** A group named for the curve it holds, so that a reader (and a test) can tell the curves apart without colour. */
 function group(label: string, body: string): string {
-  return body ? `<g aria-label="${esc(label)}">${body}</g>` : ''
+  return body ? `<g role="group" aria-label="${esc(label)}">${body}</g>` : ''
 }
 
 /** A dashed line through the resistances, broken where a section has none, with a marker at each. */

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest'
-import { auditHash, canonicalJson, hashCanonical, parseVerifyQuery, plainJson, revisionHash, sha256Hex, verificationRef, type RevisionHashFields } from '../../../server/utils/hashing'
+import { auditHash, canonicalJson, hashCanonical, parseVerifyQuery, plainJson, revisionHash, sha256Hex, type RevisionHashFields } from '../../../server/utils/hashing'
+import { verificationRef } from '../../../shared/utils/verification-ref'
 
 describe('canonical JSON (RFC 8785)', () => {
   it('matches the sample of RFC 8785 §3.2.2 (sorting, numbers, string escapes)', () => {
