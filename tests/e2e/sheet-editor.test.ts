@@ -47,6 +47,42 @@ describe('the calc-sheet editor', () => {
     await expect.poll(() => page.locator('[data-test=save-state]').innerText(), { timeout: 10_000 }).toMatch(/^Saved/)
   })
 
+  it('patches the report part by part: a span change replaces only the parts whose text changed, the others stay the same nodes', async () => {
+    const id = await ownSheet('PARTS')
+    const page = await editorAsEngineer(browser, id)
+    await expect.poll(() => page.locator('[data-test=propose]').isEnabled(), { timeout: 10_000 }).toBe(true)
+    // every part's element nodes and html before the change, kept in the page
+    await page.evaluate(() => {
+      const kept = new Map<string, { nodes: Element[], html: string }>()
+      for (const el of document.querySelectorAll<HTMLElement>('[data-test=report] [data-part]')) kept.set(el.dataset.part!, { nodes: [...el.children], html: el.innerHTML })
+      ;(window as unknown as { partsBefore: typeof kept }).partsBefore = kept
+    })
+    const span2 = page.locator('[data-path="geometry.spans"] input').nth(1)
+    await span2.fill('10.1')
+    await expect.poll(() => page.locator('[data-test=report]').innerText()).toContain('10.10')
+    // the run with the proposal follows and patches what it changes
+    await expect.poll(() => page.locator('[data-test=propose]').isEnabled(), { timeout: 10_000 }).toBe(true)
+    const parts = await page.evaluate(() => {
+      const before = (window as unknown as { partsBefore: Map<string, { nodes: Element[], html: string }> }).partsBefore
+      return [...document.querySelectorAll<HTMLElement>('[data-test=report] [data-part]')].map((el) => {
+        const was = before.get(el.dataset.part!)
+        const nodes = [...el.children]
+        return {
+          key: el.dataset.part!,
+          htmlSame: was?.html === el.innerHTML,
+          nodesSame: !!was && was.nodes.length === nodes.length && nodes.every((n, i) => n === was.nodes[i]),
+        }
+      })
+    })
+    const unchanged = parts.filter(p => p.htmlSame)
+    const changed = parts.filter(p => !p.htmlSame)
+    expect(changed.length).toBeGreaterThan(0)
+    expect(unchanged.length).toBeGreaterThan(0)
+    // a part whose html did not change keeps its very nodes; a changed one got new ones
+    expect(unchanged.filter(p => !p.nodesSame).map(p => p.key)).toEqual([])
+    expect(changed.filter(p => p.nodesSame).map(p => p.key)).toEqual([])
+  })
+
   it('applies the proposal as one undoable step that makes failing stress checks pass', async () => {
     const id = await demoSheetId('PS-2')
     const page = await editorAsEngineer(browser, id)
