@@ -3,6 +3,7 @@ import { inputFieldSpecs, memberInputSchema } from '~/shared/engine/index'
 import { fieldErrors, type FieldErrors } from '~/shared/utils/validation'
 import { clonePlain, getPath, mergePatch, setPath } from '~/shared/utils/paths'
 import { compileSheet } from '~/shared/sheet/runtime'
+import { typesetCacheEntries } from '~/shared/report/render'
 import { createLiveRunner, type LiveOutcome, type LiveReport, type LiveRequest, type LiveRunState } from '~/shared/sheet/live-run'
 import { describeInputError, inputLabel } from '~/shared/sheet/labels'
 import { resizeSpanLists, spanCount } from '~/shared/sheet/spans'
@@ -253,7 +254,7 @@ export const useSheetStore = defineStore('sheet', () => {
     apply(loader.run(first))
     if (import.meta.client) {
       worker ??= startWorker()
-      worker.postMessage({ reset: { ...first, proposal: false } })
+      worker.postMessage({ reset: { ...first, proposal: false }, formulas: typesetCacheEntries() })
     }
     draftVersion.value = payload.draftVersion
     saveState.value = 'saved'

@@ -225,6 +225,16 @@ function renderMath(token: Token, display: boolean, env: ReportEnv): string {
 const typesetCache = new Map<string, string>()
 const TYPESET_CACHE_SIZE = 4000
 
+/** The formulas typeset so far (key, html), for another thread's renderer to start from. */
+export function typesetCacheEntries(): Array<[string, string]> {
+  return [...typesetCache]
+}
+
+/** Starts this thread's formula cache from another's: KaTeX's output depends only on the TeX and the mode. */
+export function seedTypesetCache(entries: ReadonlyArray<readonly [string, string]>): void {
+  for (const [key, html] of entries.slice(0, TYPESET_CACHE_SIZE - typesetCache.size)) typesetCache.set(key, html)
+}
+
 function typeset(tex: string, display: boolean): string {
   const key = `${display ? 'D' : 'I'}${tex}`
   const cached = typesetCache.get(key)
