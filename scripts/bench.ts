@@ -319,8 +319,7 @@ async function benchPdf(server: Server, browser: Browser, records: Client, revis
     single.push(r.ms)
     renders.push(r.renders ?? 0)
   }
-  report('re-render of a sealed PDF vs page.pdf', single, reference, '≤ 1.3×', `${stats(renders).median} renders each (renders until two agree)`)
-  report('  the same per render vs page.pdf', single.map((v, i) => v / Math.max(1, renders[i]!)), reference, '≤ 1.3×')
+  report('re-render of a sealed PDF vs one page.pdf', single, reference, '≤ 1.3×', `page numbers settle in 2–3 Chromium renders, then ${stats(renders).median} more until the bytes match`)
 
   const concurrent: number[] = []
   const statuses = new Map<number, number>()
@@ -407,12 +406,13 @@ async function benchEditor(server: Server, browser: Browser) {
   const toDom = async (value: string) => page.evaluate(async ({ id, value }) => {
     const input = document.getElementById(id) as HTMLInputElement
     const reportEl = document.querySelector('[data-test=report]')!
-    const changed = new Promise<void>((done) => {
+    const changed = new Promise<void>((done, fail) => {
       const seen = new MutationObserver(() => {
         seen.disconnect()
         done()
       })
       seen.observe(reportEl, { subtree: true, childList: true, characterData: true })
+      setTimeout(() => fail(new Error(`the report did not change within 20 s of typing ${value}`)), 20_000)
     })
     const t = performance.now()
     input.value = value
@@ -442,8 +442,10 @@ async function benchEditor(server: Server, browser: Browser) {
   await bare(9700, 1)
   const dom: number[] = []
   const reference: number[] = []
+  // values this run has not typed before (the saved draft may hold one from an earlier run)
+  const offset = (Date.now() % 7) * 0.1
   for (let i = 0; i < ROUNDS; i++) {
-    const value = (9.7 + i * 0.1).toFixed(1)
+    const value = (9.71 + i * 0.01 + offset).toFixed(2)
     reference.push(await bare(Math.round(Number(value) * 1000) + 50, i + 2))
     dom.push(await toDom(value))
     await page.waitForTimeout(900) // the run with the proposal lands and patches
@@ -454,7 +456,7 @@ async function benchEditor(server: Server, browser: Browser) {
     const parts = () => [...document.querySelectorAll<HTMLElement>('[data-test=report] [data-part]')]
     const before = new Map(parts().map(p => [p.dataset.part!, p.firstElementChild]))
     const input = document.getElementById(id) as HTMLInputElement
-    input.value = '10.3'
+    input.value = (Number(input.value) + 0.05).toFixed(2)
     input.dispatchEvent(new Event('input', { bubbles: true }))
     await new Promise(r => setTimeout(r, 1500))
     const now = parts()
