@@ -5,7 +5,7 @@ import { dirname, join, resolve } from 'node:path'
 import { fileURLToPath } from 'node:url'
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '..')
-const SOURCES = ['pages', 'components', 'composables', 'stores', 'layouts', 'middleware', 'assets', 'public', 'server', 'shared', 'content-templates', 'plugins', 'app.vue', 'error.vue', 'nuxt.config.ts', 'tailwind.config.ts', 'package-lock.json']
+const SOURCES = ['pages', 'components', 'composables', 'stores', 'workers', 'layouts', 'middleware', 'assets', 'public', 'server', 'shared', 'content-templates', 'plugins', 'app.vue', 'error.vue', 'nuxt.config.ts', 'tailwind.config.ts', 'package-lock.json']
 const stamp = join(root, '.output', '.tendonbook-build')
 
 function newest(path) {

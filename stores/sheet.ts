@@ -2,8 +2,10 @@ import { defineStore } from 'pinia'
 import { inputFieldSpecs, memberInputSchema } from '~/shared/engine/index'
 import { fieldErrors, type FieldErrors } from '~/shared/utils/validation'
 import { clonePlain, getPath, mergePatch, setPath } from '~/shared/utils/paths'
-import { runSheet, renderSheet, compileSheet, type SheetRun } from '~/shared/sheet/runtime'
-import { describeInputError, inputLabel, optionLabel } from '~/shared/sheet/labels'
+import { compileSheet } from '~/shared/sheet/runtime'
+import { typesetCacheEntries } from '~/shared/report/render'
+import { createLiveRunner, type LiveOutcome, type LiveReport, type LiveRequest, type LiveRunState } from '~/shared/sheet/live-run'
+import { describeInputError, inputLabel } from '~/shared/sheet/labels'
 import { resizeSpanLists, spanCount } from '~/shared/sheet/spans'
 import { CONFLICT_MARKERS } from '~/shared/sheet/text-merge'
 import { withoutHiddenValues } from '~/shared/sheet/relevance'
@@ -38,6 +40,25 @@ export type SaveState = 'saved' | 'pending' | 'saving' | 'invalid' | 'conflict' 
 export interface Blocker { path: string, label: string, message: string }
 
 interface UndoEntry { label: string, inputs: Record<string, unknown>, path?: string, at: number }
+
+/** The report as the editor shows it: a part keeps its object while its html is unchanged, so Vue leaves its DOM alone. */
+export interface ShownReport extends Omit<LiveReport, 'parts'> {
+  parts: Array<{ key: string, html: string, figuresBefore: number }>
+}
+
+const FIGURE_TAG = /<figure class="tb-figure"/g
+
+function patchReport(before: ShownReport | null, next: LiveReport): ShownReport {
+  const old = new Map(before?.parts.map(p => [p.key, p]))
+  let figures = 0
+  const parts = next.parts.map((p) => {
+    const kept = old.get(p.key)
+    const part = kept && kept.html === p.html && kept.figuresBefore === figures ? kept : { key: p.key, html: p.html, figuresBefore: figures }
+    figures += p.html.match(FIGURE_TAG)?.length ?? 0
+    return part
+  })
+  return { ...next, parts }
+}
 
 const SAVE_DELAY_MS = 800
 const FULL_RUN_DELAY_MS = 350
@@ -92,23 +113,83 @@ export const useSheetStore = defineStore('sheet', () => {
     return parsed.success ? { ok: true as const, value: parsed.data, errors: {} as FieldErrors } : { ok: false as const, errors: fieldErrors(parsed.error) }
   })
 
-  // Every change runs the engine at once without the proposal search (the costly part); the full
-  // run with the proposal follows when typing pauses. The first run of a sheet is always full.
-  const fullRun = shallowRef<{ key: string, run: SheetRun } | null>(null)
+  // Every change runs the engine without the proposal search (the costly part) in a worker, off the
+  // main thread, so the keystroke paints first; the full run with the proposal follows when typing
+  // pauses. The first run of a sheet is full and runs here (also on the server for the first paint).
   const inputKey = computed(() => JSON.stringify(inputs.value))
-  let fullTimer: ReturnType<typeof setTimeout> | undefined
-  const run = computed<SheetRun | null>(() => {
-    if (!validation.value.ok) return null
-    if (fullRun.value?.key === inputKey.value) return fullRun.value.run
-    return runSheet(validation.value.value, { proposal: false })
+  const outcome = shallowRef<LiveOutcome | null>(null)
+  const shownReport = shallowRef<ShownReport | null>(null)
+  const designChecks = shallowRef<LiveOutcome['designChecks']>(null)
+  const everRan = ref(false)
+
+  const run = computed<LiveRunState | null>(() => (validation.value.ok ? outcome.value?.run ?? null : null))
+
+  function apply(result: LiveOutcome) {
+    outcome.value = result
+    if (result.run?.ok) everRan.value = true
+    if (result.designChecks) designChecks.value = result.designChecks
+    if (result.report) shownReport.value = patchReport(shownReport.value, result.report)
+  }
+
+  let seq = 0
+  // answers to requests from before the last load belong to another sheet (or an older version of it)
+  let resetSeq = 0
+  const liveRequest = (proposal: boolean): LiveRequest => ({
+    seq: ++seq,
+    key: inputKey.value,
+    inputs: validation.value.ok ? clonePlain(validation.value.value) : null,
+    text: text.value,
+    images: clonePlain(images.value),
+    proposal,
   })
-  watch(inputKey, (key) => {
+
+  // One request at a time: changes made while the worker is busy are sent as one, the latest.
+  let worker: Worker | null = null
+  let busy = false
+  let waiting: 'quick' | 'full' | null = null
+  let fullTimer: ReturnType<typeof setTimeout> | undefined
+  const signature = () => `${inputKey.value}\u0000${text.value}\u0000${JSON.stringify(images.value)}`
+  let lastSent = ''
+  function send(kind: 'quick' | 'full') {
+    if (!import.meta.client) return
+    lastSent = signature()
+    if (busy) {
+      waiting = waiting === 'full' && kind === 'quick' ? 'quick' : kind
+      return
+    }
+    worker ??= startWorker()
+    busy = true
+    worker.postMessage(liveRequest(kind === 'full'))
+  }
+  function startWorker(): Worker {
+    const w = new Worker(new URL('../workers/sheet-run.ts', import.meta.url), { type: 'module' })
+    w.onmessage = (event: MessageEvent<LiveOutcome>) => {
+      busy = false
+      if (event.data.seq >= resetSeq) apply(event.data)
+      const next = waiting
+      waiting = null
+      if (next) send(next)
+      else scheduleFull()
+    }
+    return w
+  }
+  function scheduleFull() {
     clearTimeout(fullTimer)
-    if (!validation.value.ok || fullRun.value?.key === key) return
-    const value = validation.value.value
     fullTimer = setTimeout(() => {
-      if (inputKey.value === key) fullRun.value = { key, run: runSheet(value) }
+      if (validation.value.ok && !(outcome.value?.full && outcome.value.key === inputKey.value)) send('full')
     }, FULL_RUN_DELAY_MS)
+  }
+  watch([inputKey, text, images], () => {
+    if (signature() === lastSent) return
+    clearTimeout(fullTimer)
+    send('quick')
+  })
+
+  // the proposal applies to the inputs it was worked out for, never to inputs typed since
+  const proposal = computed(() => {
+    const o = outcome.value
+    if (!validation.value.ok || !o?.proposal) return null
+    return o.key === inputKey.value ? o.proposal : { patch: null, reason: 'Working out the proposal…' }
   })
 
   const errors = computed<FieldErrors>(() => {
@@ -125,24 +206,12 @@ export const useSheetStore = defineStore('sheet', () => {
     return { path, label: inputLabel(path), message: describeInputError(path, message!) }
   })
 
-  // The last inputs that ran: while a field is invalid the report stays on screen, marked stale.
-  const lastGood = shallowRef<{ inputs: unknown, run: Extract<SheetRun, { ok: true }> } | null>(null)
-  watch(run, (r) => {
-    if (r?.ok && validation.value.ok) lastGood.value = { inputs: validation.value.value, run: r }
-  }, { immediate: true })
-  const stale = computed(() => !(run.value?.ok) && lastGood.value !== null)
-  const shownRun = computed(() => (run.value?.ok ? run.value : lastGood.value?.run ?? null))
-
-  const report = computed(() => {
-    const c = compiled.value
-    const r = shownRun.value
-    if (!c || !c.ok || !r) return null
-    const shownInputs = run.value?.ok && validation.value.ok ? validation.value.value : lastGood.value!.inputs
-    return renderSheet(c.template, shownInputs, r.design, 'edit', { optionLabel, images: images.value })
-  })
+  // While a field is invalid the report of the last inputs that ran stays on screen, marked stale.
+  const stale = computed(() => !(run.value?.ok) && everRan.value)
+  const report = computed(() => shownReport.value)
 
   // the engine's checks and the engineer's own (the sheet's calculation blocks), as the report lists them
-  const checks = computed(() => report.value?.checks ?? shownRun.value?.design.checks ?? [])
+  const checks = computed(() => report.value?.checks ?? designChecks.value ?? [])
 
   // Replies to the checker's comments on a returned revision, keyed "reviewId:index"; they go with
   // the next issue. Kept in the browser per revision, so a reload does not lose what is written.
@@ -174,9 +243,20 @@ export const useSheetStore = defineStore('sheet', () => {
     text.value = payload.body ?? payload.template.body
     lastCompiled.value = null
     inputs.value = clonePlain(payload.inputs)
-    fullRun.value = validation.value.ok ? { key: inputKey.value, run: runSheet(validation.value.value) } : null
-    lastGood.value = null
-    if (fullRun.value?.run.ok && validation.value.ok) lastGood.value = { inputs: validation.value.value, run: fullRun.value.run }
+    // the first run is full and here: the page paints with its report (the server renders it too)
+    outcome.value = null
+    shownReport.value = null
+    designChecks.value = null
+    everRan.value = false
+    const first = liveRequest(true)
+    resetSeq = first.seq
+    lastSent = signature()
+    const loader = createLiveRunner()
+    apply(loader.run(first))
+    if (import.meta.client) {
+      worker ??= startWorker()
+      worker.postMessage({ reset: { ...first, proposal: false }, formulas: typesetCacheEntries() })
+    }
     draftVersion.value = payload.draftVersion
     saveState.value = 'saved'
     savedAt.value = payload.updatedAt
@@ -325,7 +405,7 @@ export const useSheetStore = defineStore('sheet', () => {
   }
 
   return {
-    sheet, inputs, draftVersion, saveState, saveMessage, savedAt, specs, compiled, validation, run, errors, blocker, stale, report,
+    sheet, inputs, draftVersion, saveState, saveMessage, savedAt, specs, compiled, validation, run, proposal, errors, blocker, stale, report,
     text, ownText, textErrors, setText, images, setImages,
     checks, undoStack, redoStack,
     replies, replyList, answerRevision, setReply, clearReplies,

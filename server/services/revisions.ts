@@ -185,9 +185,10 @@ export async function issueRevision(event: H3Event, sheetId: number, body: Issue
       subject: `[Tendonbook] ${sheet.reference} ${fields.code} issued for check - job ${project.jobNumber} ${project.name}`,
       text: `${user.name} issued ${sheet.reference} ${fields.code} "${sheet.title}" for check.\n${note ? `Note: ${note}\n` : ''}${failingChecksReason ? `Issued with failing checks: ${failingChecksReason}\n` : ''}\nOpen it: ${mailLink(event, `/revisions/${id}`)}\n\nContent hash: ${contentHash}\n`,
     })
-    return id
+    return { id, code: fields.code, contentHash }
   }, { isolationLevel: 'read committed' })
-  return getRevisionDetail(created, user)
+  // what the editor needs to say so and link to it; the revision itself reads from GET /api/revisions/:id
+  return created
 }
 
 export async function listSheetRevisions(sheetId: number) {

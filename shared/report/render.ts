@@ -66,6 +66,20 @@ export interface RenderedReport {
   keySections: Record<string, string>
 }
 
+/** One part of a report between two top-level headings, keyed by the id of the heading that opens it. */
+export interface ReportPart {
+  key: string
+  html: string
+}
+
+/**
+ * A report in parts: `open` + every part's html + `close` is exactly the report's html. The editor
+ * patches part by part, so a change leaves the parts whose html did not change untouched.
+ */
+export interface RenderedReportParts extends RenderedReport {
+  parts: { open: string; sections: ReportPart[]; close: string }
+}
+
 /** Ends every report. */
 export const REPORT_CAUTION = 'Results are for a competent engineer to verify. The local code, its national annex and licensed practice govern.'
 
@@ -91,6 +105,10 @@ interface ReportEnv {
   /** each calculation block's result, and every quantity they define by name */
   calc: Map<BlockMeta, CalcBlockResult>
   quantities: Map<string, CalcQuantity>
+  /** how many blocks that wrap their content in an element (checks, figure, overview, calc) enclose the tokens being rendered */
+  wrapDepth: number
+  /** how many template blocks of any kind (each included) enclose them */
+  blockDepth: number
 }
 
 const KATEX_OPTIONS = {
@@ -108,6 +126,8 @@ const VAL_IN_MATH = /\\val\s*\{([^{}]*)\}/g
 const HOME_MARK = /\u0000home:(\d+)\u0000/g
 // A front-page link to the section that shows a key or a check group, placed once the whole body is rendered.
 const REF_MARK = /\u0000ref:(key|group):([^\u0000]*)\u0000/g
+// Marks where a top-level heading starts a part of the report; removed before the html leaves the renderer.
+const PART_MARK = '\u0000part\u0000'
 
 /**
  * A value at a dot path: undefined where a key is missing (unresolved), null where the path passes
@@ -205,6 +225,16 @@ function renderMath(token: Token, display: boolean, env: ReportEnv): string {
 const typesetCache = new Map<string, string>()
 const TYPESET_CACHE_SIZE = 4000
 
+/** The formulas typeset so far (key, html), for another thread's renderer to start from. */
+export function typesetCacheEntries(): Array<[string, string]> {
+  return [...typesetCache]
+}
+
+/** Starts this thread's formula cache from another's: KaTeX's output depends only on the TeX and the mode. */
+export function seedTypesetCache(entries: ReadonlyArray<readonly [string, string]>): void {
+  for (const [key, html] of entries.slice(0, TYPESET_CACHE_SIZE - typesetCache.size)) typesetCache.set(key, html)
+}
+
 function typeset(tex: string, display: boolean): string {
   const key = `${display ? 'D' : 'I'}${tex}`
   const cached = typesetCache.get(key)
@@ -281,7 +311,9 @@ function installRules(renderer: Renderer): void {
     const id = uniqueId(env.ids, base)
     env.sections.push({ id, title, level })
     env.currentSection = id
-    return `<${token.tag} id="${id}">`
+    // a heading among the report's own top-level elements (not in a list, quote or a block's element) opens a part
+    const topLevel = env.wrapDepth === 0 && token.level === env.blockDepth
+    return `${topLevel ? PART_MARK : ''}<${token.tag} id="${id}">`
   }
   rules.image = (tokens, idx, options, env, self) => {
     const token = tokens[idx]!
@@ -324,6 +356,18 @@ function renderTokens(tokens: readonly Token[], env: ReportEnv): string {
 }
 
 function renderBlock(meta: BlockMeta, inner: readonly Token[], env: ReportEnv): string {
+  const wraps = meta.directive !== 'each' && meta.directive !== undefined
+  env.blockDepth += 1
+  if (wraps) env.wrapDepth += 1
+  try {
+    return renderBlockContent(meta, inner, env)
+  } finally {
+    env.blockDepth -= 1
+    if (wraps) env.wrapDepth -= 1
+  }
+}
+
+function renderBlockContent(meta: BlockMeta, inner: readonly Token[], env: ReportEnv): string {
   if (meta.directive === 'each') return renderEach(meta, inner, env)
   if (meta.directive === 'checks') return renderChecks(meta, inner, env)
   if (meta.directive === 'figure') return renderFigure(meta, inner, env)
@@ -562,6 +606,12 @@ export function checkSectionsIn(html: string): Record<string, string> {
 
 /** Renders a compiled template; never throws for missing values (they show as — and are listed). */
 export function renderReport(compiled: CompiledTemplate, options: RenderOptions): RenderedReport {
+  const { parts: _parts, ...report } = renderReportParts(compiled, options)
+  return report
+}
+
+/** The same render as renderReport, with its html also given in parts (one per top-level heading). */
+export function renderReportParts(compiled: CompiledTemplate, options: RenderOptions): RenderedReportParts {
   const { model } = compiled
   const hasResults = options.results !== null && options.results !== undefined
   const env: ReportEnv = {
@@ -584,6 +634,8 @@ export function renderReport(compiled: CompiledTemplate, options: RenderOptions)
     calc: new Map(),
     quantities: new Map(),
     images: options.images ?? {},
+    wrapDepth: 0,
+    blockDepth: 0,
   }
   // the engineer's calculations first: their checks join the tables and the summary wherever those stand
   evaluateCalcBlocks(compiled.tokens, env)
@@ -604,15 +656,27 @@ export function renderReport(compiled: CompiledTemplate, options: RenderOptions)
       const worst = tallyChecks(env.checks.filter((c) => c.group === target)).governing
       return sectionLink(worst ? env.checkHome.get(worst.id) ?? env.checkSummary.get(worst.id) : null)
     })
-  const html = `<article class="tb-report tb-mode-${options.mode}" data-model="${escapeHtml(model.id)}">\n${placed}`
-    + `<aside class="tb-caution" role="note"><p>${escapeHtml(REPORT_CAUTION)}</p></aside>\n</article>\n`
+  const open = `<article class="tb-report tb-mode-${options.mode}" data-model="${escapeHtml(model.id)}">\n`
+  const close = '</article>\n'
+  const sections = partsOf(placed)
+  sections.push({ key: 'caution', html: `<aside class="tb-caution" role="note"><p>${escapeHtml(REPORT_CAUTION)}</p></aside>\n` })
   return {
-    html,
+    html: open + sections.map((s) => s.html).join('') + close,
+    parts: { open, sections, close },
     sections: env.sections,
     checks: env.checks.map((c) => ({ ...c, sectionId: homeOf(c) })),
     unresolved: uniqueUnresolved(env.unresolved),
     keySections: Object.fromEntries(env.keySections),
   }
+}
+
+/** The body cut at its part marks; each part keyed by the id of the heading that opens it ('lead' before the first). */
+function partsOf(body: string): ReportPart[] {
+  const pieces = body.split(PART_MARK)
+  const parts: ReportPart[] = []
+  if (pieces[0] !== '') parts.push({ key: 'lead', html: pieces[0]! })
+  for (const html of pieces.slice(1)) parts.push({ key: /^<h[1-6] id="([^"]*)"/.exec(html)![1]!, html })
+  return parts
 }
 
 /** The calculation blocks in document order: each one's quantities, checks and problems. */

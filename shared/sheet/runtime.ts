@@ -7,7 +7,7 @@ import { EngineInputError } from '../engine/contract'
 import { designMember, type Design } from '../engine/member/design'
 import { memberInputSchema, type MemberInput } from '../engine/input/schema'
 import { DEMO_BB1, DEMO_PS2 } from '../engine/input/demo'
-import { compileTemplate, parseTemplate, renderReport, TemplateLoadError, type CompiledTemplate, type RenderMode, type RenderOptions, type TemplateMeta } from '../report'
+import { compileTemplate, parseTemplate, renderReportParts, TemplateLoadError, type CompiledTemplate, type RenderMode, type RenderOptions, type TemplateMeta } from '../report'
 import { MODELS } from '../report/models'
 
 export type SheetRun = { ok: true, design: Design } | { ok: false, field: string, message: string }
@@ -65,7 +65,13 @@ export function compileSheet(text: string): SheetCompile {
 }
 
 export function renderSheet(template: CompiledTemplate, inputs: unknown, design: Design | null, mode: RenderMode, words: Pick<RenderOptions, 'optionLabel' | 'images'> = {}) {
-  const report = renderReport(template, { inputs, results: design, mode, ...words })
+  const { parts: _parts, ...report } = renderSheetParts(template, inputs, design, mode, words)
+  return report
+}
+
+/** renderSheet with the html also in parts, one per top-level heading, for the editor to patch part by part. */
+export function renderSheetParts(template: CompiledTemplate, inputs: unknown, design: Design | null, mode: RenderMode, words: Pick<RenderOptions, 'optionLabel' | 'images'> = {}) {
+  const report = renderReportParts(template, { inputs, results: design, mode, ...words })
   const checkSections: Record<string, string> = {}
   for (const c of report.checks) if (c.sectionId) checkSections[c.id] = c.sectionId
   return { ...report, checkSections }

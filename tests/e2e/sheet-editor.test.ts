@@ -25,7 +25,7 @@ describe('the calc-sheet editor', () => {
 
     const span2 = page.locator('[data-path="geometry.spans"] input').nth(1)
     await span2.fill('12.5')
-    await expect.poll(() => page.locator('[data-test=worst-utilisation]').innerText()).not.toBe(worstBefore)
+    await expect.poll(() => page.locator('[data-test=worst-utilisation]').innerText(), { timeout: 10_000 }).not.toBe(worstBefore)
     const reportAfter = await page.locator('[data-test=report]').innerText()
     expect(reportAfter).not.toBe(reportBefore)
     expect(reportAfter).toContain('12.50')
@@ -45,6 +45,42 @@ describe('the calc-sheet editor', () => {
     await span2.fill('9.6')
     await span2.blur()
     await expect.poll(() => page.locator('[data-test=save-state]').innerText(), { timeout: 10_000 }).toMatch(/^Saved/)
+  })
+
+  it('patches the report part by part: a span change replaces only the parts whose text changed, the others stay the same nodes', async () => {
+    const id = await ownSheet('PARTS')
+    const page = await editorAsEngineer(browser, id)
+    await expect.poll(() => page.locator('[data-test=propose]').isEnabled(), { timeout: 10_000 }).toBe(true)
+    // every part's element nodes and html before the change, kept in the page
+    await page.evaluate(() => {
+      const kept = new Map<string, { nodes: Element[], html: string }>()
+      for (const el of document.querySelectorAll<HTMLElement>('[data-test=report] [data-part]')) kept.set(el.dataset.part!, { nodes: [...el.children], html: el.innerHTML })
+      ;(window as unknown as { partsBefore: typeof kept }).partsBefore = kept
+    })
+    const span2 = page.locator('[data-path="geometry.spans"] input').nth(1)
+    await span2.fill('10.1')
+    await expect.poll(() => page.locator('[data-test=report]').innerText(), { timeout: 10_000 }).toContain('10.10')
+    // the run with the proposal follows and patches what it changes
+    await expect.poll(() => page.locator('[data-test=propose]').isEnabled(), { timeout: 10_000 }).toBe(true)
+    const parts = await page.evaluate(() => {
+      const before = (window as unknown as { partsBefore: Map<string, { nodes: Element[], html: string }> }).partsBefore
+      return [...document.querySelectorAll<HTMLElement>('[data-test=report] [data-part]')].map((el) => {
+        const was = before.get(el.dataset.part!)
+        const nodes = [...el.children]
+        return {
+          key: el.dataset.part!,
+          htmlSame: was?.html === el.innerHTML,
+          nodesSame: !!was && was.nodes.length === nodes.length && nodes.every((n, i) => n === was.nodes[i]),
+        }
+      })
+    })
+    const unchanged = parts.filter(p => p.htmlSame)
+    const changed = parts.filter(p => !p.htmlSame)
+    expect(changed.length).toBeGreaterThan(0)
+    expect(unchanged.length).toBeGreaterThan(0)
+    // a part whose html did not change keeps its very nodes; a changed one got new ones
+    expect(unchanged.filter(p => !p.nodesSame).map(p => p.key)).toEqual([])
+    expect(changed.filter(p => p.nodesSame).map(p => p.key)).toEqual([])
   })
 
   it('applies the proposal as one undoable step that makes failing stress checks pass', async () => {
@@ -81,7 +117,7 @@ describe('the calc-sheet editor', () => {
     await screenshot(page, 'sheet-ps2-proposal')
     await page.locator('[data-test=undo]').click()
     await expect.poll(() => spacing.inputValue()).toBe('1500')
-    await expect.poll(() => page.locator('[data-test=check-state]').innerText()).toBe(failing)
+    await expect.poll(() => page.locator('[data-test=check-state]').innerText(), { timeout: 10_000 }).toBe(failing)
     // the "Applied…" notice is about a step that was just undone: it goes
     await expect.poll(() => page.locator('[data-test=notice]').count()).toBe(0)
     // undo restores exactly the inputs before the proposal
@@ -129,7 +165,7 @@ describe('the calc-sheet editor', () => {
     await span2.fill('9.6')
     await expect.poll(() => spansField.locator('.field-error').count()).toBe(0)
     expect(await span2.getAttribute('class')).not.toContain('field-input-error')
-    await expect.poll(() => page.locator('[data-test=stale]').count()).toBe(0)
+    await expect.poll(() => page.locator('[data-test=stale]').count(), { timeout: 10_000 }).toBe(0)
     await expect.poll(() => saveState.innerText(), { timeout: 10_000 }).toMatch(/^Saved \d\d:\d\d$/)
     expect(await page.locator('[data-test=report]').getAttribute('data-stale')).toBeNull()
 
@@ -161,7 +197,7 @@ describe('the calc-sheet editor', () => {
     // jacking at 100 % of σp,max reads 100 % by definition: it never heads the summary
     const governing = await page.locator('[data-test=governing]').innerText()
     expect(governing).not.toMatch(/jacking/i)
-    await expect.poll(() => page.locator('[data-test=highest-utilisations] li').count()).toBe(3)
+    await expect.poll(() => page.locator('[data-test=highest-utilisations] li').count(), { timeout: 10_000 }).toBe(3)
     const shown = (await page.locator('[data-test=highest-utilisations] li').allInnerTexts()).map(t => Number(/(\d+) %/.exec(t)![1]))
     expect([...shown].sort((a, b) => b - a)).toEqual(shown)
     await screenshot(page, 'sheet-headline')

@@ -11,10 +11,15 @@ export class ApiClient {
   private cookies = new Map<string, string>()
   constructor(readonly baseUrl: string = inject('baseUrl')) {}
 
-  /** Issues a revision of the sheet as it is saved now, naming its current draft version as the editor does. */
+  /** Issues a revision of the sheet as it is saved now, naming its current draft version as the editor does; answers with the revision issued. */
   async issue<T = any>(sheetId: number, body: Record<string, unknown> = {}): Promise<ApiResponse<T>> {
     const sheet = await this.request<{ draftVersion: number }>('GET', `/api/sheets/${sheetId}`)
-    return this.request<T>('POST', `/api/sheets/${sheetId}/revisions`, { draftVersion: sheet.body.draftVersion, ...body })
+    const issued = await this.request('POST', `/api/sheets/${sheetId}/revisions`, { draftVersion: sheet.body.draftVersion, ...body })
+    if (issued.status !== 201) return issued as ApiResponse<T>
+    // the issue answers { id, code, contentHash }; the revision itself reads from its own route
+    const { id, code, contentHash } = issued.body as { id: number, code: string, contentHash: string }
+    if (Object.keys(issued.body as object).length !== 3 || !id || !code || !contentHash) throw new Error(`an issue answered ${JSON.stringify(issued.body).slice(0, 200)}, not { id, code, contentHash }`)
+    return { ...(await this.request<T>('GET', `/api/revisions/${id}`)), status: 201 }
   }
 
   async request<T = any>(method: string, path: string, body?: unknown, headers: Record<string, string> = {}): Promise<ApiResponse<T>> {

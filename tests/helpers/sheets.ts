@@ -39,6 +39,6 @@ export async function spaceTendonsWide(page: Page) {
   const spacing = page.locator('[data-path="tendon.spacing"] input')
   await spacing.fill('1500')
   await spacing.blur()
-  await expect.poll(() => page.locator('[data-test=check-state]').innerText()).toMatch(/checks fail/)
+  await expect.poll(() => page.locator('[data-test=check-state]').innerText(), { timeout: 10_000 }).toMatch(/checks fail/)
   return spacing
 }

@@ -140,7 +140,19 @@ export async function draftVersionOf(sheetId: number) {
 
 /** Issues the sheet's draft as the editor does: naming the draft version on screen, the latest. */
 export async function issue(s: Session, sheetId: number, body: Record<string, unknown> = {}) {
-  return s.json('POST', `/api/sheets/${sheetId}/revisions`, { draftVersion: await draftVersionOf(sheetId), ...body })
+  const issued = await s.json('POST', `/api/sheets/${sheetId}/revisions`, { draftVersion: await draftVersionOf(sheetId), ...body })
+  return issued.status === 201 ? { status: 201, body: await issuedRevision(s, issued.body) } : issued
+}
+
+/**
+ * The revision an issue made, as GET /api/revisions/:id shows it; the issue answers { id, code,
+ * contentHash } and nothing else, which this checks first.
+ */
+export async function issuedRevision(s: Session, answer: { id: number, code: string, contentHash: string }) {
+  if (Object.keys(answer).sort().join() !== 'code,contentHash,id') throw new Error(`an issue answered ${JSON.stringify(answer).slice(0, 200)}, not { id, code, contentHash }`)
+  const detail = await s.json('GET', `/api/revisions/${answer.id}`)
+  if (detail.status !== 200 || detail.body.code !== answer.code || detail.body.contentHash !== answer.contentHash) throw new Error(`the issued revision ${answer.id} reads back as ${detail.status} ${JSON.stringify(detail.body).slice(0, 200)}`)
+  return detail.body
 }
 
 /** Root over the test instance's socket: the one connection that may drop a trigger. */

@@ -4,7 +4,7 @@ import { DEMO_PS2 } from '../../shared/engine/input/demo'
 import { auditHash, revisionHash } from '../../server/utils/hashing'
 import { countRows, withDb } from '../helpers/db'
 import { DEMO } from '../helpers/client'
-import { issue, makeSheet, session, setSheetInputs, triggerSql, userId, waitForMail, withRoot } from './records-fixtures'
+import { draftVersionOf, issue, makeSheet, session, setSheetInputs, triggerSql, userId, waitForMail, withRoot } from './records-fixtures'
 
 async function revisionRow(id: number) {
   return withDb(async (conn) => {
@@ -22,6 +22,16 @@ async function revisionRow(id: number) {
 }
 
 describe('issuing a revision', () => {
+  it('answers the issue with the revision\'s id, code and content hash only', async () => {
+    const { sheetId } = await makeSheet()
+    const engineer = await session('engineer')
+    const res = await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, { draftVersion: await draftVersionOf(sheetId), note: 'small answer' })
+    expect(res.status).toBe(201)
+    const row = await revisionRow(res.body.id)
+    expect(res.body).toEqual({ id: res.body.id, code: 'P01', contentHash: row.contentHash })
+    expect(revisionHash(row)).toBe(row.contentHash)
+  })
+
   it('freezes a run the server computed itself, with its content hash', async () => {
     const { sheetId } = await makeSheet()
     const engineer = await session('engineer')
