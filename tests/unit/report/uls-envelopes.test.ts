@@ -48,7 +48,7 @@ function scales(svg: string): { x: Axis; y: Axis } {
 
 /** The markup inside the group that names a curve. */
 function groupOf(svg: string, label: string): string {
-  const m = svg.match(new RegExp(`<g aria-label="${label}">(.*?)</g>`))
+  const m = svg.match(new RegExp(`<g role="group" aria-label="${label}">(.*?)</g>`))
   expect(m, `group ${label}`).not.toBeNull()
   return m![1]!
 }
