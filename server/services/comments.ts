@@ -46,7 +46,7 @@ export async function setCommentState(event: H3Event, reviewId: number, body: Co
     const [sheet] = await tx.select({ reference: tables.sheets.reference }).from(tables.sheets).where(eq(tables.sheets.id, review.sheetId)).for('update')
     const comments = Array.isArray(review.comments) ? review.comments : []
     if (body.index >= comments.length) {
-      throw createError({ statusCode: 400, message: `index: the review of ${review.code} has ${comments.length} comment${comments.length === 1 ? '' : 's'}, so there is no comment ${body.index + 1}`, data: { fields: { index: 'No such comment' } } })
+      throw createError({ statusCode: 400, message: `Comment: the review of ${review.code} has ${comments.length} comment${comments.length === 1 ? '' : 's'}, so there is no comment ${body.index + 1}`, data: { fields: { index: 'No such comment' } } })
     }
     const cs = tables.commentStates
     const [newest] = await tx.select({ state: cs.state }).from(cs).where(and(eq(cs.reviewId, reviewId), eq(cs.commentIndex, body.index))).orderBy(desc(cs.id)).limit(1)

@@ -41,7 +41,7 @@ export async function createProject(event: H3Event, body: ProjectCreateBody, use
   const db = useDb()
   const [existing] = await db.select({ id: tables.projects.id }).from(tables.projects).where(eq(tables.projects.jobNumber, body.jobNumber)).limit(1)
   if (existing) {
-    throw createError({ statusCode: 409, message: `jobNumber: job ${body.jobNumber} already exists`, data: { fields: { jobNumber: `Job ${body.jobNumber} already exists` } } })
+    throw createError({ statusCode: 409, message: `Job number: job ${body.jobNumber} already exists`, data: { fields: { jobNumber: `Job ${body.jobNumber} already exists` } } })
   }
   const id = await historyTransaction(async (tx) => {
     const [{ id }] = await tx.insert(tables.projects).values({ ...body, createdBy: user.id }).$returningId()

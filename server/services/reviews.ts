@@ -29,7 +29,7 @@ export async function reviewRevision(event: H3Event, revisionId: number, body: R
     const anchors = new Set((rev.sections as Array<{ id: string }>).map(s => s.id))
     const unknown = body.comments.findIndex(c => c.anchor !== '' && !anchors.has(c.anchor))
     if (unknown >= 0) {
-      throw createError({ statusCode: 400, message: `comments.${unknown}.anchor: no section "${body.comments[unknown]!.anchor}" in ${rev.code}`, data: { fields: { [`comments.${unknown}.anchor`]: 'No such section in this revision' } } })
+      throw createError({ statusCode: 400, message: `Comment ${unknown + 1}, section: no section "${body.comments[unknown]!.anchor}" in ${rev.code}`, data: { fields: { [`comments.${unknown}.anchor`]: 'No such section in this revision' } } })
     }
     if (body.decision !== 'comment' && status.status !== 'issued') {
       throw createError({ statusCode: 409, message: `${sheet!.reference} ${rev.code} is ${status.label.toLowerCase()}: it is no longer open for a decision` })

@@ -270,7 +270,7 @@ export async function revisionDiff(id: number, againstId?: number) {
   let base
   if (againstId !== undefined) {
     base = await loadRevision(againstId)
-    if (base.sheetId !== rev.sheetId) throw createError({ statusCode: 400, message: 'against: that revision belongs to another sheet', data: { fields: { against: 'Another sheet' } } })
+    if (base.sheetId !== rev.sheetId) throw createError({ statusCode: 400, message: 'Compared with: that revision belongs to another sheet', data: { fields: { against: 'Another sheet' } } })
   }
   else {
     [base] = await useDb().select().from(r).where(and(eq(r.sheetId, rev.sheetId), eq(r.seq, rev.seq - 1)))

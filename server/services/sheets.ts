@@ -80,10 +80,10 @@ export async function createSheet(projectId: number, body: SheetCreateBody, user
   const [project] = await db.select({ id: tables.projects.id }).from(tables.projects).where(eq(tables.projects.id, projectId)).limit(1)
   if (!project) throw createError({ statusCode: 404, message: `No project with id ${projectId}` })
   const [template] = await db.select().from(tables.templates).where(eq(tables.templates.id, body.templateId)).limit(1)
-  if (!template) throw createError({ statusCode: 400, message: 'templateId: no such template', data: { fields: { templateId: 'No such template' } } })
+  if (!template) throw createError({ statusCode: 400, message: 'Template: no such template', data: { fields: { templateId: 'No such template' } } })
   const [taken] = await db.select({ id: tables.sheets.id }).from(tables.sheets)
     .where(and(eq(tables.sheets.projectId, projectId), eq(tables.sheets.reference, body.reference))).limit(1)
-  if (taken) throw createError({ statusCode: 409, message: `reference: ${body.reference} is already used in this project`, data: { fields: { reference: 'Already used in this project' } } })
+  if (taken) throw createError({ statusCode: 409, message: `Calc reference: ${body.reference} is already used in this project`, data: { fields: { reference: 'Already used in this project' } } })
   const inputs = validateInputs(template.model, await startingInputs(projectId, template, body))
   const [{ id }] = await db.insert(tables.sheets).values({
     projectId, reference: body.reference, title: body.title, partOfStructure: body.partOfStructure,

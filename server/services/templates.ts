@@ -37,7 +37,7 @@ export async function publishTemplate(body: TemplatePublishBody, adminId: number
   return historyTransaction(async (tx) => {
     const [existing] = await tx.select({ v: tables.templates.version, builtin: tables.templates.builtin }).from(tables.templates).where(eq(tables.templates.slug, body.slug)).orderBy(desc(tables.templates.version)).limit(1)
     if (existing && existing.builtin && !builtin) {
-      throw createError({ statusCode: 409, message: `slug: ${body.slug} is a built-in template; publish an office copy under another short name`, data: { fields: { slug: 'Built-in template: choose another short name' } } })
+      throw createError({ statusCode: 409, message: `Short name: ${body.slug} is a built-in template; publish an office copy under another short name`, data: { fields: { slug: 'Built-in template: choose another short name' } } })
     }
     const version = (existing?.v ?? 0) + 1
     const [{ id }] = await tx.insert(tables.templates).values({

@@ -24,7 +24,7 @@ export async function getUser(id: number) {
 export async function createUser(body: UserCreateBody) {
   const db = useDb()
   const [existing] = await db.select({ id: tables.users.id }).from(tables.users).where(eq(tables.users.email, body.email)).limit(1)
-  if (existing) throw createError({ statusCode: 409, message: `email: ${body.email} already has an account`, data: { fields: { email: 'Already has an account' } } })
+  if (existing) throw createError({ statusCode: 409, message: `E-mail: ${body.email} already has an account`, data: { fields: { email: 'Already has an account' } } })
   const passwordHash = await hashPassword(body.password)
   const [{ id }] = await db.insert(tables.users).values({ email: body.email, name: body.name, role: body.role, passwordHash }).$returningId()
   return getUser(id)

@@ -80,7 +80,7 @@ export async function historyTransaction<T>(work: (tx: Tx) => Promise<T>, config
   // a request under an Idempotency-Key records, in the same commit, that its work was done
   const result = await useDb().transaction(async (tx) => {
     const out = await work(tx)
-    await markIdempotentWorkDone(tx)
+    await markIdempotentWorkDone(tx, out)
     return out
   }, config)
   await publishHead()

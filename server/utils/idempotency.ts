@@ -12,12 +12,17 @@ const DONE_ANSWER_LOST = 0
 /** The key of the request being run, for the transaction that does its work to mark it done in the same commit. */
 const running = new AsyncLocalStorage<{ userId: number, key: string }>()
 
-/** Marks the running request's key as done, inside the transaction of its work: the mark and the work commit together. */
-export async function markIdempotentWorkDone(tx: Tx) {
+/**
+ * Marks the running request's key as done, inside the transaction of its work: the mark and the work
+ * commit together, with what the transaction gave back (`outcome`), from which a retry is answered
+ * when the answer itself was lost.
+ */
+export async function markIdempotentWorkDone(tx: Tx, outcome: unknown) {
   const current = running.getStore()
   if (!current) return
   const t = tables.idempotencyKeys
-  await tx.update(t).set({ statusCode: DONE_ANSWER_LOST }).where(and(eq(t.userId, current.userId), eq(t.idempotencyKey, current.key)))
+  const response = outcome === undefined ? null : JSON.parse(JSON.stringify(outcome))
+  await tx.update(t).set({ statusCode: DONE_ANSWER_LOST, response }).where(and(eq(t.userId, current.userId), eq(t.idempotencyKey, current.key)))
 }
 
 /** A statement outside any transaction that only sets values: safe to send again when the connection dropped. */
@@ -43,11 +48,12 @@ function duplicate(error: unknown) {
  * stored with the user and the route, and a retry with the same key gets it back instead of acting
  * again. Without the header the request simply runs.
  * The work's own transaction marks the key done in its commit, so a connection lost after that
- * commit never lets a retry do the work twice.
+ * commit never lets a retry do the work twice: the retry is answered by `answerAgain` from what that
+ * transaction gave back (by default, that itself is the answer).
  * @throws 400 for a malformed key, 422 when the key was used for another request, 409 while the
- * first request with the key is still running, or when it was saved but its answer was lost.
+ * first request with the key is still running.
  */
-export async function idempotent<T>(event: H3Event, userId: number, body: unknown, work: () => Promise<T>): Promise<T> {
+export async function idempotent<T>(event: H3Event, userId: number, body: unknown, work: () => Promise<T>, answerAgain: (outcome: unknown) => Promise<T> = async outcome => outcome as T): Promise<T> {
   const key = getRequestHeader(event, 'idempotency-key')
   if (key === undefined) return work()
   if (!KEY.test(key)) throw createError({ statusCode: 400, message: 'Idempotency-Key: 8 to 100 visible characters, one new key per action' })
@@ -64,7 +70,7 @@ export async function idempotent<T>(event: H3Event, userId: number, body: unknow
       throw createError({ statusCode: 422, message: `This Idempotency-Key was already used for another request${first && first.route !== route ? ` (${first.route})` : ' with different content'}; use a new key for a new action` })
     }
     if (first.statusCode === null) throw createError({ statusCode: 409, message: 'The first request with this Idempotency-Key is still being processed; try again in a moment' })
-    if (first.statusCode === DONE_ANSWER_LOST) throw createError({ statusCode: 409, message: 'Your first request with this Idempotency-Key was saved, but its answer was lost on the way: reload the page to see the result (nothing was done twice)' })
+    if (first.statusCode === DONE_ANSWER_LOST) return answerLost(event, userId, key, first.response, answerAgain)
     setResponseStatus(event, first.statusCode)
     setResponseHeader(event, 'idempotent-replayed', 'true')
     return (typeof first.response === 'string' ? JSON.parse(first.response) : first.response) as T
@@ -79,5 +85,18 @@ export async function idempotent<T>(event: H3Event, userId: number, body: unknow
     throw error
   }
   await again(() => useDb().update(t).set({ statusCode: getResponseStatus(event), response: JSON.parse(JSON.stringify(result)) }).where(and(eq(t.userId, userId), eq(t.idempotencyKey, key))))
+  return result
+}
+
+/** A retry of a request whose work committed but whose answer was lost: answered now, and that answer kept for any further retry. */
+async function answerLost<T>(event: H3Event, userId: number, key: string, outcome: unknown, answerAgain: (outcome: unknown) => Promise<T>): Promise<T> {
+  const stored = typeof outcome === 'string' ? JSON.parse(outcome) : outcome
+  const result = await answerAgain(stored)
+  if (result === null || result === undefined) {
+    throw createError({ statusCode: 409, message: 'Your first request with this Idempotency-Key was saved, but its answer was lost on the way: reload the page to see the result (nothing was done twice)' })
+  }
+  const t = tables.idempotencyKeys
+  await again(() => useDb().update(t).set({ statusCode: getResponseStatus(event), response: JSON.parse(JSON.stringify(result)) }).where(and(eq(t.userId, userId), eq(t.idempotencyKey, key))))
+  setResponseHeader(event, 'idempotent-replayed', 'true')
   return result
 }

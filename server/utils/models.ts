@@ -5,7 +5,7 @@ import { compileSheet } from '../../shared/sheet/runtime'
 /** The input schema of the engine model a template binds to. @throws 400 when there is none. */
 export function inputSchemaFor(name: string): z.ZodType {
   const model = Object.hasOwn(MODELS, name) ? (MODELS[name] as { inputSchema?: z.ZodType }) : undefined
-  if (!model?.inputSchema) throw createError({ statusCode: 400, message: `model: no engine model named "${name}"`, data: { fields: { model: `Unknown model ${name}` } } })
+  if (!model?.inputSchema) throw createError({ statusCode: 400, message: `Model: no engine model named "${name}"`, data: { fields: { model: `Unknown model ${name}` } } })
   return model.inputSchema
 }
 
@@ -19,7 +19,7 @@ export function checkTemplate(text: string): { title: string, model: string } {
     throw createError({
       statusCode: 400,
       statusMessage: 'Template does not load',
-      message: `body: the template cannot be loaded —\n${compiled.errors.join('\n')}`,
+      message: `Template text: the template cannot be loaded —\n${compiled.errors.join('\n')}`,
       data: { fields: { body: compiled.errors.join('; ') }, problems: compiled.errors },
     })
   }

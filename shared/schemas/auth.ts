@@ -20,10 +20,14 @@ export const userCreateSchema = z.object({
 
 export const userUpdateSchema = z.object({
   role: z.enum(ROLES, { message: `Role must be one of ${ROLES.join(', ')}` }).optional(),
-  disabled: z.boolean().optional(),
+  disabled: z.boolean({ message: 'Account disabled: yes or no' }).optional(),
   name: textField('Name').trim().min(2, 'Enter the person’s name').max(120, 'Name is too long').optional(),
   password: passwordSchema.optional(),
-}).refine(v => Object.keys(v).length > 0, { message: 'Nothing to change' })
+}).refine(v => Object.keys(v).length > 0, { message: 'Nothing to change: give a new name, role, password or whether the account is disabled' })
+
+/** The sign-in form's and the people page's fields, as the forms label them. */
+export const SIGNIN_FIELD_LABELS = { email: 'E-mail', password: 'Password' }
+export const USER_FIELD_LABELS = { email: 'E-mail', name: 'Name', role: 'Role', password: 'Password', disabled: 'Account disabled' }
 
 export type SigninBody = z.infer<typeof signinSchema>
 export type UserCreateBody = z.infer<typeof userCreateSchema>

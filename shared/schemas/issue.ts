@@ -22,5 +22,9 @@ export const ISSUE_FIELD_LABELS: Record<string, string> = {
   note: 'Note for the checker',
   failingChecksReason: 'Reason for issuing with failing checks',
   replies: 'Replies to the comments',
+  'replies.*': 'Reply {n}',
+  'replies.*.text': 'Reply {n}',
+  'replies.*.reviewId': 'Reply {n}',
+  'replies.*.index': 'Reply {n}',
   draftVersion: 'Draft version',
 }

@@ -14,10 +14,12 @@ export const projectCreateSchema = z.object({
   site: textField('Site').trim().max(200, 'Site is at most 200 characters').default(''),
 })
 
+export const PROJECT_FIELD_LABELS = { jobNumber: 'Job number', name: 'Project name', client: 'Client', site: 'Site' }
+
 export type ProjectCreateBody = z.infer<typeof projectCreateSchema>
 
 export const idParamSchema = z.object({
-  id: recordId('id must be a positive whole number'),
+  id: recordId('must be a positive whole number'),
 })
 
 /** One schema for the membership form of the people page and the route that adds a member or changes their role. */
@@ -26,9 +28,11 @@ export const memberSetSchema = z.object({
   role: z.enum(PROJECT_ROLES, { message: 'Choose the role on the project: engineer, checker or records' }),
 })
 
+export const MEMBER_FIELD_LABELS = { userId: 'Person', role: 'Role on the project' }
+
 export type MemberSetBody = z.infer<typeof memberSetSchema>
 
 export const memberParamSchema = z.object({
-  id: recordId('id must be a positive whole number'),
-  userId: recordId('userId must be a positive whole number'),
+  id: recordId('must be a positive whole number'),
+  userId: recordId('must be a positive whole number'),
 })

@@ -9,9 +9,11 @@ export const commentRef = z.object({
 
 /** The checker closes a comment, or opens it again. One schema for the button and the route. */
 export const commentStateSchema = z.object({
-  index: z.number({ message: 'index must be a number' }).int().min(0, 'index counts from 0'),
-  state: z.enum(['open', 'closed'], { message: 'state is open or closed' }),
+  index: z.number({ message: 'choose which comment' }).int('choose which comment').min(0, 'choose which comment'),
+  state: z.enum(['open', 'closed'], { message: 'open or closed' }),
 })
+
+export const COMMENT_STATE_LABELS = { index: 'Comment', state: 'Comment state' }
 
 export type CommentStateBody = z.infer<typeof commentStateSchema>
 

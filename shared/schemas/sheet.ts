@@ -51,4 +51,6 @@ export const templatePublishSchema = z.object({
   body: textField('Template text').min(20, 'The template is empty').max(400_000, 'The template is too long (400 000 characters at most)'),
 })
 
+export const TEMPLATE_FIELD_LABELS = { slug: 'Short name', body: 'Template text' }
+
 export type TemplatePublishBody = z.infer<typeof templatePublishSchema>

@@ -15,9 +15,25 @@ export function fieldErrors(error: z.ZodError): FieldErrors {
 /** How a field is called where people read it: a map of labels, or a function of the path. */
 export type FieldLabels = Record<string, string> | ((path: string) => string)
 
+/**
+ * Labels from a map whose keys may stand for list elements with `*`, numbered from 1 where the
+ * label says `{n}`: `{ 'comments.*.text': 'Comment {n}' }` calls `comments.2.text` "Comment 3".
+ * A body that is not an object at all, `(body)`, is "The request".
+ */
+export function labelsFrom(map: Record<string, string>): (path: string) => string {
+  return (path) => {
+    const exact = map[path] ?? (path === '(body)' ? 'The request' : undefined)
+    if (exact) return exact
+    const numbers: number[] = []
+    const pattern = path.split('.').map(seg => (/^\d+$/.test(seg) ? (numbers.push(Number(seg) + 1), '*') : seg)).join('.')
+    const label = map[pattern] ?? map[pattern.split('.')[0]!]
+    return label ? label.replace(/\{n\}/g, () => String(numbers.shift() ?? '')) : path
+  }
+}
+
 function labelOf(labels: FieldLabels | undefined, path: string): string {
   if (!labels) return path
-  return typeof labels === 'function' ? labels(path) : labels[path] ?? path
+  return typeof labels === 'function' ? labels(path) : labelsFrom(labels)(path)
 }
 
 /**

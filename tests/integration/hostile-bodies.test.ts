@@ -15,7 +15,8 @@ const BODIES_PER_ROUTE = process.env.TENDONBOOK_STRESS ? 1000 : 100
 const MUTATING = Object.keys(ACCESS_RULES).filter(k => /^(POST|PUT|PATCH|DELETE) /.test(k))
 
 type Kind = 'text' | 'number' | 'boolean' | 'object' | 'array'
-interface Field { kind: Kind, label: string, required: boolean }
+/** `label`: how messages must call the field; `element`: how they call one element of a list field */
+interface Field { kind: Kind, label: string, required: boolean, element?: string }
 interface RouteSpec {
   /** who calls it: a session allowed to */
   caller: () => Session
@@ -40,17 +41,17 @@ const SPECS: Record<string, RouteSpec> = {
   'POST /api/templates': { caller: () => admin, path: () => '/api/templates', fields: { slug: text('Short name'), body: text('Template text') }, base: () => ({ slug: 'fuzz-template', body: '---\nmodel: pt-member\ntitle: Fuzz\nversion: 1\n---\n# Fuzz\n' }) },
   'POST /api/admin/office': { caller: () => admin, path: () => '/api/admin/office', fields: null },
   'POST /api/admin/users': { caller: () => admin, path: () => '/api/admin/users', fields: { email: text('E-mail'), name: text('Name'), role: text('Role'), password: text('Password') }, base: () => ({ email: 'fuzz-person@tendonbook.local', name: 'Fuzz Person', role: 'engineer', password: 'a-long-enough-password' }) },
-  'PATCH /api/admin/users/:id': { caller: () => admin, path: () => `/api/admin/users/${ids.personId}`, fields: { name: text('Name', false), role: text('Role', false), disabled: { kind: 'boolean', label: 'disabled', required: false }, password: text('Password', false) }, base: () => ({ name: 'Fuzz Target', role: 'engineer', disabled: false, password: 'a-long-enough-password' }) },
-  'POST /api/admin/projects/:id/members': { caller: () => admin, path: () => `/api/admin/projects/${ids.projectId}/members`, fields: { userId: num('person'), role: text('role') }, base: () => ({ userId: ids.personId, role: 'checker' }) },
+  'PATCH /api/admin/users/:id': { caller: () => admin, path: () => `/api/admin/users/${ids.personId}`, fields: { name: text('Name', false), role: text('Role', false), disabled: { kind: 'boolean', label: 'Account disabled', required: false }, password: text('Password', false) }, base: () => ({ name: 'Fuzz Target', role: 'engineer', disabled: false, password: 'a-long-enough-password' }) },
+  'POST /api/admin/projects/:id/members': { caller: () => admin, path: () => `/api/admin/projects/${ids.projectId}/members`, fields: { userId: num('Person'), role: text('Role on the project') }, base: () => ({ userId: ids.personId, role: 'checker' }) },
   'DELETE /api/admin/projects/:id/members/:userId': { caller: () => admin, path: () => `/api/admin/projects/${ids.projectId}/members/${ids.personId}`, fields: null },
   'POST /api/projects': { caller: () => engineer, path: () => '/api/projects', fields: { jobNumber: text('Job number'), name: text('Project name'), client: text('Client', false), site: text('Site', false) }, base: () => ({ jobNumber: 'FZ-1', name: 'Fuzz project', client: 'Fuzz', site: 'Fuzz' }) },
-  'POST /api/projects/:id/sheets': { caller: () => engineer, path: () => `/api/projects/${ids.projectId}/sheets`, fields: { reference: text('Calc reference'), title: text('Title'), partOfStructure: text('Part of structure', false), templateId: num('template'), spans: { kind: 'array', label: 'span', required: false }, copyFrom: num('Start from', false) }, base: () => ({ reference: 'FZ-1', title: 'Fuzz sheet', partOfStructure: 'Fuzz', templateId: ids.templateId, spans: [7.8, 9.6] }) },
-  'PUT /api/sheets/:id/draft': { caller: () => engineer, path: () => `/api/sheets/${ids.sheetId}/draft`, fields: { inputs: { kind: 'object', label: 'inputs', required: true }, draftVersion: num('draft version'), body: text('Sheet text', false) }, base: () => ({ inputs: {}, draftVersion: 1, body: null }) },
+  'POST /api/projects/:id/sheets': { caller: () => engineer, path: () => `/api/projects/${ids.projectId}/sheets`, fields: { reference: text('Calc reference'), title: text('Title'), partOfStructure: text('Part of structure', false), templateId: num('Template'), spans: { kind: 'array', label: 'Spans', element: 'Span ', required: false }, copyFrom: num('Start from', false) }, base: () => ({ reference: 'FZ-1', title: 'Fuzz sheet', partOfStructure: 'Fuzz', templateId: ids.templateId, spans: [7.8, 9.6] }) },
+  'PUT /api/sheets/:id/draft': { caller: () => engineer, path: () => `/api/sheets/${ids.sheetId}/draft`, fields: { inputs: { kind: 'object', label: 'Inputs', required: true }, draftVersion: num('Draft version'), body: text('Sheet text', false) }, base: () => ({ inputs: {}, draftVersion: 1, body: null }) },
   'POST /api/sheets/:id/upgrade-template': { caller: () => engineer, path: () => `/api/sheets/${ids.sheetId}/upgrade-template`, fields: null },
   'POST /api/sheets/:id/attachments': { caller: () => engineer, path: () => `/api/sheets/${ids.sheetId}/attachments`, fields: null },
-  'POST /api/sheets/:id/revisions': { caller: () => engineer, path: () => `/api/sheets/${ids.sheetId}/revisions`, fields: { note: text('Note for the checker', false), failingChecksReason: text('Reason for issuing with failing checks', false), replies: { kind: 'array', label: 'Replies', required: false }, draftVersion: num('Draft version') }, base: () => ({ note: 'fuzz', failingChecksReason: 'fuzz', replies: [], draftVersion: 1 }) },
-  'POST /api/revisions/:id/reviews': { caller: () => checker, path: () => `/api/revisions/${ids.revisionId}/reviews`, fields: { decision: text('decision'), comments: { kind: 'array', label: 'comments', required: false } }, base: () => ({ decision: 'comment', comments: [{ anchor: '', text: 'fuzz' }] }) },
-  'POST /api/reviews/:id/comment-state': { caller: () => checker, path: () => `/api/reviews/${ids.reviewId}/comment-state`, fields: { index: num('index'), state: text('state') }, base: () => ({ index: 0, state: 'closed' }) },
+  'POST /api/sheets/:id/revisions': { caller: () => engineer, path: () => `/api/sheets/${ids.sheetId}/revisions`, fields: { note: text('Note for the checker', false), failingChecksReason: text('Reason for issuing with failing checks', false), replies: { kind: 'array', label: 'Replies to the comments', element: 'Reply ', required: false }, draftVersion: num('Draft version') }, base: () => ({ note: 'fuzz', failingChecksReason: 'fuzz', replies: [], draftVersion: 1 }) },
+  'POST /api/revisions/:id/reviews': { caller: () => checker, path: () => `/api/revisions/${ids.revisionId}/reviews`, fields: { decision: text('Decision'), comments: { kind: 'array', label: 'Comments', element: 'Comment ', required: false } }, base: () => ({ decision: 'comment', comments: [{ anchor: '', text: 'fuzz' }] }) },
+  'POST /api/reviews/:id/comment-state': { caller: () => checker, path: () => `/api/reviews/${ids.reviewId}/comment-state`, fields: { index: num('Comment'), state: text('Comment state') }, base: () => ({ index: 0, state: 'closed' }) },
   'POST /api/revisions/:id/seal': { caller: () => records, path: () => `/api/revisions/${ids.revisionId}/seal`, fields: null },
   'POST /api/revisions/:id/reseal-check': { caller: () => records, path: () => `/api/revisions/${ids.revisionId}/reseal-check`, fields: null },
   'POST /api/verify': { caller: () => records, path: () => '/api/verify', fields: { query: text('Hash or reference') }, base: () => ({ query: 'TB-0000' }) },
@@ -200,8 +201,12 @@ describe('hostile bodies on every route that changes something', () => {
         tried += 1
         if (res.status >= 500) serverErrors += 1
         const message = res.body?.message ?? ''
-        const named = body.fault === null || message.toLowerCase().includes(spec.fields![body.fault]!.label.toLowerCase()) || message.toLowerCase().includes(body.fault.toLowerCase())
-        if (res.status < 400 || res.status >= 500 || generic.test(message) || !named) {
+        // the field at fault by its label (or one element of a list by its number), never by its path
+        const field = body.fault === null ? null : spec.fields![body.fault]!
+        const said = message.toLowerCase()
+        const named = field === null || said.includes(field.label.toLowerCase()) || (field.element !== undefined && said.includes(field.element.toLowerCase()))
+        const path = Object.keys(spec.fields!).find(name => name.toLowerCase() !== spec.fields![name]!.label.toLowerCase() && new RegExp(`(^|; )${name}(\\.\\d+)*(\\.\\w+)?:`).test(message))
+        if (res.status < 400 || res.status >= 500 || generic.test(message) || !named || path) {
           problems.push(`${res.status} ${message.slice(0, 160)} ← ${body.text.slice(0, 160)}`)
         }
       }

@@ -21,7 +21,9 @@ describe('projects', () => {
     const res = await client.post('/api/projects', { jobNumber: 'bad job!', name: 'ab' })
     expect(res.status).toBe(400)
     expect(Object.keys(res.body.data.fields).sort()).toEqual(['jobNumber', 'name'])
-    expect(res.body.message).toContain('jobNumber')
+    // in the form's words: labels, never the field's path
+    expect(res.body.message).toMatch(/^Job number: .+; Project name: .+$/)
+    expect(res.body.message).not.toContain('jobNumber')
     expect(await countRows('projects')).toBe(before)
   })
 

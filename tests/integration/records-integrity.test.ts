@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest'
 import { DEMO_PS2 } from '../../shared/engine/input/demo'
 import { verifyTreeHead } from '../../shared/log/tree-head'
 import { countRows, withDb } from '../helpers/db'
-import { chainBreaks, issue, makeSheet, newPerson, session, userId, withoutTriggers } from './records-fixtures'
+import { chainBreaks, issue, makeSheet, newPerson, session, userId, withoutTriggers, withRoot } from './records-fixtures'
 
 const LONE = '\ud800'
 
@@ -266,5 +266,42 @@ describe('retries with an Idempotency-Key', () => {
     expect(resent.status).toBe(201)
     expect(resent.body.seal).toEqual(sealed.body.seal)
     expect(await countRows('seals', 'revision_id = ?', [rev.id])).toBe(1)
+  })
+
+  it('answers a retry with the first result also when the work committed but its answer was lost on the way', async () => {
+    const { sheetId } = await makeSheet()
+    const engineer = await session('engineer')
+    const checker = await session('checker')
+    const records = await session('records')
+    // the state a dropped connection leaves: the work's own commit marked the key done with what the
+    // transaction gave back, and the answer was never stored (status 0); as root, since the app cannot
+    const loseAnswer = (key: string, outcome: unknown) => withRoot(c => c.query('UPDATE idempotency_keys SET status_code = 0, response = ? WHERE idempotency_key = ?', [outcome === null ? null : JSON.stringify(outcome), key]))
+    const issueKey = newKey()
+    const issued = await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, { note: 'answer lost', draftVersion: 1 }, { 'idempotency-key': issueKey })
+    expect(issued.status).toBe(201)
+    await loseAnswer(issueKey, { id: issued.body.id, code: issued.body.code, contentHash: issued.body.contentHash })
+    const issuedAgain = await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, { note: 'answer lost', draftVersion: 1 }, { 'idempotency-key': issueKey })
+    expect(issuedAgain.status).toBe(201)
+    expect(issuedAgain.body).toEqual(issued.body)
+    expect(await countRows('revisions', 'sheet_id = ?', [sheetId])).toBe(1)
+
+    const approveKey = newKey()
+    const approved = await checker.json('POST', `/api/revisions/${issued.body.id}/reviews`, { decision: 'approve' }, { 'idempotency-key': approveKey })
+    expect(approved.status).toBe(201)
+    await loseAnswer(approveKey, null)
+    const approvedAgain = await checker.json('POST', `/api/revisions/${issued.body.id}/reviews`, { decision: 'approve' }, { 'idempotency-key': approveKey })
+    expect(approvedAgain.status).toBe(201)
+    expect(approvedAgain.body.status).toEqual(approved.body.status)
+    expect(approvedAgain.body.reviews).toEqual(approved.body.reviews)
+    expect(await countRows('reviews', 'revision_id = ?', [issued.body.id])).toBe(1)
+
+    const sealKey = newKey()
+    const sealed = await records.json('POST', `/api/revisions/${issued.body.id}/seal`, undefined, { 'idempotency-key': sealKey })
+    expect(sealed.status).toBe(201)
+    await loseAnswer(sealKey, null)
+    const sealedAgain = await records.json('POST', `/api/revisions/${issued.body.id}/seal`, undefined, { 'idempotency-key': sealKey })
+    expect(sealedAgain.body.seal).toEqual(sealed.body.seal)
+    expect(await countRows('seals', 'revision_id = ?', [issued.body.id])).toBe(1)
+    expect((await chainBreaks(records)).breaks).toEqual([])
   })
 })

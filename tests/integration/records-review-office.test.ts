@@ -32,7 +32,7 @@ describe('comment states', () => {
     const bad = await checker.json('POST', `/api/reviews/${reviewId}/comment-state`, { index: 3, state: 'closed' })
     expect(bad.status).toBe(400)
     expect(bad.body.message).toContain('has 1 comment, so there is no comment 4')
-    expect((await checker.json('POST', `/api/reviews/${reviewId}/comment-state`, { index: 0, state: 'shut' })).body.message).toContain('state is open or closed')
+    expect((await checker.json('POST', `/api/reviews/${reviewId}/comment-state`, { index: 0, state: 'shut' })).body.message).toContain('Comment state: open or closed')
     expect((await checker.json('POST', '/api/reviews/99999999/comment-state', { index: 0, state: 'closed' })).status).toBe(404)
     expect((await engineer.json('POST', `/api/reviews/${reviewId}/comment-state`, { index: 0, state: 'closed' })).status).toBe(403)
     expect((await checker.json('POST', `/api/reviews/${reviewId}/comment-state`, { index: 0, state: 'open' })).status).toBe(409)

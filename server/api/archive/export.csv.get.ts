@@ -1,7 +1,7 @@
-import { archiveQuery } from '../../utils/records-schemas'
+import { ARCHIVE_QUERY_LABELS, archiveQuery } from '../../utils/records-schemas'
 
 export default defineEventHandler(async (event) => {
-  const query = validQuery(event, archiveQuery)
+  const query = validQuery(event, archiveQuery, ARCHIVE_QUERY_LABELS)
   const user = await authorize(event)
   const csv = registerCsv(await archiveRegister(query, user.id))
   setResponseHeaders(event, {

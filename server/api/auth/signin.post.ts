@@ -1,13 +1,13 @@
 import { randomBytes } from 'node:crypto'
 import { eq } from 'drizzle-orm'
-import { signinSchema } from '../../../shared/schemas/auth'
+import { SIGNIN_FIELD_LABELS, signinSchema } from '../../../shared/schemas/auth'
 
 // An unknown e-mail costs one password check too, against a hash of a random password, so the
 // answer's timing does not tell which e-mails have accounts.
 let unknownAccountHash: Promise<string> | undefined
 
 export default defineEventHandler(async (event) => {
-  const { email, password } = await validBody(event, signinSchema)
+  const { email, password } = await validBody(event, signinSchema, SIGNIN_FIELD_LABELS)
   const address = clientAddress(event)
   await countSigninAttempt(event, email, address)
 

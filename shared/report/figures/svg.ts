@@ -180,6 +180,9 @@ export function markValues(marks: readonly PlotMark[] | undefined): number[] {
   return (marks ?? []).filter((m) => m.axis === 'y' && Number.isFinite(m.value)).map((m) => m.value)
 }
 
+/** A white outline behind a label's letters, so that a label over a curve stays readable. */
+const HALO = 'stroke="#fff" stroke-width="3" stroke-linejoin="round" paint-order="stroke"'
+
 /**
  * Each mark as a dash-dot line across the plot (horizontal at a value, vertical at a place along the
  * member) with its name and value at the end, in a group named for it. A place beyond the member
@@ -195,15 +198,15 @@ export function markLines(f: Frame, x: ScaleLinear<number, number>, y: ScaleLine
     if (!Number.isFinite(m.value)) return ''
     if (m.axis === 'y') {
       const py = y(m.value)
-      return `<g aria-label="${esc(`${m.label} = ${round(m.value)} ${unit}`)}">${hline(f.left, f.width - f.right, py, stroke, dash)}`
-        + text(f.width - f.right - 2, py - 4, `${m.label} = ${round(m.value)} ${unit}`, 'font-size="10" text-anchor="end"') + '</g>'
+      return `<g role="group" aria-label="${esc(`${m.label} = ${round(m.value)} ${unit}`)}">${hline(f.left, f.width - f.right, py, stroke, dash)}`
+        + text(f.width - f.right - 2, py - 4, `${m.label} = ${round(m.value)} ${unit}`, `font-size="10" text-anchor="end" ${HALO}`) + '</g>'
     }
     if (m.value < x0 || m.value > x1) {
       beyond += 1
       return text(f.left + 4, f.top + 12 * beyond, `${m.label} = ${round(m.value)} m lies beyond the member`, 'font-size="9"')
     }
     const px = x(m.value)
-    return `<g aria-label="${esc(`${m.label} = ${round(m.value)} m`)}">${vline(px, f.top, f.height - f.bottom, stroke, dash)}`
-      + text(px + 3, f.top + 10, `${m.label} = ${round(m.value)} m`, 'font-size="10"') + '</g>'
+    return `<g role="group" aria-label="${esc(`${m.label} = ${round(m.value)} m`)}">${vline(px, f.top, f.height - f.bottom, stroke, dash)}`
+      + text(px + 3, f.top + 10, `${m.label} = ${round(m.value)} m`, `font-size="10" ${HALO}`) + '</g>'
   }).join('')
 }

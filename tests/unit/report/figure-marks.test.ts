@@ -55,7 +55,7 @@ function valueAxis(svg: string): { valueAt(y: number): number; ticks: number[] }
 
 /** The mark's line: the group named for it holds one line. */
 function markLine(svg: string, label: string): { x1: number; y1: number; x2: number; y2: number } {
-  const group = svg.match(new RegExp(`<g aria-label="${label.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}">([\\s\\S]*?)</g>`))
+  const group = svg.match(new RegExp(`<g role="group" aria-label="${label.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}">([\\s\\S]*?)</g>`))
   expect(group, label).not.toBeNull()
   const line = startTags(group![1]!).find((t) => t.name === 'line')!
   const at = (name: string): number => Number(line.attrs.find((a) => a.name === name)!.value)

@@ -28,7 +28,7 @@ describe('PS-3, with the façade worked out by hand', () => {
     const report = renderReport(compileTemplate(text, ptMemberModel), { inputs: DEMO_PS3, results: designMember(DEMO_PS3), mode: 'frozen' })
     expect(report.html).not.toContain('tb-calc-problem')
     // by hand: w = 3.6 m × 2.05 kN/m² = 7.38 kN/m; M = −7.38 kN/m × 1 m × 2.3 m = −16.974 kNm
-    expect(report.html).toContain('<g aria-label="M_f = −16.97 kNm">')
+    expect(report.html).toContain('<g role="group" aria-label="M_f = −16.97 kNm">')
     const own = report.checks.filter((c) => c.group === 'own')
     expect(own).toHaveLength(1)
     expect(own[0]!.pass).toBe(true)

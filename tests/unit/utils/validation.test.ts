@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest'
-import { projectCreateSchema } from '../../../shared/schemas/project'
+import { PROJECT_FIELD_LABELS, projectCreateSchema } from '../../../shared/schemas/project'
 import { userCreateSchema } from '../../../shared/schemas/auth'
-import { describeFieldErrors, fieldErrors } from '../../../shared/utils/validation'
+import { ISSUE_FIELD_LABELS } from '../../../shared/schemas/issue'
+import { describeFieldErrors, fieldErrors, labelsFrom } from '../../../shared/utils/validation'
 
 describe('shared form schemas', () => {
   it('names every field at fault', () => {
@@ -10,6 +11,16 @@ describe('shared form schemas', () => {
     const errors = fieldErrors(result.error!)
     expect(Object.keys(errors).sort()).toEqual(['jobNumber', 'name'])
     expect(describeFieldErrors(errors)).toMatch(/^jobNumber: .+; name: .+$/)
+    expect(describeFieldErrors(errors, PROJECT_FIELD_LABELS)).toMatch(/^Job number: .+; Project name: .+$/)
+  })
+
+  it('calls an element of a list by its number from 1, and a body that is no object the request', () => {
+    const label = labelsFrom(ISSUE_FIELD_LABELS)
+    expect(label('replies.2.text')).toBe('Reply 3')
+    expect(label('replies.0')).toBe('Reply 1')
+    expect(label('replies')).toBe('Replies to the comments')
+    expect(label('(body)')).toBe('The request')
+    expect(labelsFrom({ 'rows.*.cells.*': 'Row {n}, cell {n}' })('rows.1.cells.4')).toBe('Row 2, cell 5')
   })
 
   it('trims and fills defaults', () => {

@@ -1,10 +1,11 @@
-import { reviewBody, revisionIdParams } from '../../../utils/records-schemas'
+import { REVIEW_FIELD_LABELS, reviewBody, revisionIdParams } from '../../../utils/records-schemas'
 
 /** A decision (return, approve) or a comment; the role on the project and the author rule are checked in the service. */
 export default defineEventHandler(async (event) => {
   const { id } = validParams(event, revisionIdParams)
   const user = await authorize(event, id)
-  const body = await validBody(event, reviewBody)
+  const body = await validBody(event, reviewBody, REVIEW_FIELD_LABELS)
   setResponseStatus(event, 201)
-  return idempotent(event, user.id, { id, ...body }, () => reviewRevision(event, id, body, user))
+  // a retry whose first answer was lost is answered with the revision as it now stands, as the first would have been
+  return idempotent(event, user.id, { id, ...body }, () => reviewRevision(event, id, body, user), () => getRevisionDetail(id, user))
 })

@@ -4,5 +4,6 @@ export default defineEventHandler(async (event) => {
   const { id } = validParams(event, revisionIdParams)
   const user = await authorize(event, id)
   setResponseStatus(event, 201)
-  return idempotent(event, user.id, { id }, () => sealRevision(event, id, user))
+  // sealing is idempotent per revision: a retry whose first answer was lost gets that seal
+  return idempotent(event, user.id, { id }, () => sealRevision(event, id, user), () => sealRevision(event, id, user))
 })
