@@ -1,6 +1,7 @@
 // Faults under the running product: the database killing the app's connections in the middle of an
-// issue, the database stopped and started again, Chromium killed in the middle of a seal. Each
-// answer is a clean error in words (never a bare 500), the product recovers without a restart,
+// issue, the database stopped and started again, the SMTP peer stopped and started again, seals
+// rendered under load (each must print again to its sealed bytes), Chromium killed in the middle of
+// a seal. Each answer is a clean error in words (never a bare 500), the product recovers without a restart,
 // and nothing is lost or half-written: every revision that was confirmed is there, no revision is
 // there twice, and the history verifies whole. Killing Chromium mid-seal runs under `npm run test:stress`.
 import { readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs'
@@ -159,6 +160,43 @@ describe('the SMTP peer stops and starts again', () => {
     }
     expect(copies).toBe(1)
     expect((await outboxRows(jobNumber))[0]).toMatchObject({ state: 'sent', attempts: 2 })
+    survived += 1
+  })
+})
+
+/** A request that the server may refuse while its renders are full: sent again after the Retry-After it gives. */
+async function whenRenderFree<T extends { status: number }>(send: () => Promise<T>, attempts = 12): Promise<T> {
+  for (let attempt = 1; ; attempt++) {
+    const res = await send()
+    if (res.status !== 503 || attempt >= attempts) return res
+    await sleep(2_000)
+  }
+}
+
+describe('sealing under load', () => {
+  it('seals three revisions at once, then renders all three again at once, to the very bytes sealed', async () => {
+    const approved: number[] = []
+    for (let i = 0; i < 3; i++) {
+      const { sheetId } = await makeSheet()
+      const issued = await engineer.json('POST', `/api/sheets/${sheetId}/revisions`, { draftVersion: await draftVersionOf(sheetId), note: `Sealed under load, ${i + 1} of 3` })
+      expect(issued.status).toBe(201)
+      expect((await checker.json('POST', `/api/revisions/${issued.body.id}/reviews`, { decision: 'approve' })).status).toBe(201)
+      approved.push(issued.body.id)
+    }
+    injected += 1
+    // three seals at once (each renders two or three times): more renders than the server has cores
+    const seals = await Promise.all(approved.map(id => whenRenderFree(() => records.json('POST', `/api/revisions/${id}/seal`))))
+    expect(seals.map(w => w.status)).toEqual([201, 201, 201])
+    // and three renders of the sealed revisions at once: under load, each gives its sealed bytes
+    const checks = await Promise.all(approved.map(id => whenRenderFree(() => records.json('POST', `/api/revisions/${id}/reseal-check`))))
+    expect(checks.map(c => c.status)).toEqual([200, 200, 200])
+    for (const [i, check] of checks.entries()) {
+      expect(check.body.identical, JSON.stringify(check.body).slice(0, 300)).toBe(true)
+      expect(check.body.sealedSha256).toBe(seals[i]!.body.seal.pdfSha256)
+      // deterministic, not a vote: the first render under load is already the sealed one
+      expect(check.body.renders).toBe(1)
+    }
+    expect((await chainBreaks(records)).breaks).toEqual([])
     survived += 1
   })
 })
