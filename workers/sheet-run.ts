@@ -2,7 +2,7 @@
  * The editor's engine and report renderer, off the page's main thread: a request per change of the
  * inputs or the sheet's text, answered in order (shared/sheet/live-run.ts does the work).
  */
-import { seedTypesetCache } from '../shared/report/render'
+import { seedTypesetCache } from '../shared/report/typeset'
 import { createLiveRunner, type LiveRequest } from '../shared/sheet/live-run'
 
 const runner = createLiveRunner()

@@ -3,24 +3,29 @@
  * editor's jump links), every check with the section it is shown in, and the keys that had no value.
  * The same code serves the editor (mode 'edit': live input fields), the frozen view and print.
  * Output depends only on its arguments: the same inputs give the same bytes (frozen revisions are
- * hashed and printed).
+ * hashed and printed). Formulas are typeset in typeset.ts, the engineer's calculation blocks are
+ * evaluated and shown by calc-blocks.ts, and figures are drawn by figure-blocks.ts.
  */
-import katex from 'katex'
 import type { Env, Renderer, Token } from 'markdown-it'
 import type { CheckResult } from '../engine/contract'
 import { formatQuantity, fromEngine } from '../utils/units'
 import { describeKey, inputPath, resolvePath } from './bind'
 import type { KeyInfo, PathScope } from './bind'
+import { evaluateCalcBlocks, renderCalc } from './calc-blocks'
 import type { CompiledTemplate } from './compile'
+import { renderFigure } from './figure-blocks'
+import type { FigureSource, SheetImage } from './figure-blocks'
 import { checkPrecision, escapeHtml, inputText, valueTex, valueText } from './format'
 import { isLocalImage, md } from './markdown'
 import type { BlockMeta, InlineMeta } from './markdown'
-import type { FigureMark, ModelFigure, ReportModel } from './model'
+import type { ReportModel } from './model'
 import type { MathMeta } from './parse'
-import { CALC_PREFIX, markNames, parseKey } from './syntax'
+import { CALC_PREFIX, parseKey } from './syntax'
 import { tallyByGroup, tallyChecks, tallyText } from './tally'
-import { evaluateCalcBlock, quantityIn } from '../calc/quantities'
+import { typeset } from './typeset'
 import type { CalcBlockResult, CalcQuantity, SheetValue } from '../calc/quantities'
+
+export type { SheetImage } from './figure-blocks'
 
 export type RenderMode = 'edit' | 'frozen' | 'print'
 
@@ -37,8 +42,6 @@ export interface RenderOptions {
    */
   images?: Readonly<Record<string, SheetImage>>
 }
-
-export interface SheetImage { src: string; sha256: string }
 
 export interface ReportSection {
   id: string
@@ -110,16 +113,6 @@ interface ReportEnv {
   /** how many template blocks of any kind (each included) enclose them */
   blockDepth: number
 }
-
-const KATEX_OPTIONS = {
-  trust: false,
-  maxSize: 10,
-  maxExpand: 1000,
-  throwOnError: false,
-  strict: 'ignore',
-  errorColor: '#a33b2f',
-  output: 'htmlAndMathml',
-} as const
 
 const VAL_IN_MATH = /\\val\s*\{([^{}]*)\}/g
 // Marks a summary row's section until every check table has been placed (NUL never survives markdown-it's input normalisation).
@@ -219,35 +212,6 @@ function renderMath(token: Token, display: boolean, env: ReportEnv): string {
     return k ? resolveValue(env, k.segments, k.key, k.line).tex : whole
   })
   return display ? `<div class="tb-math">${typeset(tex, true)}</div>\n` : typeset(tex, false)
-}
-
-// KaTeX output depends only on the TeX and the mode; most formulas repeat from one keystroke to the next.
-const typesetCache = new Map<string, string>()
-const TYPESET_CACHE_SIZE = 4000
-
-/** The formulas typeset so far (key, html), for another thread's renderer to start from. */
-export function typesetCacheEntries(): Array<[string, string]> {
-  return [...typesetCache]
-}
-
-/** Starts this thread's formula cache from another's: KaTeX's output depends only on the TeX and the mode. */
-export function seedTypesetCache(entries: ReadonlyArray<readonly [string, string]>): void {
-  for (const [key, html] of entries.slice(0, TYPESET_CACHE_SIZE - typesetCache.size)) typesetCache.set(key, html)
-}
-
-function typeset(tex: string, display: boolean): string {
-  const key = `${display ? 'D' : 'I'}${tex}`
-  const cached = typesetCache.get(key)
-  if (cached !== undefined) return cached
-  let html: string
-  try {
-    html = katex.renderToString(tex, { ...KATEX_OPTIONS, displayMode: display })
-  } catch {
-    html = `<span class="tb-math-error">${escapeHtml(tex)}</span>`
-  }
-  if (typesetCache.size >= TYPESET_CACHE_SIZE) typesetCache.clear()
-  typesetCache.set(key, html)
-  return html
 }
 
 function renderInput(meta: InlineMeta, env: ReportEnv): string {
@@ -370,9 +334,9 @@ function renderBlock(meta: BlockMeta, inner: readonly Token[], env: ReportEnv): 
 function renderBlockContent(meta: BlockMeta, inner: readonly Token[], env: ReportEnv): string {
   if (meta.directive === 'each') return renderEach(meta, inner, env)
   if (meta.directive === 'checks') return renderChecks(meta, inner, env)
-  if (meta.directive === 'figure') return renderFigure(meta, inner, env)
+  if (meta.directive === 'figure') return renderFigure(meta, renderTokens(inner, env).trim(), figureSource(env))
   if (meta.directive === 'overview') return renderOverview(inner, env)
-  if (meta.directive === 'calc') return renderCalc(meta, env)
+  if (meta.directive === 'calc') return renderCalc(env.calc.get(meta), meta.line ?? 0)
   return renderTokens(inner, env)
 }
 
@@ -495,89 +459,9 @@ function renderOverview(inner: readonly Token[], env: ReportEnv): string {
     + `<table class="tb-overview-values"><thead><tr><th>Quantity</th><th>Value</th><th>See</th></tr></thead>\n<tbody>\n${values}\n</tbody></table></div>\n`
 }
 
-// A figure depends only on the results object and its `at`; the editor re-renders the same results often (memoised by input).
-const figureCache = new WeakMap<object, Map<string, string>>()
-
-function drawFigure(figure: ModelFigure, plot: string, results: unknown, at: string | undefined, marks: readonly FigureMark[]): string {
-  if (typeof results !== 'object' || results === null) return figure.render(results, at, marks)
-  let drawn = figureCache.get(results)
-  if (!drawn) {
-    drawn = new Map()
-    figureCache.set(results, drawn)
-  }
-  const key = `${plot}\u0000${at ?? ''}\u0000${marks.map((m) => `${m.label}\u0001${m.axis}\u0001${m.value}`).join('\u0002')}`
-  const cached = drawn.get(key)
-  if (cached !== undefined) return cached
-  const svg = figure.render(results, at, marks)
-  drawn.set(key, svg)
-  return svg
-}
-
-/**
- * The quantities a figure's mark=… names, each on the axis whose unit it converts to (the value
- * axis first, then the place along the member); those that fit neither, or are not defined, are
- * said in words under the figure.
- */
-function figureMarks(list: string | undefined, figure: ModelFigure, env: ReportEnv): { marks: FigureMark[]; notes: string[] } {
-  const marks: FigureMark[] = []
-  const notes: string[] = []
-  if (list === undefined || !figure.marks) return { marks, notes }
-  for (const name of markNames(list)) {
-    const q = env.quantities.get(name)
-    if (!q) {
-      notes.push(`"${name}" cannot be marked: no calculation block gives it a value.`)
-      continue
-    }
-    const onY = figure.marks.y ? quantityIn(q, figure.marks.y) : null
-    const onX = onY === null && figure.marks.x ? quantityIn(q, figure.marks.x) : null
-    if (onY !== null) marks.push({ label: name, axis: 'y', value: onY })
-    else if (onX !== null) marks.push({ label: name, axis: 'x', value: onX })
-    else notes.push(`"${name}" (${q.unit || 'a number without a unit'}) cannot be marked: this figure plots ${axisWords(figure.marks)}.`)
-  }
-  return { marks, notes }
-}
-
-function axisWords(axes: NonNullable<ModelFigure['marks']>): string {
-  const words: Record<string, string> = { 'N mm': 'moments', N: 'forces', mm: 'lengths', MPa: 'stresses' }
-  const y = axes.y ? words[axes.y] ?? axes.y : null
-  return y ? `${y} along the member` : 'along the member'
-}
-
-/** An image attached to the sheet, as a numbered figure with its caption; the source only from the sheet's own list. */
-function renderImageFigure(name: string, caption: string, env: ReportEnv): string {
-  const image = Object.hasOwn(env.images, name) ? env.images[name] : undefined
-  const safe = image && (image.src.startsWith('/api/attachments/') || /^data:image\/(png|jpeg);base64,[A-Za-z0-9+/=]+$/.test(image.src))
-  const alt = caption.replace(/<[^>]*>/g, '').trim() || name
-  const drawing = image && safe
-    ? `<img class="tb-image" src="${escapeHtml(image.src)}" alt="${escapeHtml(alt)}" data-sha256="${escapeHtml(image.sha256)}">`
-    : `<p class="tb-missing">The image "${escapeHtml(name)}" is not attached to this sheet: attach it, or correct the name.</p>`
-  return `<figure class="tb-figure" data-image="${escapeHtml(name)}">${drawing}${caption ? `<figcaption>${caption}</figcaption>` : ''}</figure>\n`
-}
-
-function renderFigure(meta: BlockMeta, inner: readonly Token[], env: ReportEnv): string {
-  if (meta.attrs.image !== undefined) return renderImageFigure(meta.attrs.image, renderTokens(inner, env).trim(), env)
-  const plot = meta.attrs.plot ?? ''
-  const figure = env.model.figures[plot]
-  const caption = renderTokens(inner, env).trim()
-  let at: string | undefined
-  if (meta.attrs.at !== undefined) {
-    const parsed = parseKey(meta.attrs.at)
-    const r = 'segments' in parsed ? resolvePath(parsed.segments, env.scopes) : null
-    at = r?.kind === 'path' ? r.path : undefined
-  }
-  let drawing: string
-  if (!figure) drawing = ''
-  else if (env.results === null || env.results === undefined) drawing = '<p class="tb-missing">No results yet: the figure appears once the inputs are complete.</p>'
-  else {
-    const { marks, notes } = figureMarks(meta.attrs.mark, figure, env)
-    try {
-      drawing = drawFigure(figure, plot, env.results, at, marks)
-    } catch (error) {
-      drawing = `<p class="tb-missing">The figure could not be drawn: ${escapeHtml(error instanceof Error ? error.message : String(error))}</p>`
-    }
-    drawing += notes.map((note) => `<p class="tb-missing">${escapeHtml(note)}</p>`).join('')
-  }
-  return `<figure class="tb-figure" data-plot="${escapeHtml(plot)}">${drawing}${caption ? `<figcaption>${caption}</figcaption>` : ''}</figure>\n`
+/** The part of the report a figure block reads. */
+function figureSource(env: ReportEnv): FigureSource {
+  return { figures: env.model.figures, results: env.results, scopes: env.scopes, images: env.images, quantities: env.quantities }
 }
 
 /** A heading's title and its text both look a key up; list each place once. */
@@ -638,7 +522,7 @@ export function renderReportParts(compiled: CompiledTemplate, options: RenderOpt
     blockDepth: 0,
   }
   // the engineer's calculations first: their checks join the tables and the summary wherever those stand
-  evaluateCalcBlocks(compiled.tokens, env)
+  evaluateCalcBlocks(compiled.tokens, (key) => sheetValue(env, key), { calc: env.calc, quantities: env.quantities })
   // a frozen revision's results already hold them: each check once
   const known = new Set(env.checks.map((c) => c.id))
   const own = [...env.calc.values()].flatMap((r) => r.checks.map(({ line: _line, tex: _tex, ...c }) => c)).filter((c) => !known.has(c.id))
@@ -679,50 +563,16 @@ function partsOf(body: string): ReportPart[] {
   return parts
 }
 
-/** The calculation blocks in document order: each one's quantities, checks and problems. */
-function evaluateCalcBlocks(tokens: readonly Token[], env: ReportEnv): void {
-  const sheetValue = (key: string): SheetValue | undefined => {
-    const parsed = parseKey(key)
-    if ('problem' in parsed) return undefined
-    const r = resolvePath(parsed.segments, [])
-    if (r.kind !== 'path') return undefined
-    const info = describeKey(env.model, r.pattern, 'value')
-    const spec = info?.spec
-    if (!info || !spec) return undefined
-    const v = lookup(env, info, r.path)
-    if (typeof v !== 'number' || !Number.isFinite(v)) return undefined
-    return { value: fromEngine(v, spec.unit), unit: spec.unit, precision: spec.precision, ...(spec.symbol ? { symbol: spec.symbol } : {}), label: spec.label }
-  }
-  let n = 0
-  for (const token of tokens) {
-    if (token.type !== 'tb_block_open') continue
-    const meta = token.meta as BlockMeta
-    if (meta.directive !== 'calc') continue
-    n += 1
-    const result = evaluateCalcBlock(meta.source ?? '', { lookup: sheetValue, earlier: env.quantities, blockId: String(n) })
-    env.calc.set(meta, result)
-    for (const q of result.quantities) env.quantities.set(q.name, q)
-  }
-}
-
-function renderCalc(meta: BlockMeta, env: ReportEnv): string {
-  const r = env.calc.get(meta)
-  if (!r) return ''
-  const parts: string[] = []
-  for (const q of r.quantities) {
-    const tex = q.tex.given
-      ? `${q.tex.name} = ${q.tex.result}`
-      : `\\begin{aligned} ${q.tex.name} &= ${q.tex.symbols} \\\\ &= ${q.tex.numbers} \\\\ &= ${q.tex.result} \\end{aligned}`
-    const what = q.description ? `<p class="tb-calc-what">${escapeHtml(q.description)}</p>` : ''
-    parts.push(`<div class="tb-calc-quantity" data-name="${escapeHtml(q.name)}">${what}<div class="tb-math">${typeset(tex, true)}</div></div>`)
-  }
-  for (const c of r.checks) {
-    const verdict = c.pass ? 'satisfied' : 'not satisfied'
-    parts.push(`<div class="tb-calc-check ${c.pass ? 'tb-pass' : 'tb-fail'}" data-check="${escapeHtml(c.id)}"><p class="tb-calc-what">${escapeHtml(c.title)}: ${verdict}, utilisation ${escapeHtml(c.utilisation.toFixed(2))}</p><div class="tb-math">${typeset(c.tex, true)}</div></div>`)
-  }
-  const base = meta.line ?? 0
-  for (const p of r.problems) {
-    parts.push(`<p class="tb-calc-problem" role="note">Line ${base + p.line}${p.name ? ` (${escapeHtml(p.name)})` : ''}: ${escapeHtml(p.message)}</p>`)
-  }
-  return `<div class="tb-calc">${parts.join('\n')}</div>\n`
+/** A sheet key's value for a calculation block: a finite number, in the unit the sheet shows it in. */
+function sheetValue(env: ReportEnv, key: string): SheetValue | undefined {
+  const parsed = parseKey(key)
+  if ('problem' in parsed) return undefined
+  const r = resolvePath(parsed.segments, [])
+  if (r.kind !== 'path') return undefined
+  const info = describeKey(env.model, r.pattern, 'value')
+  const spec = info?.spec
+  if (!info || !spec) return undefined
+  const v = lookup(env, info, r.path)
+  if (typeof v !== 'number' || !Number.isFinite(v)) return undefined
+  return { value: fromEngine(v, spec.unit), unit: spec.unit, precision: spec.precision, ...(spec.symbol ? { symbol: spec.symbol } : {}), label: spec.label }
 }
