@@ -2,6 +2,7 @@ import type { H3Event } from 'h3'
 import { desc, eq } from 'drizzle-orm'
 import { alias } from 'drizzle-orm/mysql-core'
 import { sha256Hex } from '../utils/hashing'
+import type { Runner } from '../database/history-log'
 
 type SessionUser = { id: number, name: string, email: string, role: import('../../shared/types/roles').Role }
 
@@ -36,8 +37,8 @@ export async function listAttachments(sheetId: number) {
     .from(a).innerJoin(uploader, eq(uploader.id, a.uploadedBy)).where(eq(a.sheetId, sheetId)).orderBy(desc(a.id))
 }
 
-export async function attachmentFile(id: number) {
-  const [row] = await useDb().select().from(tables.attachments).where(eq(tables.attachments.id, id))
+export async function attachmentFile(id: number, runner: Pick<Runner, 'select'> = useDb()) {
+  const [row] = await runner.select().from(tables.attachments).where(eq(tables.attachments.id, id))
   if (!row) throw createError({ statusCode: 404, message: `No attachment with id ${id}` })
   const bytes = await readStored(row.storageKey)
   if (!bytes) throw createError({ statusCode: 410, message: `${row.filename} is missing from storage` })

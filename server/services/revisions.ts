@@ -103,7 +103,8 @@ async function frozenImages(tx: Tx, sheetId: number, text: string): Promise<Reco
       const message = `${row.filename} is ${(row.bytes / 1048576).toFixed(1)} MB; an image in the sheet is at most 3 MB: attach a smaller copy`
       throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: `Image: ${message}`, data: { fields: { body: message } } })
     }
-    const { row: file, bytes } = await attachmentFile(row.id)
+    // through the issue's own transaction: it holds the sheet's lock, so it must not wait for another pooled connection
+    const { row: file, bytes } = await attachmentFile(row.id, tx)
     out[row.filename] = { src: `data:${file.mime};base64,${Buffer.from(bytes).toString('base64')}`, sha256: file.sha256 }
   }
   return out

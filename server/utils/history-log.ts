@@ -3,7 +3,7 @@ import { asc, desc, eq, gte, and, lt } from 'drizzle-orm'
 import { MerkleTree } from '../../shared/log/merkle'
 import { publicKeyOf, signTreeHead, type TreeHead } from '../../shared/log/tree-head'
 import type { LogKind } from '../../shared/log/entry'
-import { appendToLog } from '../database/history-log'
+import { appendToLog, type Runner } from '../database/history-log'
 import type { Tx } from './audit'
 import { markIdempotentWorkDone } from './idempotency'
 
@@ -33,12 +33,19 @@ export function logSigningKey() {
 // Leaf hashes already read, by index: the log only grows, so a publish reads only the new ones.
 const knownLeaves: Buffer[] = []
 
-async function leafHashesUpTo(size: number) {
+/**
+ * The first `size` leaf hashes. `runner` is the transaction of a caller that holds a lock: reading
+ * through another pooled connection there could wait for a connection held by a request that is
+ * itself waiting for that lock (the pool starved, every request stuck until the lock wait times out).
+ */
+async function leafHashesUpTo(size: number, runner: Pick<Runner, 'select'> = useDb()) {
   if (knownLeaves.length < size) {
     const l = tables.logLeaves
-    const rows = await useDb().select({ leafIndex: l.leafIndex, leafHash: l.leafHash }).from(l)
+    const rows = await runner.select({ leafIndex: l.leafIndex, leafHash: l.leafHash }).from(l)
       .where(and(gte(l.leafIndex, knownLeaves.length), lt(l.leafIndex, size))).orderBy(asc(l.leafIndex))
     for (const row of rows) {
+      // another read of this process may have added these leaves while this one waited for its rows
+      if (row.leafIndex < knownLeaves.length) continue
       if (row.leafIndex !== knownLeaves.length) throw createError({ statusCode: 500, message: `The history log has no leaf ${knownLeaves.length}` })
       knownLeaves.push(Buffer.from(row.leafHash, 'hex'))
     }
@@ -66,7 +73,7 @@ export async function publishHead(): Promise<PublishedHead> {
     const [log] = await tx.select({ seq: heads.seq }).from(heads).where(eq(heads.name, 'log'))
     const size = log?.seq ?? 0
     if (last && last.treeSize >= size) return asPublished(last)
-    const tree = new MerkleTree(await leafHashesUpTo(size))
+    const tree = new MerkleTree(await leafHashesUpTo(size, tx))
     const head: TreeHead = { treeSize: size, rootHash: tree.root().toString('hex'), timestamp: new Date().toISOString() }
     const signature = signTreeHead(head, key.privatePem)
     const [{ id }] = await tx.insert(tables.logHeads).values({ treeSize: head.treeSize, rootHash: head.rootHash, signedAt: new Date(head.timestamp), signature, keyId: key.keyId }).$returningId()

@@ -168,6 +168,15 @@ describe('the sign-in limit', () => {
     expect(await countRows('audit_events', 'action = ? AND subject = ?', ['signin.failed', email])).toBe(5)
   })
 
+  it('lets 40 people sign in at once: each gets in, and the history keeps every sign-in', async () => {
+    // every audited action appends to the one history log and publishes a signed head under a lock;
+    // the request holding that lock must never wait for a pooled connection held by one waiting for it
+    const people = await Promise.all(Array.from({ length: 4 }, (_, i) => newPerson(`crowd${i}`)))
+    const answers = await Promise.all(Array.from({ length: 40 }, (_, i) => fromAddress(`127.0.4.${i + 2}`, 'POST', '/api/auth/signin', { email: people[i % 4], password: 'a-long-enough-password' })))
+    expect(answers.filter(a => a.status !== 200).map(a => `${a.status} ${JSON.stringify(a.body).slice(0, 120)}`)).toEqual([])
+    expect(await countRows('audit_events', 'action = ? AND subject IN (?, ?, ?, ?)', ['signin', ...people])).toBe(40)
+  }, 120_000)
+
   it('counts per account and address: a stranger elsewhere cannot lock the owner out', async () => {
     const email = await newPerson('stranger')
     for (let i = 0; i < 6; i++) await fromAddress('127.0.0.5', 'POST', '/api/auth/signin', { email, password: `guess-${i}` })
