@@ -57,8 +57,22 @@ export async function syncBuiltinTemplates(db: Db, adminId: number) {
   return ids
 }
 
+/** The demo office's details for the title block (invented, like the rest of the demo), set once as its admin would. */
+export const DEMO_OFFICE_NAME = 'Harrow & Vane Structural Engineers (fictional)'
+
+async function seedOfficeDetails(db: Db, adminId: number) {
+  const [any] = await db.select({ id: schema.officeDetails.id }).from(schema.officeDetails).limit(1)
+  if (any) return
+  // office details are history: the version joins the log in the transaction that writes it
+  await db.transaction(async (tx) => {
+    const [row] = await tx.insert(schema.officeDetails).values({ name: DEMO_OFFICE_NAME, createdBy: adminId, createdAt: new Date() }).$returningId()
+    await appendToLog(tx, [{ kind: 'office-details', id: row!.id }])
+  })
+}
+
 export async function seedContent(db: Db, owners: SeedOwners) {
   const templates = await syncBuiltinTemplates(db, owners.adminId)
+  await seedOfficeDetails(db, owners.adminId)
   for (const demo of DEMO_SHEETS) {
     const slug = Object.keys(templates).find(s => demo.template.test(s))
     if (!slug) continue

@@ -58,7 +58,7 @@ export async function officeStamp(version: number | null): Promise<OfficeStamp |
 export async function saveOfficeDetails(event: H3Event, user: SessionUser) {
   const { file, fields } = await readUpload(event, { field: 'logoFile', accepted: LOGO_TYPES, acceptedWords: 'a PNG or JPEG image', maxBytes: OFFICE_LOGO_MAX_BYTES, required: false })
   const parsed = officeDetailsSchema.safeParse(fields)
-  if (!parsed.success) invalidInput(parsed.error)
+  if (!parsed.success) invalidInput(parsed.error, { name: 'Office name', logo: 'Logo' })
   const body = parsed.data
   let logo: { logoStorageKey: string | null, logoMime: string | null, logoBytes: number | null, logoSha256: string | null } = { logoStorageKey: null, logoMime: null, logoBytes: null, logoSha256: null }
   if (file) {

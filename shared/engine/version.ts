@@ -1,2 +1,2 @@
 /** Version of the design engine; frozen revisions record it. Bump the minor on any change of results. */
-export const ENGINE_VERSION = '1.6.0'
+export const ENGINE_VERSION = '1.7.0'

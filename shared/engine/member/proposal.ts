@@ -40,8 +40,10 @@ export interface Proposal {
   barsTop: number | null
   /** ids of the checks the patched design passes: every check of the sheet but the site records and those outside the proposal's reach */
   claims: string[]
-  /** the claimed checks nearest their limits in the patched design (utilisation ≥ 0.95), most used first: what bounds the proposal */
+  /** the claimed checks nearest their limits in the patched design (utilisation ≥ 0.95), most used first: what bounds the proposal, in words (title and place) */
   boundBy: string[]
+  /** the same checks by id */
+  boundByChecks: string[]
   /** failing checks the proposal cannot change (the engineer's covers and jacking stress), or null */
   note: string | null
 }
@@ -49,8 +51,18 @@ export interface Proposal {
 export function noProposal(reason: string): Proposal {
   return {
     feasible: false, reason, strands: null, forceTransfer: null, spacing: null, count: null, supportEcc: null, spanEcc: null, inputPatch: null, verified: false,
-    barsBottom: null, barsTop: null, claims: [], boundBy: [], note: null,
+    barsBottom: null, barsTop: null, claims: [], boundBy: [], boundByChecks: [], note: null,
   }
+}
+
+/** A check as the report names it: its title and, where it has one, its place. */
+function checkWords(c: CheckResult): string {
+  return c.location ? `${c.title} (${c.location})` : c.title
+}
+
+/** Checks in words, each once. */
+function listWords(checks: readonly CheckResult[]): string {
+  return [...new Set(checks.map(checkWords))].join('; ')
 }
 
 /** The checks of the whole sheet for an input, and its ULS result (for the bars it asks for). */
@@ -154,12 +166,12 @@ export function proposeDesign(first: ServiceDesign, magnel: MagnelResult[], veri
     i = next
   }
   if (best === null) {
-    const ids = [...new Set(failing.map((c) => c.id))]
-    return noProposal(`The least prestress for the stresses and up to ${STEPS_UP} arrangements more, with bars added where they help, still fail ${ids.join(', ') || 'a check'} at the last one tried: `
+    return noProposal(`The least prestress for the stresses and up to ${STEPS_UP} arrangements more, with bars added where they help, still fail ${listWords(failing) || 'a check'} at the last one tried: `
       + 'these need a change the proposal does not make (depth, concrete class, links, spans or the engineer\'s limits).')
   }
   const { found, patch, checks } = best
-  const outside = checks.filter((c) => !claimed(c) && c.group !== 'site' && !c.pass).map((c) => c.id)
+  const outside = checks.filter((c) => !claimed(c) && c.group !== 'site' && !c.pass)
+  const bounding = checks.filter((c) => claimed(c) && c.utilisation >= 0.95).sort((x, y) => y.utilisation - x.utilisation)
   return {
     feasible: true, reason: null, strands: found.candidate.strands, forceTransfer: found.run.losses.transfer.Pmean,
     spacing: found.candidate.spacing, count: found.candidate.count, supportEcc: found.supportEcc, spanEcc: found.spanEcc,
@@ -167,8 +179,9 @@ export function proposeDesign(first: ServiceDesign, magnel: MagnelResult[], veri
     barsBottom: best.barsBottom > 0 ? best.barsBottom : null,
     barsTop: best.barsTop > 0 ? best.barsTop : null,
     claims: checks.filter(claimed).map((c) => c.id),
-    boundBy: checks.filter((c) => claimed(c) && c.utilisation >= 0.95).sort((x, y) => y.utilisation - x.utilisation).map((c) => c.id),
-    note: outside.length > 0 ? `Not changed by the proposal and failing: ${outside.join(', ')} (the covers and the jacking stress are the engineer's).` : null,
+    boundBy: bounding.map(checkWords),
+    boundByChecks: bounding.map((c) => c.id),
+    note: outside.length > 0 ? `Not changed by the proposal and failing: ${listWords(outside)} (the covers and the jacking stress are the engineer's).` : null,
   }
 }
 

@@ -159,8 +159,13 @@ describe('the proposal passes every check it claims, or says why none exists', (
   it('the demo slab: the proposal names what bounds it, and its bars are those added to the input', () => {
     const d = designMember(DEMO_PS2)
     expect(d.proposal.feasible).toBe(true)
-    expect(d.proposal.boundBy.length).toBeGreaterThan(0)
-    for (const id of d.proposal.boundBy) expect(d.proposal.claims).toContain(id)
+    expect(d.proposal.boundByChecks.length).toBeGreaterThan(0)
+    for (const id of d.proposal.boundByChecks) expect(d.proposal.claims).toContain(id)
+    // the report names them in words: each check's title (and place), never its id
+    const byId = new Map(d.checks.map((c) => [c.id, c]))
+    expect(d.proposal.boundBy).toHaveLength(d.proposal.boundByChecks.length)
+    d.proposal.boundByChecks.forEach((id, i) => expect(d.proposal.boundBy[i]!.startsWith(byId.get(id)!.title)).toBe(true))
+    for (const words of d.proposal.boundBy) expect(words).not.toMatch(/^[a-z]+\.[a-zA-Z.]+$/)
     const top = d.proposal.inputPatch?.uls?.barsTop?.area ?? 0
     expect(top).toBe(565 + (d.proposal.barsTop ?? 0)) // the demo's H12 at 200 (565 mm²/m) plus what the proposal adds
   })
