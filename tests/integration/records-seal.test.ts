@@ -87,6 +87,8 @@ describe('sealing an approved revision', () => {
     const check = await records.json('POST', `/api/revisions/${approved.id}/reseal-check`)
     expect(check.status).toBe(200)
     expect(check.body).toMatchObject({ identical: true, sealedSha256: sha256Hex(sealedBytes) })
+    // one render: the sealed copy's own page of every section is the page numbering it was printed with
+    expect(check.body.renders).toBe(1)
     const [before] = await withDb(conn => conn.query('SELECT COUNT(*) AS n FROM seals WHERE revision_id = ?', [approved.id]))
     const again = await records.json('POST', `/api/revisions/${approved.id}/seal`)
     expect(again.status).toBe(200)
