@@ -204,7 +204,7 @@ describe('error answers', () => {
       ['GET', '/api/no-such-route', undefined, /no-such-route|not found/i],
       ['POST', '/api/projects', '{"jobNumber": ', /not valid JSON/i],
       ['GET', '/api/revisions/999999999', undefined, /No revision with id 999999999/],
-      ['GET', '/api/sheets/abc', undefined, /id/],
+      ['GET', '/api/sheets/abc', undefined, /^Record number in the address: must be a positive whole number/],
     ]
     for (const [method, path, body, expected] of cases) {
       const res = await engineer.fetch(path, { method, body, headers: body ? { 'content-type': 'application/json' } : {} })
