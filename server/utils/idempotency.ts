@@ -73,7 +73,7 @@ export async function idempotent<T>(event: H3Event, userId: number, body: unknow
     if (first.statusCode === DONE_ANSWER_LOST) return answerLost(event, userId, key, first.response, answerAgain)
     setResponseStatus(event, first.statusCode)
     setResponseHeader(event, 'idempotent-replayed', 'true')
-    return (typeof first.response === 'string' ? JSON.parse(first.response) : first.response) as T
+    return storedJson(first.response) as T
   }
   let result: T
   try {
@@ -84,19 +84,28 @@ export async function idempotent<T>(event: H3Event, userId: number, body: unknow
     await again(() => useDb().delete(t).where(and(eq(t.userId, userId), eq(t.idempotencyKey, key), isNull(t.statusCode))))
     throw error
   }
-  await again(() => useDb().update(t).set({ statusCode: getResponseStatus(event), response: JSON.parse(JSON.stringify(result)) }).where(and(eq(t.userId, userId), eq(t.idempotencyKey, key))))
+  await storeAnswer(event, userId, key, result)
   return result
 }
 
 /** A retry of a request whose work committed but whose answer was lost: answered now, and that answer kept for any further retry. */
 async function answerLost<T>(event: H3Event, userId: number, key: string, outcome: unknown, answerAgain: (outcome: unknown) => Promise<T>): Promise<T> {
-  const stored = typeof outcome === 'string' ? JSON.parse(outcome) : outcome
-  const result = await answerAgain(stored)
+  const result = await answerAgain(storedJson(outcome))
   if (result === null || result === undefined) {
     throw createError({ statusCode: 409, message: 'Your first request with this Idempotency-Key was saved, but its answer was lost on the way: reload the page to see the result (nothing was done twice)' })
   }
-  const t = tables.idempotencyKeys
-  await again(() => useDb().update(t).set({ statusCode: getResponseStatus(event), response: JSON.parse(JSON.stringify(result)) }).where(and(eq(t.userId, userId), eq(t.idempotencyKey, key))))
+  await storeAnswer(event, userId, key, result)
   setResponseHeader(event, 'idempotent-replayed', 'true')
   return result
+}
+
+/** The answer a key gives every later retry, with the status it was given under. */
+async function storeAnswer(event: H3Event, userId: number, key: string, result: unknown) {
+  const t = tables.idempotencyKeys
+  await again(() => useDb().update(t).set({ statusCode: getResponseStatus(event), response: JSON.parse(JSON.stringify(result)) }).where(and(eq(t.userId, userId), eq(t.idempotencyKey, key))))
+}
+
+/** A JSON column as the driver gives it back: parsed already, or (MariaDB's JSON is LONGTEXT) as its text. */
+function storedJson(value: unknown): unknown {
+  return typeof value === 'string' ? JSON.parse(value) : value
 }

@@ -181,22 +181,24 @@ export function triggerSql(name: string) {
 
 export interface ReceivedMail { to: string[], raw: string, file: string }
 
+/** Every message the SMTP peers of this run (one per test server, mailbox-*) have received so far. */
+export function receivedMail(): ReceivedMail[] {
+  const parent = dirname(inject('mailboxDir'))
+  const dirs = readdirSync(parent).filter(d => d.startsWith('mailbox')).map(d => join(parent, d))
+  return dirs.flatMap(dir => readdirSync(dir).filter(f => f.endsWith('.json'))
+    .map(file => ({ ...(JSON.parse(readFileSync(join(dir, file), 'utf8')) as { to: string[], raw: string }), file: join(dir, file) })))
+}
+
 /**
  * Waits until a message matching `match` reaches an SMTP peer. The integration and e2e servers share
  * the test database and so its outbox: whichever server claims a message sends it to its own peer,
  * so every peer's folder (mailbox-*) beside ours is searched.
  */
 export async function waitForMail(match: (m: ReceivedMail) => boolean, timeoutMs = 30_000): Promise<ReceivedMail> {
-  const parent = dirname(inject('mailboxDir'))
   const until = Date.now() + timeoutMs
   for (;;) {
-    const dirs = readdirSync(parent).filter(d => d.startsWith('mailbox')).map(d => join(parent, d))
-    for (const dir of dirs) {
-      for (const file of readdirSync(dir).filter(f => f.endsWith('.json'))) {
-        const m = { ...(JSON.parse(readFileSync(join(dir, file), 'utf8')) as { to: string[], raw: string }), file: join(dir, file) }
-        if (match(m)) return m
-      }
-    }
+    const found = receivedMail().find(match)
+    if (found) return found
     if (Date.now() > until) throw new Error('the expected e-mail did not arrive')
     await new Promise(r => setTimeout(r, 300))
   }
