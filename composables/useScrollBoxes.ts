@@ -1,21 +1,28 @@
 /**
  * Formulas, tables and code that are wider than their box scroll inside it; a box that scrolls
- * joins the tab order (tabindex 0), so the keyboard can scroll it too (WCAG 2.1.1). Watches the
- * element's content as it is re-rendered and its width as the window changes.
+ * joins the tab order (tabindex 0), so the keyboard can scroll it too (WCAG 2.1.1).
+ *
+ * Reading a box's widths lays it out, and the report's parts off screen are not laid out until they
+ * come near (content-visibility: auto), so the boxes are not all measured on every change: each box
+ * is measured when it is laid out anyway (a ResizeObserver per box, which also follows the window's
+ * width): a box that comes with a change is measured once its part is near the screen, and typing
+ * never waits for the whole report's layout. All are measured once when the page mounts.
  */
 const SCROLL_BOXES = '.tb-math, table, pre, .tb-overview, .katex-display, .overflow-x-auto'
+
+function boxesIn(node: Element): HTMLElement[] {
+  const inside = [...node.querySelectorAll<HTMLElement>(SCROLL_BOXES)]
+  return node instanceof HTMLElement && node.matches(SCROLL_BOXES) ? [node, ...inside] : inside
+}
 
 export function useScrollBoxes(root: Ref<HTMLElement | null | undefined>) {
   let mutations: MutationObserver | undefined
   let sizes: ResizeObserver | undefined
-  let pending = false
 
-  function mark() {
-    pending = false
-    const el = root.value
-    if (!el) return
-    for (const box of el.querySelectorAll<HTMLElement>(SCROLL_BOXES)) {
-      const scrolls = box.scrollWidth > box.clientWidth + 1 && getComputedStyle(box).overflowX !== 'visible'
+  function mark(boxes: readonly HTMLElement[]) {
+    // every width read first, then every write: a write between reads would lay the page out again
+    const found = boxes.filter(box => box.isConnected).map(box => ({ box, scrolls: box.scrollWidth > box.clientWidth + 1 && getComputedStyle(box).overflowX !== 'visible' }))
+    for (const { box, scrolls } of found) {
       if (scrolls && !box.hasAttribute('tabindex')) {
         box.tabIndex = 0
         box.dataset.scrollBox = ''
@@ -26,24 +33,32 @@ export function useScrollBoxes(root: Ref<HTMLElement | null | undefined>) {
       }
     }
   }
-  function schedule() {
-    if (pending) return
-    pending = true
-    requestAnimationFrame(mark)
+
+  function adopt(node: Element) {
+    for (const box of boxesIn(node)) sizes!.observe(box)
+  }
+  function drop(node: Element) {
+    for (const box of boxesIn(node)) sizes!.unobserve(box)
+  }
+
+  function stop() {
+    mutations?.disconnect()
+    sizes?.disconnect()
   }
 
   watch(root, (el) => {
-    mutations?.disconnect()
-    sizes?.disconnect()
+    stop()
     if (!el) return
-    mutations = new MutationObserver(schedule)
+    sizes = new ResizeObserver(entries => mark(entries.map(e => e.target as HTMLElement)))
+    mutations = new MutationObserver((records) => {
+      for (const record of records) {
+        for (const node of record.removedNodes) if (node instanceof Element) drop(node)
+        for (const node of record.addedNodes) if (node instanceof Element) adopt(node)
+      }
+    })
     mutations.observe(el, { childList: true, subtree: true })
-    sizes = new ResizeObserver(schedule)
-    sizes.observe(el)
-    schedule()
+    adopt(el)
+    requestAnimationFrame(() => mark(boxesIn(el)))
   }, { immediate: true, flush: 'post' })
-  onBeforeUnmount(() => {
-    mutations?.disconnect()
-    sizes?.disconnect()
-  })
+  onBeforeUnmount(stop)
 }

@@ -48,6 +48,27 @@ export interface ShownReport extends Omit<LiveReport, 'parts'> {
 
 const FIGURE_TAG = /<figure class="tb-figure"/g
 
+/** The same parts in the same order (only their html may differ). */
+function sameParts(a: ShownReport, b: ShownReport) {
+  return a.parts.length === b.parts.length && a.parts.every((p, i) => p.key === b.parts[i]!.key)
+}
+
+/** A key press is waiting (Chromium tells; elsewhere the slice time alone decides). */
+function inputPending(): boolean {
+  return (navigator as { scheduling?: { isInputPending?: () => boolean } }).scheduling?.isInputPending?.() ?? false
+}
+
+/** Resolves once the browser has drawn a frame (or soon, where no frame comes: a hidden tab). */
+function afterNextFrame() {
+  return new Promise<void>((resolve) => {
+    const fallback = setTimeout(resolve, 50)
+    requestAnimationFrame(() => {
+      clearTimeout(fallback)
+      setTimeout(resolve, 0)
+    })
+  })
+}
+
 function patchReport(before: ShownReport | null, next: LiveReport): ShownReport {
   const old = new Map(before?.parts.map(p => [p.key, p]))
   let figures = 0
@@ -62,6 +83,8 @@ function patchReport(before: ShownReport | null, next: LiveReport): ShownReport 
 
 const SAVE_DELAY_MS = 800
 const FULL_RUN_DELAY_MS = 350
+/** DOM work a report patch does before it lets the browser draw a frame */
+const PATCH_SLICE_MS = 6
 const COALESCE_MS = 1200
 const MAX_UNDO = 100
 
@@ -128,12 +151,47 @@ export const useSheetStore = defineStore('sheet', () => {
     outcome.value = result
     if (result.run?.ok) everRan.value = true
     if (result.designChecks) designChecks.value = result.designChecks
-    if (result.report) shownReport.value = patchReport(shownReport.value, result.report)
+    if (result.report) void showReport(result.report)
+  }
+
+  // The report reaches the page a few parts at a time: after each PATCH_SLICE_MS of DOM work (or at
+  // once when a key is waiting) the patch lets the browser draw a frame, so a keystroke that comes
+  // while parts change paints in the next frame. A newer report takes over from where this one got.
+  const patching = ref(false)
+  let patchGeneration = 0
+  async function showReport(next: LiveReport) {
+    const generation = ++patchGeneration
+    const before = shownReport.value
+    const target = patchReport(before, next)
+    const changed = before && sameParts(before, target) ? target.parts.flatMap((p, i) => (p === before.parts[i] ? [] : [i])) : null
+    if (!import.meta.client || !before || !changed || changed.length <= 1) {
+      shownReport.value = target
+      patching.value = false
+      return
+    }
+    patching.value = true
+    const parts = [...before.parts]
+    let sliceStart = performance.now()
+    for (const i of changed) {
+      parts[i] = target.parts[i]!
+      shownReport.value = { ...target, parts: [...parts] }
+      await nextTick()
+      if (generation !== patchGeneration) return
+      if (performance.now() - sliceStart > PATCH_SLICE_MS || inputPending()) {
+        await afterNextFrame()
+        if (generation !== patchGeneration) return
+        sliceStart = performance.now()
+      }
+    }
+    patching.value = false
   }
 
   let seq = 0
   // answers to requests from before the last load belong to another sheet (or an older version of it)
   let resetSeq = 0
+  // the newest request whose answer is shown: an answer to an older one (the proposal run of inputs
+  // typed over since) is dropped
+  let shownSeq = 0
   const liveRequest = (proposal: boolean): LiveRequest => ({
     seq: ++seq,
     key: inputKey.value,
@@ -143,46 +201,81 @@ export const useSheetStore = defineStore('sheet', () => {
     proposal,
   })
 
-  // One request at a time: changes made while the worker is busy are sent as one, the latest.
-  let worker: Worker | null = null
-  let busy = false
-  let waiting: 'quick' | 'full' | null = null
+  /**
+   * A worker that runs one request at a time: a change made while it is busy is sent when it is
+   * free, as one request with the latest inputs. `answered` follows each answer it gives.
+   */
+  function runChannel(proposal: boolean, answered: () => void) {
+    let worker: Worker | null = null
+    let busy = false
+    let again = false
+    // the load this worker has not heard of yet (it starts when first needed)
+    let unheardLoad: LiveRequest | null = null
+    const start = () => {
+      const w = new Worker(new URL('../workers/sheet-run.ts', import.meta.url), { type: 'module' })
+      w.onmessage = (event: MessageEvent<LiveOutcome>) => {
+        busy = false
+        if (event.data.seq >= resetSeq && event.data.seq > shownSeq) {
+          shownSeq = event.data.seq
+          apply(event.data)
+        }
+        if (again) {
+          again = false
+          post()
+        }
+        else {
+          answered()
+        }
+      }
+      return w
+    }
+    const tell = (first: LiveRequest) => {
+      worker ??= start()
+      worker.postMessage({ reset: { ...first, proposal: false }, formulas: typesetCacheEntries() })
+      unheardLoad = null
+    }
+    const post = () => {
+      if (unheardLoad) tell(unheardLoad)
+      worker ??= start()
+      busy = true
+      worker.postMessage(liveRequest(proposal))
+    }
+    return {
+      send() {
+        if (busy) again = true
+        else post()
+      },
+      /** a sheet (re)loaded: the worker forgets the last and takes the page's typeset formulas, now or when it starts */
+      reset(first: LiveRequest, now: boolean) {
+        again = false
+        if (now || worker) tell(first)
+        else unheardLoad = first
+      },
+    }
+  }
+
+  // Every change runs the engine without the proposal search in one worker; the run with the
+  // proposal follows in another when typing pauses, so a keystroke never waits behind the search.
   let fullTimer: ReturnType<typeof setTimeout> | undefined
+  const quickRuns = runChannel(false, scheduleFull)
+  const fullRuns = runChannel(true, () => {})
   const signature = () => `${inputKey.value}\u0000${text.value}\u0000${JSON.stringify(images.value)}`
   let lastSent = ''
-  function send(kind: 'quick' | 'full') {
+  function sendQuick() {
     if (!import.meta.client) return
     lastSent = signature()
-    if (busy) {
-      waiting = waiting === 'full' && kind === 'quick' ? 'quick' : kind
-      return
-    }
-    worker ??= startWorker()
-    busy = true
-    worker.postMessage(liveRequest(kind === 'full'))
-  }
-  function startWorker(): Worker {
-    const w = new Worker(new URL('../workers/sheet-run.ts', import.meta.url), { type: 'module' })
-    w.onmessage = (event: MessageEvent<LiveOutcome>) => {
-      busy = false
-      if (event.data.seq >= resetSeq) apply(event.data)
-      const next = waiting
-      waiting = null
-      if (next) send(next)
-      else scheduleFull()
-    }
-    return w
+    quickRuns.send()
   }
   function scheduleFull() {
     clearTimeout(fullTimer)
     fullTimer = setTimeout(() => {
-      if (validation.value.ok && !(outcome.value?.full && outcome.value.key === inputKey.value)) send('full')
+      if (validation.value.ok && !(outcome.value?.full && outcome.value.key === inputKey.value)) fullRuns.send()
     }, FULL_RUN_DELAY_MS)
   }
   watch([inputKey, text, images], () => {
     if (signature() === lastSent) return
     clearTimeout(fullTimer)
-    send('quick')
+    sendQuick()
   })
 
   // the proposal applies to the inputs it was worked out for, never to inputs typed since
@@ -253,9 +346,11 @@ export const useSheetStore = defineStore('sheet', () => {
     lastSent = signature()
     const loader = createLiveRunner()
     apply(loader.run(first))
+    shownSeq = first.seq
     if (import.meta.client) {
-      worker ??= startWorker()
-      worker.postMessage({ reset: { ...first, proposal: false }, formulas: typesetCacheEntries() })
+      clearTimeout(fullTimer)
+      quickRuns.reset(first, true)
+      fullRuns.reset(first, false)
     }
     draftVersion.value = payload.draftVersion
     saveState.value = 'saved'
@@ -405,7 +500,7 @@ export const useSheetStore = defineStore('sheet', () => {
   }
 
   return {
-    sheet, inputs, draftVersion, saveState, saveMessage, savedAt, specs, compiled, validation, run, proposal, errors, blocker, stale, report,
+    sheet, inputs, draftVersion, saveState, saveMessage, savedAt, specs, compiled, validation, run, proposal, errors, blocker, stale, report, patching,
     text, ownText, textErrors, setText, images, setImages,
     checks, undoStack, redoStack,
     replies, replyList, answerRevision, setReply, clearReplies,

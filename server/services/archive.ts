@@ -1,5 +1,5 @@
 import type { H3Event } from 'h3'
-import { and, asc, desc, eq, gte, inArray, like, lt, or, type SQL } from 'drizzle-orm'
+import { and, asc, count, desc, eq, gte, inArray, like, lt, or, sql, type SQL } from 'drizzle-orm'
 import { alias } from 'drizzle-orm/mysql-core'
 import Papa from 'papaparse'
 import type { ArchiveQuery } from '../utils/records-schemas'
@@ -17,7 +17,16 @@ async function recordsProjects(userId: number) {
 const s = tables.seals
 const r = tables.revisions
 
-async function registerRows(where?: ReturnType<typeof and>) {
+/** Sealed documents a page of the register shows unless the query asks for another number. */
+export const REGISTER_PAGE_SIZE = 50
+
+// The two facts a sealed revision's status rests on, read in the same query as the register (not
+// derived per sheet and per request): its approval's contractual code, and whether a later
+// revision of its sheet has been approved since (then it is superseded).
+const approvalCode = sql<string | null>`(SELECT v.contract_code FROM reviews v WHERE v.revision_id = ${r.id} AND v.decision = 'approve' ORDER BY v.id LIMIT 1)`
+const laterApproved = sql`EXISTS (SELECT 1 FROM reviews v JOIN revisions later ON later.id = v.revision_id WHERE later.sheet_id = ${r.sheetId} AND later.seq > ${r.seq} AND v.decision = 'approve')`
+
+function registerQuery(where: SQL | undefined) {
   const sealer = alias(tables.users, 'sealer')
   const author = alias(tables.users, 'author')
   return useDb().select({
@@ -26,6 +35,7 @@ async function registerRows(where?: ReturnType<typeof and>) {
     revisionId: r.id, code: r.code, contentHash: r.contentHash, issuedAt: r.issuedAt, authorName: author.name,
     sheetId: tables.sheets.id, sheetReference: tables.sheets.reference, sheetTitle: tables.sheets.title,
     projectId: tables.projects.id, jobNumber: tables.projects.jobNumber, projectName: tables.projects.name,
+    approvalCode, laterApproved: sql<number>`${laterApproved}`,
   }).from(s)
     .innerJoin(r, eq(r.id, s.revisionId))
     .innerJoin(sealer, eq(sealer.id, s.sealedBy))
@@ -34,22 +44,22 @@ async function registerRows(where?: ReturnType<typeof and>) {
     .innerJoin(tables.projects, eq(tables.projects.id, tables.sheets.projectId))
     .where(where)
     .orderBy(desc(s.sealedAt), desc(s.id))
+    .$dynamic()
 }
 
-async function withStatus<T extends { revisionId: number, sheetId: number }>(rows: T[]) {
-  const cache = new Map<number, Awaited<ReturnType<typeof sheetRevisionStatuses>>>()
-  const out = []
-  for (const row of rows) {
-    if (!cache.has(row.sheetId)) cache.set(row.sheetId, await sheetRevisionStatuses(useDb(), row.sheetId))
-    const statuses = cache.get(row.sheetId)!
-    const status = statuses.get(row.revisionId)!
-    out.push({ ...row, contractCode: status.contractCode, superseded: status.superseded, status: status.label })
-  }
-  return out
+type RegisterRow = Awaited<ReturnType<typeof registerQuery>>[number]
+
+/**
+ * A row with its status, derived by the one rule every revision's status follows. A sealed revision
+ * is approved, and an approved revision's status turns on later approvals only, not later issues.
+ */
+function withStatus({ approvalCode: contractCode, laterApproved: later, ...row }: RegisterRow) {
+  const status = deriveStatus({ decisions: [{ decision: 'approve', contractCode }], sealed: true, laterIssued: Boolean(Number(later)), laterApproved: Boolean(Number(later)) })
+  return { ...row, contractCode: status.contractCode, superseded: status.superseded, status: status.label }
 }
 
-/** The register of sealed documents, newest first, filtered by project, sealing date, status, text. */
-export async function archiveRegister(q: ArchiveQuery, userId: number) {
+/** The conditions of a register query: the user's projects, then the filters. */
+async function registerFilter(q: ArchiveQuery, userId: number) {
   const conditions: Array<SQL | undefined> = [inArray(tables.projects.id, await recordsProjects(userId))]
   if (q.project) conditions.push(eq(tables.projects.id, q.project))
   if (q.from) conditions.push(gte(s.sealedAt, new Date(`${q.from}T00:00:00Z`)))
@@ -58,14 +68,35 @@ export async function archiveRegister(q: ArchiveQuery, userId: number) {
     const text = `%${q.q.replace(/[%_\\]/g, c => `\\${c}`)}%`
     conditions.push(or(like(s.archiveRef, text), like(tables.sheets.title, text), like(tables.sheets.reference, text), like(tables.projects.name, text)))
   }
-  const rows = await withStatus(await registerRows(and(...conditions)))
-  if (q.status === 'current') return rows.filter(x => !x.superseded)
-  if (q.status === 'superseded') return rows.filter(x => x.superseded)
-  return rows
+  if (q.status === 'current') conditions.push(sql`NOT ${laterApproved}`)
+  if (q.status === 'superseded') conditions.push(laterApproved)
+  return and(...conditions)
+}
+
+/**
+ * One page of the register of sealed documents, newest first, filtered by project, sealing date,
+ * status and text, with the number that match. A page past the last answers with no rows.
+ */
+export async function archiveRegister(q: ArchiveQuery, userId: number) {
+  const where = await registerFilter(q, userId)
+  const page = q.page ?? 1
+  const pageSize = q.per ?? REGISTER_PAGE_SIZE
+  const rows = await registerQuery(where).limit(pageSize).offset((page - 1) * pageSize)
+  const [{ total }] = await useDb().select({ total: count() }).from(s)
+    .innerJoin(r, eq(r.id, s.revisionId))
+    .innerJoin(tables.sheets, eq(tables.sheets.id, r.sheetId))
+    .innerJoin(tables.projects, eq(tables.projects.id, tables.sheets.projectId))
+    .where(where)
+  return { rows: rows.map(withStatus), total, page, pageSize }
+}
+
+/** Every row of the register that matches the filters (the CSV export), newest first. */
+export async function wholeRegister(q: ArchiveQuery, userId: number) {
+  return (await registerQuery(await registerFilter(q, userId))).map(withStatus)
 }
 
 /** The register as CSV; a text cell starting with = + - @, tab or CR gets a leading ' so no spreadsheet runs it as a formula. */
-export function registerCsv(rows: Awaited<ReturnType<typeof archiveRegister>>) {
+export function registerCsv(rows: Awaited<ReturnType<typeof wholeRegister>>) {
   return Papa.unparse(rows.map(x => ({
     'Archive ref.': x.archiveRef,
     'Verification ref.': x.verificationRef,
@@ -88,24 +119,26 @@ export function registerCsv(rows: Awaited<ReturnType<typeof archiveRegister>>) {
 /** Approved revisions that still wait for their seal (and are not superseded). */
 export async function awaitingSeal(userId: number) {
   const author = alias(tables.users, 'author')
-  const approvals = await useDb().select({
+  return useDb().select({
     revisionId: r.id, code: r.code, sheetId: r.sheetId, sheetReference: tables.sheets.reference, sheetTitle: tables.sheets.title,
     jobNumber: tables.projects.jobNumber, projectName: tables.projects.name, authorName: author.name, approvedAt: tables.reviews.createdAt,
+    contractCode: tables.reviews.contractCode,
   }).from(tables.reviews)
     .innerJoin(r, eq(r.id, tables.reviews.revisionId))
     .innerJoin(author, eq(author.id, r.authorId))
     .innerJoin(tables.sheets, eq(tables.sheets.id, r.sheetId))
     .innerJoin(tables.projects, eq(tables.projects.id, tables.sheets.projectId))
-    .where(and(eq(tables.reviews.decision, 'approve'), inArray(tables.projects.id, await recordsProjects(userId))))
+    .where(and(
+      eq(tables.reviews.decision, 'approve'), inArray(tables.projects.id, await recordsProjects(userId)),
+      sql`NOT EXISTS (SELECT 1 FROM seals x WHERE x.revision_id = ${r.id})`, sql`NOT ${laterApproved}`,
+    ))
     .orderBy(asc(tables.reviews.createdAt))
-  const rows = await withStatus(approvals)
-  return rows.filter(x => x.status === 'Approved')
 }
 
 /** The sealed document the condition finds among the user's projects: one of another project reads as none. */
 async function sealMatch(userId: number, where: ReturnType<typeof eq>) {
-  const rows = await withStatus(await registerRows(and(where, inArray(tables.projects.id, await recordsProjects(userId)))))
-  const row = rows[0]
+  const [found] = await registerQuery(and(where, inArray(tables.projects.id, await recordsProjects(userId)))).limit(1)
+  const row = found && withStatus(found)
   if (!row) return null
   const statuses = await sheetRevisionStatuses(useDb(), row.sheetId)
   const later = await useDb().select({ id: r.id, code: r.code, seq: r.seq }).from(r).where(eq(r.sheetId, row.sheetId)).orderBy(asc(r.seq))

@@ -36,9 +36,11 @@ export const archiveQuery = z.object({
   to: z.iso.date({ message: 'a date like 2026-01-31' }).optional(),
   status: z.enum(['current', 'superseded', 'all'], { message: 'current, superseded or all' }).default('all'),
   q: textField('Search').trim().max(100, 'Search is at most 100 characters').optional(),
+  page: recordId('a page number: 1, 2, 3…').optional(),
+  per: z.preprocess(value => (typeof value === 'string' && /^[0-9]{1,4}$/.test(value) ? Number(value) : value), z.number({ message: 'a whole number from 1 to 200' }).int('a whole number from 1 to 200').min(1, 'a whole number from 1 to 200').max(200, 'at most 200 a page')).optional(),
 })
 
-export const ARCHIVE_QUERY_LABELS = { project: 'Project', from: 'Sealed from', to: 'Sealed to', status: 'Status', q: 'Search' }
+export const ARCHIVE_QUERY_LABELS = { project: 'Project', from: 'Sealed from', to: 'Sealed to', status: 'Status', q: 'Search', page: 'Page', per: 'Documents per page' }
 
 export type ArchiveQuery = z.infer<typeof archiveQuery>
 

@@ -216,7 +216,7 @@ describe('membership', () => {
     expect((await outsider.session.json('GET', '/api/checking/queue')).body).toEqual([])
     const records = await newPerson('records', 'Records Elsewhere')
     const archive = (await records.session.json('GET', '/api/archive')).body
-    expect(archive).toEqual({ register: [], awaiting: [] })
+    expect(archive).toEqual({ register: [], total: 0, page: 1, pageSize: 50, awaiting: [] })
   })
 
   it('shows the development mailbox\'s messages to their recipients only', async () => {

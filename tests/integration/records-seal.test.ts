@@ -262,4 +262,36 @@ describe('archive register', () => {
     expect(parsed.data[0]!.Title).toBe('\'=HYPERLINK("http://evil.example","open")')
     expect((await checker.json('GET', '/api/archive')).status).toBe(403)
   })
+
+  it('comes a page at a time, and gives each document the status its revision shows', async () => {
+    type Row = { archiveRef: string, revisionId: number, contractCode: string, superseded: boolean, status: string }
+    const whole = (await records.json('GET', '/api/archive?per=200')).body as { register: Row[], total: number, page: number, pageSize: number }
+    expect(whole.total).toBe(whole.register.length)
+    expect(whole.total).toBeGreaterThan(0)
+    // page by page, one document a page: the same documents in the same order, the same total each time
+    const paged: string[] = []
+    for (let page = 1; page <= whole.total; page++) {
+      const one = (await records.json('GET', `/api/archive?per=1&page=${page}`)).body
+      expect(one).toMatchObject({ total: whole.total, page, pageSize: 1 })
+      paged.push(...one.register.map((r: Row) => r.archiveRef))
+    }
+    expect(paged).toEqual(whole.register.map(r => r.archiveRef))
+    expect((await records.json('GET', `/api/archive?per=1&page=${whole.total + 1}`)).body).toMatchObject({ register: [], total: whole.total })
+    // the default page is fifty
+    expect((await records.json('GET', '/api/archive')).body.pageSize).toBe(50)
+    // current and superseded split the register between them
+    const current = (await records.json('GET', '/api/archive?per=200&status=current')).body
+    const superseded = (await records.json('GET', '/api/archive?per=200&status=superseded')).body
+    expect(current.total + superseded.total).toBe(whole.total)
+    expect(superseded.register.every((r: Row) => r.superseded)).toBe(true)
+    // the register reads its statuses in its own query; the revision's page derives them per sheet
+    for (const row of whole.register) {
+      const detail = (await records.json('GET', `/api/revisions/${row.revisionId}`)).body
+      expect({ ref: row.archiveRef, code: row.contractCode, superseded: row.superseded, status: row.status })
+        .toEqual({ ref: row.archiveRef, code: detail.status.contractCode, superseded: detail.status.superseded, status: detail.status.label })
+    }
+    const bad = await records.json('GET', '/api/archive?per=5000')
+    expect(bad.status).toBe(400)
+    expect(bad.body.message).toContain('Documents per page')
+  })
 })
