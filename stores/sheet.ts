@@ -43,7 +43,8 @@ interface UndoEntry { label: string, inputs: Record<string, unknown>, path?: str
 
 /** The report as the editor shows it: a part keeps its object while its html is unchanged, so Vue leaves its DOM alone. */
 export interface ShownReport extends Omit<LiveReport, 'parts'> {
-  parts: Array<{ key: string, html: string, figuresBefore: number }>
+  /** `firstHtml`: the html the part's element was made with (the page patches later html into it) */
+  parts: Array<{ key: string, html: string, firstHtml: string, figuresBefore: number }>
 }
 
 const FIGURE_TAG = /<figure class="tb-figure"/g
@@ -74,7 +75,7 @@ function patchReport(before: ShownReport | null, next: LiveReport): ShownReport 
   let figures = 0
   const parts = next.parts.map((p) => {
     const kept = old.get(p.key)
-    const part = kept && kept.html === p.html && kept.figuresBefore === figures ? kept : { key: p.key, html: p.html, figuresBefore: figures }
+    const part = kept && kept.html === p.html && kept.figuresBefore === figures ? kept : { key: p.key, html: p.html, firstHtml: kept?.firstHtml ?? p.html, figuresBefore: figures }
     figures += p.html.match(FIGURE_TAG)?.length ?? 0
     return part
   })

@@ -97,9 +97,13 @@ async function revisionPrinter(event: H3Event, detail: Detail, stamp: LogStamp |
   const value = getCookie(event, cookieName)
   const failed = renderFailure(event)
   let html = ''
-  /** @throws 502 saying why rendering failed, 503 when this server's renders are all busy. */
-  const render = (pages: string | null) => renderPdf({
-    onHtml: (page) => { html = page },
+  /**
+   * `keepPage` false for a render whose print page is never kept (the first pass for page numbers,
+   * a check's render that is set aside when it differs): reading the page back costs a moment.
+   * @throws 502 saying why rendering failed, 503 when this server's renders are all busy.
+   */
+  const render = (pages: string | null, keepPage = true) => renderPdf({
+    onHtml: keepPage ? (page) => { html = page } : undefined,
     url: `${origin}/revisions/${detail.id}/print${pages === null ? '' : `?pages=${pages}`}`,
     origin,
     cookies: value ? [{ name: cookieName, value }] : [],
@@ -110,7 +114,7 @@ async function revisionPrinter(event: H3Event, detail: Detail, stamp: LogStamp |
   return {
     render,
     async settlePageNumbers() {
-      let pages = await pagesOf(await render(null))
+      let pages = await pagesOf(await render(null, false))
       let raw = await render(pages)
       const moved = await pagesOf(raw)
       if (moved !== pages) {
@@ -220,7 +224,8 @@ async function renderAsSealed(event: H3Event, detail: Detail & { seal: NonNullab
   if (copy) {
     const printer = await revisionPrinter(event, detail, stamp)
     const pages = encodePages(detail.sections, await namedDestinationPages(copy.bytes))
-    const once = await printer.reproducible(await printer.render(pages))
+    // its print page is not needed: the same bytes need no explaining, and other bytes are rendered again below
+    const once = await printer.reproducible(await printer.render(pages, false))
     const sha = sha256Hex(once.bytes)
     if (sha === sealed) return { ...once, sha256: sha, renders: 1, agreed: true }
   }
