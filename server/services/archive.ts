@@ -1,6 +1,6 @@
 import type { H3Event } from 'h3'
 import { and, asc, count, desc, eq, gte, inArray, like, lt, or, sql, type SQL } from 'drizzle-orm'
-import { alias } from 'drizzle-orm/mysql-core'
+import { alias, type MySqlSelect } from 'drizzle-orm/mysql-core'
 import Papa from 'papaparse'
 import type { ArchiveQuery } from '../utils/records-schemas'
 import { parseVerifyQuery, sha256Hex } from '../utils/hashing'
@@ -24,37 +24,47 @@ export const REGISTER_PAGE_SIZE = 50
 // derived per sheet and per request): its approval's contractual code, and whether a later
 // revision of its sheet has been approved since (then it is superseded).
 const approvalCode = sql<string | null>`(SELECT v.contract_code FROM reviews v WHERE v.revision_id = ${r.id} AND v.decision = 'approve' ORDER BY v.id LIMIT 1)`
-const laterApproved = sql`EXISTS (SELECT 1 FROM reviews v JOIN revisions later ON later.id = v.revision_id WHERE later.sheet_id = ${r.sheetId} AND later.seq > ${r.seq} AND v.decision = 'approve')`
+const laterApproved = sql<number>`EXISTS (SELECT 1 FROM reviews v JOIN revisions later ON later.id = v.revision_id WHERE later.sheet_id = ${r.sheetId} AND later.seq > ${r.seq} AND v.decision = 'approve')`
+
+/** A seal's chain up to its project: seals → revisions → sheets → projects, for the register and its count. */
+function sealChain<T extends MySqlSelect>(query: T) {
+  return query
+    .innerJoin(r, eq(r.id, s.revisionId))
+    .innerJoin(tables.sheets, eq(tables.sheets.id, r.sheetId))
+    .innerJoin(tables.projects, eq(tables.projects.id, tables.sheets.projectId))
+}
 
 function registerQuery(where: SQL | undefined) {
   const sealer = alias(tables.users, 'sealer')
   const author = alias(tables.users, 'author')
-  return useDb().select({
+  return sealChain(useDb().select({
     sealId: s.id, archiveRef: s.archiveRef, verificationRef: s.verificationRef, pdfSha256: s.pdfSha256, pdfBytes: s.pdfBytes,
     pages: s.pages, sealedAt: s.sealedAt, sealedByName: sealer.name,
     revisionId: r.id, code: r.code, contentHash: r.contentHash, issuedAt: r.issuedAt, authorName: author.name,
     sheetId: tables.sheets.id, sheetReference: tables.sheets.reference, sheetTitle: tables.sheets.title,
     projectId: tables.projects.id, jobNumber: tables.projects.jobNumber, projectName: tables.projects.name,
-    approvalCode, laterApproved: sql<number>`${laterApproved}`,
-  }).from(s)
-    .innerJoin(r, eq(r.id, s.revisionId))
+    approvalCode, laterApproved,
+  }).from(s).$dynamic())
     .innerJoin(sealer, eq(sealer.id, s.sealedBy))
     .innerJoin(author, eq(author.id, r.authorId))
-    .innerJoin(tables.sheets, eq(tables.sheets.id, r.sheetId))
-    .innerJoin(tables.projects, eq(tables.projects.id, tables.sheets.projectId))
     .where(where)
     .orderBy(desc(s.sealedAt), desc(s.id))
-    .$dynamic()
 }
 
 type RegisterRow = Awaited<ReturnType<typeof registerQuery>>[number]
+
+/** The status of an approved revision from the facts the queries read (`later`: 1 when a later revision is approved). */
+function approvedRevisionStatus(contractCode: string | null, sealed: boolean, later: number | string) {
+  const superseded = Boolean(Number(later))
+  return deriveStatus({ decisions: [{ decision: 'approve', contractCode }], sealed, laterIssued: superseded, laterApproved: superseded })
+}
 
 /**
  * A row with its status, derived by the one rule every revision's status follows. A sealed revision
  * is approved, and an approved revision's status turns on later approvals only, not later issues.
  */
 function withStatus({ approvalCode: contractCode, laterApproved: later, ...row }: RegisterRow) {
-  const status = deriveStatus({ decisions: [{ decision: 'approve', contractCode }], sealed: true, laterIssued: Boolean(Number(later)), laterApproved: Boolean(Number(later)) })
+  const status = approvedRevisionStatus(contractCode, true, later)
   return { ...row, contractCode: status.contractCode, superseded: status.superseded, status: status.label }
 }
 
@@ -82,11 +92,7 @@ export async function archiveRegister(q: ArchiveQuery, userId: number) {
   const page = q.page ?? 1
   const pageSize = q.per ?? REGISTER_PAGE_SIZE
   const rows = await registerQuery(where).limit(pageSize).offset((page - 1) * pageSize)
-  const [{ total }] = await useDb().select({ total: count() }).from(s)
-    .innerJoin(r, eq(r.id, s.revisionId))
-    .innerJoin(tables.sheets, eq(tables.sheets.id, r.sheetId))
-    .innerJoin(tables.projects, eq(tables.projects.id, tables.sheets.projectId))
-    .where(where)
+  const [{ total }] = await sealChain(useDb().select({ total: count() }).from(s).$dynamic()).where(where)
   return { rows: rows.map(withStatus), total, page, pageSize }
 }
 
@@ -116,13 +122,16 @@ export function registerCsv(rows: Awaited<ReturnType<typeof wholeRegister>>) {
   })), { newline: '\r\n', escapeFormulae: CSV_FORMULA_START })
 }
 
-/** Approved revisions that still wait for their seal (and are not superseded). */
+/**
+ * Approved revisions that still wait for their seal: every approval without a seal, kept where the
+ * one status rule (deriveStatus) calls it approved, so a later approval (superseded) drops it.
+ */
 export async function awaitingSeal(userId: number) {
   const author = alias(tables.users, 'author')
-  return useDb().select({
+  const approvals = await useDb().select({
     revisionId: r.id, code: r.code, sheetId: r.sheetId, sheetReference: tables.sheets.reference, sheetTitle: tables.sheets.title,
     jobNumber: tables.projects.jobNumber, projectName: tables.projects.name, authorName: author.name, approvedAt: tables.reviews.createdAt,
-    contractCode: tables.reviews.contractCode,
+    contractCode: tables.reviews.contractCode, laterApproved,
   }).from(tables.reviews)
     .innerJoin(r, eq(r.id, tables.reviews.revisionId))
     .innerJoin(author, eq(author.id, r.authorId))
@@ -130,9 +139,12 @@ export async function awaitingSeal(userId: number) {
     .innerJoin(tables.projects, eq(tables.projects.id, tables.sheets.projectId))
     .where(and(
       eq(tables.reviews.decision, 'approve'), inArray(tables.projects.id, await recordsProjects(userId)),
-      sql`NOT EXISTS (SELECT 1 FROM seals x WHERE x.revision_id = ${r.id})`, sql`NOT ${laterApproved}`,
+      sql`NOT EXISTS (SELECT 1 FROM seals x WHERE x.revision_id = ${r.id})`,
     ))
     .orderBy(asc(tables.reviews.createdAt))
+  return approvals
+    .filter(({ contractCode, laterApproved: later }) => approvedRevisionStatus(contractCode, false, later).status === 'approved')
+    .map(({ laterApproved: _, ...row }) => row)
 }
 
 /** The sealed document the condition finds among the user's projects: one of another project reads as none. */
