@@ -225,7 +225,11 @@ async function renderAsSealed(event: H3Event, detail: Detail & { seal: NonNullab
     const printer = await revisionPrinter(event, detail, stamp)
     const pages = encodePages(detail.sections, await namedDestinationPages(copy.bytes))
     // its print page is not needed: the same bytes need no explaining, and other bytes are rendered again below
-    const once = await printer.reproducible(await printer.render(pages, false))
+    console.error('[pdftrace] copy+pages read')
+    const rawPdf = await printer.render(pages, false)
+    console.error('[pdftrace] raw rendered')
+    const once = await printer.reproducible(rawPdf)
+    console.error('[pdftrace] reproducible')
     const sha = sha256Hex(once.bytes)
     if (sha === sealed) return { ...once, sha256: sha, renders: 1, agreed: true }
   }
@@ -239,10 +243,13 @@ async function renderAsSealed(event: H3Event, detail: Detail & { seal: NonNullab
  * whether the print page itself changed (the revision's data) or only Chromium's output did.
  */
 export async function resealCheck(event: H3Event, revisionId: number, user: SessionUser) {
+  const T0 = performance.now(); const lap = (w: string) => console.error(`[pdftrace] check ${w} ${(performance.now() - T0).toFixed(0)}`)
   const detail = await getRevisionDetail(revisionId, user)
+  lap('detail')
   if (!detail.seal) throw createError({ statusCode: 409, message: `${detail.sheet.reference} ${detail.code} is not sealed` })
   const sealed = detail.seal.pdfSha256
   const { bytes, html, sha256: renderedSha256, renders } = await renderAsSealed(event, { ...detail, seal: detail.seal }, sealed)
+  lap('rendered')
   const identical = renderedSha256 === sealed
   let kept: { pdf: string, printPage: string, printPageChanged: boolean | null } | null = null
   if (!identical) {

@@ -1,7 +1,7 @@
 // PDF rendering with puppeteer-core and the system Chromium: one browser for the process (relaunched
 // when it goes away), a fresh page per job, only our own origin reachable, a deadline per job.
 import { availableParallelism } from 'node:os'
-import puppeteer, { type Browser } from 'puppeteer-core'
+import puppeteer, { type Browser, type BrowserContext, type Page } from 'puppeteer-core'
 import { PDFArray, PDFDict, PDFDocument, PDFHexString, PDFName, PDFRef, PDFString, type PDFObject } from 'pdf-lib'
 import { PAGE_MARGIN_MM } from './print-templates'
 
@@ -29,6 +29,7 @@ function useBrowser(): Promise<Browser> {
 export async function closeBrowser() {
   const current = browser
   browser = null
+  idleTabs.length = 0
   if (current) await (await current.catch(() => null))?.close()
 }
 
@@ -107,30 +108,70 @@ export function renderPdf(job: PdfJob): Promise<Uint8Array> {
   return gate.run(() => renderNow(job))
 }
 
-async function renderNow(job: PdfJob): Promise<Uint8Array> {
-  const timeoutMs = job.timeoutMs ?? 30_000
-  const b = await useBrowser().catch((error: unknown) => {
-    throw new PdfRenderError(`Chromium could not start: ${error instanceof Error ? error.message : String(error)}`)
-  })
-  const page = await b.newPage()
-  let timer: NodeJS.Timeout | undefined
-  const deadline = new Promise<never>((_, reject) => {
-    timer = setTimeout(() => reject(new PdfRenderError(`rendering took longer than ${timeoutMs / 1000} s`)), timeoutMs)
-  })
-  const work = (async () => {
+/**
+ * A print tab kept open between renders: its own browser context (so one job's session cookie is
+ * never another's), scripts off, and every request outside `origin` refused. A tab that has printed
+ * once keeps the print page's stylesheet and fonts decoded, which a fresh tab loads again each time
+ * (about a second of each render); the next job's page replaces the document, so nothing but those
+ * caches carries over.
+ */
+interface PrintTab {
+  browser: Browser
+  context: BrowserContext
+  page: Page
+  origin: string
+}
+
+const idleTabs: PrintTab[] = []
+
+async function openTab(b: Browser, origin: string): Promise<PrintTab> {
+  const context = await b.createBrowserContext()
+  try {
+    const page = await context.newPage()
     // the print page is static HTML and CSS: no script runs in it
     await page.setJavaScriptEnabled(false)
     await page.setRequestInterception(true)
     page.on('request', (request) => {
       let allowed = false
       try {
-        allowed = new URL(request.url()).origin === job.origin
+        allowed = new URL(request.url()).origin === origin
       }
       catch {}
       if (allowed) void request.continue()
       else void request.abort('blockedbyclient')
     })
-    if (job.cookies.length) await page.setCookie(...job.cookies.map(c => ({ ...c, url: job.origin })))
+    return { browser: b, context, page, origin }
+  }
+  catch (error) {
+    await context.close().catch(() => {})
+    throw error
+  }
+}
+
+/** An idle tab of this browser for this origin, or a new one; tabs of a browser that went away are dropped. */
+async function takeTab(b: Browser, origin: string): Promise<PrintTab> {
+  while (idleTabs.length) {
+    const tab = idleTabs.pop()!
+    if (tab.browser === b && tab.origin === origin && b.connected && !tab.page.isClosed()) return tab
+    await tab.context.close().catch(() => {})
+  }
+  return openTab(b, origin)
+}
+
+async function renderNow(job: PdfJob): Promise<Uint8Array> {
+  const timeoutMs = job.timeoutMs ?? 30_000
+  const b = await useBrowser().catch((error: unknown) => {
+    throw new PdfRenderError(`Chromium could not start: ${error instanceof Error ? error.message : String(error)}`)
+  })
+  const tab = await takeTab(b, job.origin)
+  const { page, context } = tab
+  let timer: NodeJS.Timeout | undefined
+  const deadline = new Promise<never>((_, reject) => {
+    timer = setTimeout(() => reject(new PdfRenderError(`rendering took longer than ${timeoutMs / 1000} s`)), timeoutMs)
+  })
+  let clean = false
+  const work = (async () => {
+    if (job.cookies.length) await context.setCookie(...job.cookies.map(c => ({ ...c, domain: new URL(job.origin).hostname, path: '/' })))
     // the load event: the page and its stylesheets and images are in (no script runs to fetch more,
     // and the fonts are loaded below), so there is nothing to gain from waiting for the network to
     // fall idle, which costs half a second per render
@@ -153,8 +194,10 @@ async function renderNow(job: PdfJob): Promise<Uint8Array> {
       margin: { top: `${PAGE_MARGIN_MM.top}mm`, bottom: `${PAGE_MARGIN_MM.bottom}mm`, left: `${PAGE_MARGIN_MM.side}mm`, right: `${PAGE_MARGIN_MM.side}mm` },
       timeout: timeoutMs,
     })
+    clean = true
     return new Uint8Array(pdf)
   })()
+  work.catch(() => {}) // when the deadline has answered first, its failure has no one to tell
   try {
     return await Promise.race([work, deadline])
   }
@@ -164,7 +207,14 @@ async function renderNow(job: PdfJob): Promise<Uint8Array> {
   }
   finally {
     clearTimeout(timer)
-    await page.close().catch(() => {})
+    // a tab that printed goes back for the next job without this job's cookies; one that failed or
+    // ran out of time is closed (its work may still be running)
+    const kept = clean && !page.isClosed() && await context.cookies().then(async (left) => {
+      if (left.length) await context.deleteCookie(...left)
+      return true
+    }, () => false)
+    if (kept) idleTabs.push(tab)
+    else await context.close().catch(() => {})
   }
 }
 
