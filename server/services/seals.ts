@@ -2,7 +2,7 @@ import type { H3Event } from 'h3'
 import { eq } from 'drizzle-orm'
 import { sha256Hex } from '../utils/hashing'
 import { verificationRef } from '../../shared/utils/verification-ref'
-import { makeReproducible, namedDestinationPages, PdfBusyError, PdfRenderError, printOrigin, renderPdf } from '../utils/pdf'
+import { makeReproducible, namedDestinationPages, PdfBusyError, pdfSlotFree, PdfRenderError, printOrigin, renderPdf } from '../utils/pdf'
 import { CAUTION, footerTemplate, headerTemplate, isoDay, logStampKeywords, type LogStamp, type TitleBlock } from '../utils/print-templates'
 import { encodePages } from '../../shared/report/page-references'
 import type { OfficeStamp } from './office'
@@ -42,17 +42,19 @@ export function titleBlockOf(detail: Detail, office: OfficeStamp | null): TitleB
 /**
  * One render is not proof of the document's bytes, so render until two renders agree (three at
  * most) and take the agreed bytes with the print page they came from. The page numbers are settled
- * first; the render that settled them is the first candidate. A check against sealed bytes
+ * first; the render that settles them and a second render with the same numbers run side by side
+ * in two print tabs when a slot is free, and agree in the usual case. A check against sealed bytes
  * (`accept`) that finds no match answers with the last render rather than an error.
  * @throws 502 when no two renders agree.
  */
 async function agreedRevisionPdf(event: H3Event, detail: Detail, stamp: LogStamp | undefined, accept?: (sha256: string) => boolean) {
   const printer = await revisionPrinter(event, detail, stamp)
-  const { pages, raw } = await printer.settlePageNumbers()
+  const { pages, raw, second } = await printer.settlePageNumbers()
   const seen = new Map<string, number>()
   let last: Rendered | null = null
   for (let attempt = 1; attempt <= 3; attempt++) {
-    last = await printer.reproducible(attempt === 1 ? raw : await printer.render(pages))
+    const bytes = attempt === 1 ? raw : attempt === 2 && second ? second : await printer.render(pages)
+    last = await printer.reproducible(bytes)
     const sha = sha256Hex(last.bytes)
     if (accept?.(sha) || seen.has(sha)) return { ...last, sha256: sha, renders: attempt, agreed: true }
     seen.set(sha, attempt)
@@ -113,15 +115,22 @@ async function revisionPrinter(event: H3Event, detail: Detail, stamp: LogStamp |
   const pagesOf = async (raw: Uint8Array) => encodePages(detail.sections, await namedDestinationPages(raw))
   return {
     render,
+    /**
+     * The page of every section (a first render with placeholders), then the render with those
+     * numbers and, beside it, a second one to compare it with (null when this server's renders are
+     * all taken: it is then made after). One more render when the numbers moved a heading.
+     */
     async settlePageNumbers() {
       let pages = await pagesOf(await render(null, false))
-      let raw = await render(pages)
+      // both print the same print page, so the first one's copy of it serves for either
+      let [raw, second] = await Promise.all([render(pages), pdfSlotFree() ? render(pages, false) : null])
       const moved = await pagesOf(raw)
       if (moved !== pages) {
         pages = moved
         raw = await render(pages)
+        second = null
       }
-      return { pages, raw }
+      return { pages, raw, second }
     },
     /** the render made reproducible, with the print page of the last render */
     reproducible: async (raw: Uint8Array): Promise<Rendered> => ({

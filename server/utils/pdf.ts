@@ -158,6 +158,11 @@ async function takeTab(b: Browser, origin: string): Promise<PrintTab> {
   return openTab(b, origin)
 }
 
+/** Whether a render started now would run at once rather than wait in the queue. */
+export function pdfSlotFree() {
+  return gate.load.running < gate.slots
+}
+
 async function renderNow(job: PdfJob): Promise<Uint8Array> {
   const timeoutMs = job.timeoutMs ?? 30_000
   const b = await useBrowser().catch((error: unknown) => {
