@@ -62,6 +62,9 @@ export default defineNuxtConfig({
       officeLocale: 'en-GB',
     },
   },
+  // the print page is static HTML and CSS that Chromium prints with scripts off: no scripts, no
+  // resource hints, and no data payload (which repeated the whole report a second time)
+  routeRules: { '/revisions/*/print': { noScripts: true } },
   nitro: {
     experimental: { tasks: true },
     imports: { dirs: ['./server/services'] },
