@@ -64,7 +64,11 @@ export default defineNuxtConfig({
   },
   // the print page is static HTML and CSS that Chromium prints with scripts off: no scripts, no
   // resource hints, and no data payload (which repeated the whole report a second time)
-  routeRules: { '/revisions/*/print': { noScripts: true } },
+  routeRules: {
+    '/revisions/*/print': { noScripts: true },
+    // the address people type for a sign-in page
+    '/login': { redirect: { to: '/signin', statusCode: 301 } },
+  },
   nitro: {
     experimental: { tasks: true },
     imports: { dirs: ['./server/services'] },
