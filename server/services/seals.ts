@@ -56,10 +56,10 @@ async function agreedRevisionPdf(event: H3Event, detail: Detail, stamp: LogStamp
     const bytes = attempt === 1 ? raw : attempt === 2 && second ? second : await printer.render(pages)
     last = await printer.reproducible(bytes)
     const sha = sha256Hex(last.bytes)
-    if (accept?.(sha) || seen.has(sha)) return { ...last, sha256: sha, renders: attempt, agreed: true }
+    if (accept?.(sha) || seen.has(sha)) return { ...last, sha256: sha, renders: attempt, agreed: true, sectionPages: pages }
     seen.set(sha, attempt)
   }
-  if (accept && last) return { ...last, sha256: sha256Hex(last.bytes), renders: 3, agreed: false }
+  if (accept && last) return { ...last, sha256: sha256Hex(last.bytes), renders: 3, agreed: false, sectionPages: pages }
   throw createError({ statusCode: 502, message: 'The PDF could not be rendered reproducibly: three renders of the same revision gave different bytes; try again when the server is less busy' })
 }
 
@@ -67,6 +67,15 @@ type Rendered = { bytes: Uint8Array, pages: number, html: string }
 
 /** Where the print page of a seal is kept beside its PDF, to explain a later render that differs. */
 const printPageKey = (pdfKey: string) => pdfKey.replace(/\.pdf$/, '.print.html')
+
+/** Where the page of every section a seal printed is kept beside its PDF ('3.3.4.7', see encodePages), for its re-renders. */
+const sectionPagesKey = (pdfKey: string) => pdfKey.replace(/\.pdf$/, '.pages.txt')
+
+/** The storage key of a revision's sealed PDF, or null when it has no seal. */
+async function sealStorageKey(revisionId: number) {
+  const [seal] = await useDb().select({ storageKey: tables.seals.storageKey }).from(tables.seals).where(eq(tables.seals.revisionId, revisionId))
+  return seal?.storageKey ?? null
+}
 
 /** What the print page shows: the frozen report, its sections and the title block, all fixed at approval. */
 export async function printViewOf(detail: Detail) {
@@ -190,11 +199,12 @@ export async function sealRevision(event: H3Event, revisionId: number, user: Ses
     throw createError({ statusCode: 409, message: `${detail.sheet.reference} ${detail.code} is ${detail.status.label.toLowerCase()}: only an approved, unsealed revision can be sealed` })
   }
   const stamp = await logStampFor(detail)
-  const { bytes, pages, html, sha256: pdfSha256 } = await agreedRevisionPdf(event, detail, stamp)
+  const { bytes, pages, html, sha256: pdfSha256, sectionPages } = await agreedRevisionPdf(event, detail, stamp)
   const archiveRef = archiveRefOf(detail)
   const storageKey = generatedKey('seals', 'pdf')
   await writeStored(storageKey, bytes)
   await writeStored(printPageKey(storageKey), new TextEncoder().encode(html))
+  await writeStored(sectionPagesKey(storageKey), new TextEncoder().encode(sectionPages))
   try {
     await withRetry(() => historyTransaction(async (tx) => {
       const [{ id }] = await tx.insert(tables.seals).values({
@@ -212,7 +222,7 @@ export async function sealRevision(event: H3Event, revisionId: number, user: Ses
     if (duplicate || isWriteConflict(error)) {
       const now = await getRevisionDetail(revisionId, user)
       if (now.seal) {
-        for (const key of [storageKey, printPageKey(storageKey)]) await useStorage('records').removeItem(key).catch(() => {})
+        for (const key of [storageKey, printPageKey(storageKey), sectionPagesKey(storageKey)]) await useStorage('records').removeItem(key).catch(() => {})
         return existingSeal(event, { ...now, seal: now.seal })
       }
     }
@@ -222,28 +232,30 @@ export async function sealRevision(event: H3Event, revisionId: number, user: Ses
 }
 
 /**
- * A sealed revision rendered again for comparison. The sealed copy's own named destinations give
- * the page of every section, so one render with those numbers is the render the seal made; only
- * when its bytes differ (or the copy cannot be read) do the page numbers get settled afresh and
- * renders repeated, as when sealing.
+ * A sealed revision rendered again for comparison. The page of every section, kept beside the seal
+ * (or, for a seal made before that was kept, read from the sealed copy's own named destinations),
+ * makes one render the render the seal made; only when its bytes differ (or neither can be read) do
+ * the page numbers get settled afresh and renders repeated, as when sealing. The kept numbers need
+ * no trust: a render from wrong ones gives other bytes, and is then done again from scratch.
  */
 async function renderAsSealed(event: H3Event, detail: Detail & { seal: NonNullable<Detail['seal']> }, sealed: string) {
   const stamp = sealedStamp(detail.seal)
-  const copy = await sealedPdf(detail.id).catch(() => null)
-  if (copy) {
+  const key = await sealStorageKey(detail.id)
+  const kept = key ? await readStored(sectionPagesKey(key)).catch(() => null) : null
+  let pages = kept ? new TextDecoder().decode(kept) : null
+  if (pages === null) {
+    const copy = await sealedPdf(detail.id).catch(() => null)
+    if (copy) pages = encodePages(detail.sections, await namedDestinationPages(copy.bytes))
+  }
+  if (pages !== null) {
     const printer = await revisionPrinter(event, detail, stamp)
-    const pages = encodePages(detail.sections, await namedDestinationPages(copy.bytes))
     // its print page is not needed: the same bytes need no explaining, and other bytes are rendered again below
-    console.error('[pdftrace] copy+pages read')
-    const rawPdf = await printer.render(pages, false)
-    console.error('[pdftrace] raw rendered')
-    const once = await printer.reproducible(rawPdf)
-    console.error('[pdftrace] reproducible')
+    const once = await printer.reproducible(await printer.render(pages, false))
     const sha = sha256Hex(once.bytes)
     if (sha === sealed) return { ...once, sha256: sha, renders: 1, agreed: true }
   }
   const again = await agreedRevisionPdf(event, detail, stamp, sha => sha === sealed)
-  return { ...again, renders: again.renders + (copy ? 1 : 0) }
+  return { ...again, renders: again.renders + (pages !== null ? 1 : 0) }
 }
 
 /**
@@ -262,8 +274,8 @@ export async function resealCheck(event: H3Event, revisionId: number, user: Sess
   const identical = renderedSha256 === sealed
   let kept: { pdf: string, printPage: string, printPageChanged: boolean | null } | null = null
   if (!identical) {
-    const [seal] = await useDb().select({ storageKey: tables.seals.storageKey }).from(tables.seals).where(eq(tables.seals.revisionId, revisionId))
-    const sealedPage = seal ? await readStored(printPageKey(seal.storageKey)) : null
+    const key = await sealStorageKey(revisionId)
+    const sealedPage = key ? await readStored(printPageKey(key)) : null
     const pdf = generatedKey('reseal-checks', 'pdf')
     await writeStored(pdf, bytes)
     await writeStored(printPageKey(pdf), new TextEncoder().encode(html))
