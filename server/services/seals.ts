@@ -6,6 +6,7 @@ import { makeReproducible, namedDestinationPages, PdfBusyError, pdfSlotFree, Pdf
 import { CAUTION, footerTemplate, headerTemplate, isoDay, logStampKeywords, type LogStamp, type TitleBlock } from '../utils/print-templates'
 import { encodePages } from '../../shared/report/page-references'
 import type { OfficeStamp } from './office'
+import { withSealProgress, type SealStep } from '../utils/seal-progress'
 
 type SessionUser = { id: number, name: string, email: string, role: import('../../shared/types/roles').Role }
 type Detail = Awaited<ReturnType<typeof getRevisionDetail>>
@@ -47,13 +48,19 @@ export function titleBlockOf(detail: Detail, office: OfficeStamp | null): TitleB
  * (`accept`) that finds no match answers with the last render rather than an error.
  * @throws 502 when no two renders agree.
  */
-async function agreedRevisionPdf(event: H3Event, detail: Detail, stamp: LogStamp | undefined, accept?: (sha256: string) => boolean) {
+async function agreedRevisionPdf(event: H3Event, detail: Detail, stamp: LogStamp | undefined, step: (step: SealStep) => void, accept?: (sha256: string) => boolean) {
   const printer = await revisionPrinter(event, detail, stamp)
-  const { pages, raw, second } = await printer.settlePageNumbers()
+  const { pages, raw, second } = await printer.settlePageNumbers(step)
+  step('comparing')
   const seen = new Map<string, number>()
   let last: Rendered | null = null
   for (let attempt = 1; attempt <= 3; attempt++) {
-    const bytes = attempt === 1 ? raw : attempt === 2 && second ? second : await printer.render(pages)
+    let bytes = attempt === 1 ? raw : attempt === 2 && second ? second : null
+    if (!bytes) {
+      step('again')
+      bytes = await printer.render(pages)
+      step('comparing')
+    }
     last = await printer.reproducible(bytes)
     const sha = sha256Hex(last.bytes)
     if (accept?.(sha) || seen.has(sha)) return { ...last, sha256: sha, renders: attempt, agreed: true, sectionPages: pages }
@@ -129,12 +136,15 @@ async function revisionPrinter(event: H3Event, detail: Detail, stamp: LogStamp |
      * numbers and, beside it, a second one to compare it with (null when this server's renders are
      * all taken: it is then made after). One more render when the numbers moved a heading.
      */
-    async settlePageNumbers() {
+    async settlePageNumbers(step: (step: SealStep) => void) {
+      step('numbering')
       let pages = await pagesOf(await render(null, false))
+      step('printing')
       // both print the same print page, so the first one's copy of it serves for either
       let [raw, second] = await Promise.all([render(pages), pdfSlotFree() ? render(pages, false) : null])
       const moved = await pagesOf(raw)
       if (moved !== pages) {
+        step('again')
         pages = moved
         raw = await render(pages)
         second = null
@@ -199,7 +209,17 @@ export async function sealRevision(event: H3Event, revisionId: number, user: Ses
     throw createError({ statusCode: 409, message: `${detail.sheet.reference} ${detail.code} is ${detail.status.label.toLowerCase()}: only an approved, unsealed revision can be sealed` })
   }
   const stamp = await logStampFor(detail)
-  const { bytes, pages, html, sha256: pdfSha256, sectionPages } = await agreedRevisionPdf(event, detail, stamp)
+  return withSealProgress(revisionId, 'seal', async (step) => {
+    const agreed = await agreedRevisionPdf(event, detail, stamp, step)
+    step('storing')
+    return storeSeal(event, detail, stamp, agreed, user)
+  })
+}
+
+/** Stores an agreed render as the revision's seal: the PDF and what explains it, then the seal row, its log leaf and audit event. */
+async function storeSeal(event: H3Event, detail: Detail, stamp: LogStamp, agreed: Awaited<ReturnType<typeof agreedRevisionPdf>>, user: SessionUser) {
+  const { bytes, pages, html, sha256: pdfSha256, sectionPages } = agreed
+  const revisionId = detail.id
   const archiveRef = archiveRefOf(detail)
   const storageKey = generatedKey('seals', 'pdf')
   await writeStored(storageKey, bytes)
@@ -238,7 +258,7 @@ export async function sealRevision(event: H3Event, revisionId: number, user: Ses
  * the page numbers get settled afresh and renders repeated, as when sealing. The kept numbers need
  * no trust: a render from wrong ones gives other bytes, and is then done again from scratch.
  */
-async function renderAsSealed(event: H3Event, detail: Detail & { seal: NonNullable<Detail['seal']> }, sealed: string) {
+async function renderAsSealed(event: H3Event, detail: Detail & { seal: NonNullable<Detail['seal']> }, sealed: string, step: (step: SealStep) => void) {
   const stamp = sealedStamp(detail.seal)
   const key = await sealStorageKey(detail.id)
   const kept = key ? await readStored(sectionPagesKey(key)).catch(() => null) : null
@@ -249,12 +269,17 @@ async function renderAsSealed(event: H3Event, detail: Detail & { seal: NonNullab
   }
   if (pages !== null) {
     const printer = await revisionPrinter(event, detail, stamp)
+    step('printing')
     // its print page is not needed: the same bytes need no explaining, and other bytes are rendered again below
-    const once = await printer.reproducible(await printer.render(pages, false))
+    const raw = await printer.render(pages, false)
+    step('comparing')
+    const once = await printer.reproducible(raw)
     const sha = sha256Hex(once.bytes)
     if (sha === sealed) return { ...once, sha256: sha, renders: 1, agreed: true }
   }
-  const again = await agreedRevisionPdf(event, detail, stamp, sha => sha === sealed)
+  step('again')
+  // the seal's own steps from here on show as the check's one step of printing again
+  const again = await agreedRevisionPdf(event, detail, stamp, s => step(s === 'comparing' ? 'comparing' : 'again'), sha => sha === sealed)
   return { ...again, renders: again.renders + (pages !== null ? 1 : 0) }
 }
 
@@ -264,13 +289,11 @@ async function renderAsSealed(event: H3Event, detail: Detail & { seal: NonNullab
  * whether the print page itself changed (the revision's data) or only Chromium's output did.
  */
 export async function resealCheck(event: H3Event, revisionId: number, user: SessionUser) {
-  const T0 = performance.now(); const lap = (w: string) => console.error(`[pdftrace] check ${w} ${(performance.now() - T0).toFixed(0)}`)
   const detail = await getRevisionDetail(revisionId, user)
-  lap('detail')
   if (!detail.seal) throw createError({ statusCode: 409, message: `${detail.sheet.reference} ${detail.code} is not sealed` })
   const sealed = detail.seal.pdfSha256
-  const { bytes, html, sha256: renderedSha256, renders } = await renderAsSealed(event, { ...detail, seal: detail.seal }, sealed)
-  lap('rendered')
+  const seal = detail.seal
+  const { bytes, html, sha256: renderedSha256, renders } = await withSealProgress(revisionId, 'check', step => renderAsSealed(event, { ...detail, seal }, sealed, step))
   const identical = renderedSha256 === sealed
   let kept: { pdf: string, printPage: string, printPageChanged: boolean | null } | null = null
   if (!identical) {

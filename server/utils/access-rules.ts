@@ -81,6 +81,7 @@ export const ACCESS_RULES = {
   // records: seal, archive, verify, the history log
   'POST /api/revisions/:id/seal': member('revision', ['records']),
   'POST /api/revisions/:id/reseal-check': member('revision', ['records']),
+  'GET /api/revisions/:id/seal-progress': member('revision', ['records']),
   'GET /api/revisions/:id/pdf': member('revision'),
   'GET /api/archive': account(['records'], 'records'),
   'GET /api/archive/export.csv': account(['records'], 'records'),

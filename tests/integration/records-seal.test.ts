@@ -41,7 +41,27 @@ describe('sealing an approved revision', () => {
   })
 
   it('renders, stores and records the PDF; its text carries the hash, the references, the results and the caution', async () => {
-    const res = await records.json('POST', `/api/revisions/${approved.id}/seal`)
+    // while it seals, the page can ask where it stands: the steps in order, never back
+    const idle = await records.json('GET', `/api/revisions/${approved.id}/seal-progress`)
+    expect(idle.body).toEqual({ running: false })
+    expect((await checker.json('GET', `/api/revisions/${approved.id}/seal-progress`)).status).toBe(403)
+    const sealing = records.json('POST', `/api/revisions/${approved.id}/seal`)
+    let done = false
+    void sealing.finally(() => { done = true })
+    const seen: Array<{ index: number, steps: number, label: string, plan: string[] }> = []
+    while (!done) {
+      const now = await records.json('GET', `/api/revisions/${approved.id}/seal-progress`)
+      expect(now.status).toBe(200)
+      if (now.body.running) seen.push(now.body)
+      await new Promise(r => setTimeout(r, 100))
+    }
+    const res = await sealing
+    expect(seen.length, 'progress was reported while sealing').toBeGreaterThan(0)
+    expect(seen[0]!.plan).toHaveLength(4)
+    expect(seen.every(p => (p.steps === 4 && p.plan.includes(p.label)) || p.label.includes('once more'))).toBe(true)
+    expect(seen.map(p => p.index)).toEqual([...seen.map(p => p.index)].sort((x, y) => x - y))
+    expect(new Set(seen.map(p => p.label)).size, 'more than one step was seen').toBeGreaterThan(1)
+    expect((await records.json('GET', `/api/revisions/${approved.id}/seal-progress`)).body).toEqual({ running: false })
     expect(res.status, JSON.stringify(res.body)).toBe(201)
     expect(res.body.status.status).toBe('sealed')
     const seal = res.body.seal
