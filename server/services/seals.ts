@@ -87,7 +87,15 @@ async function sealStorageKey(revisionId: number) {
 /** What the print page shows: the frozen report, its sections and the title block, all fixed at approval. */
 export async function printViewOf(detail: Detail) {
   const office = await officeStamp(detail.approvedBy?.officeVersion ?? null)
-  return { id: detail.id, titleBlock: titleBlockOf(detail, office), sections: detail.sections, reportHtml: detail.reportHtml, caution: CAUTION }
+  return { id: detail.id, titleBlock: titleBlockOf(detail, office), sections: detail.sections, reportHtml: detail.reportHtml, caution: CAUTION, sealedPages: await sealedSectionPages(detail) }
+}
+
+/** The page of every section as the seal printed them ('3.3.4.7'), or null when not sealed or not kept (older seals). */
+async function sealedSectionPages(detail: Detail): Promise<string | null> {
+  if (!detail.seal) return null
+  const key = await sealStorageKey(detail.id)
+  const kept = key ? await readStored(sectionPagesKey(key)).catch(() => null) : null
+  return kept ? new TextDecoder().decode(kept) : null
 }
 
 function renderFailure(event: H3Event) {
@@ -120,9 +128,9 @@ async function revisionPrinter(event: H3Event, detail: Detail, stamp: LogStamp |
    * a check's render that is set aside when it differs): reading the page back costs a moment.
    * @throws 502 saying why rendering failed, 503 when this server's renders are all busy.
    */
-  const render = (pages: string | null, keepPage = true) => renderPdf({
+  const render = (pages: string, keepPage = true) => renderPdf({
     onHtml: keepPage ? (page) => { html = page } : undefined,
-    url: `${origin}/revisions/${detail.id}/print${pages === null ? '' : `?pages=${pages}`}`,
+    url: `${origin}/revisions/${detail.id}/print?pages=${pages}`,
     origin,
     cookies: value ? [{ name: cookieName, value }] : [],
     headerTemplate: headerTemplate(block),
@@ -138,7 +146,8 @@ async function revisionPrinter(event: H3Event, detail: Detail, stamp: LogStamp |
      */
     async settlePageNumbers(step: (step: SealStep) => void) {
       step('numbering')
-      let pages = await pagesOf(await render(null, false))
+      // every page 0: the print page sets '00' where a number goes, as wide as the numbers to come
+      let pages = await pagesOf(await render(encodePages(detail.sections, new Map()), false))
       step('printing')
       // both print the same print page, so the first one's copy of it serves for either
       let [raw, second] = await Promise.all([render(pages), pdfSlotFree() ? render(pages, false) : null])
@@ -260,9 +269,7 @@ async function storeSeal(event: H3Event, detail: Detail, stamp: LogStamp, agreed
  */
 async function renderAsSealed(event: H3Event, detail: Detail & { seal: NonNullable<Detail['seal']> }, sealed: string, step: (step: SealStep) => void) {
   const stamp = sealedStamp(detail.seal)
-  const key = await sealStorageKey(detail.id)
-  const kept = key ? await readStored(sectionPagesKey(key)).catch(() => null) : null
-  let pages = kept ? new TextDecoder().decode(kept) : null
+  let pages = await sealedSectionPages(detail)
   if (pages === null) {
     const copy = await sealedPdf(detail.id).catch(() => null)
     if (copy) pages = encodePages(detail.sections, await namedDestinationPages(copy.bytes))

@@ -33,12 +33,14 @@ export function decodePages(sections: readonly PrintedSection[], text: unknown):
 
 /**
  * The report's links to its own sections (the front page's `a.tb-xref`) with the page they lead to,
- * as `data-page` for the print stylesheet to show; '00' where the page is not known yet, so that the
- * first pass lays the text out as wide as the second.
+ * as `data-page` for the print stylesheet to show. Where the page is not known yet, `placeholder`:
+ * '00' for a render that finds the pages, so that it lays the text out as wide as the next; null
+ * (no `data-page`, so no number) for a print view opened by a person before any seal numbered it.
  */
-export function withPageReferences(html: string, pageOf: ReadonlyMap<string, number>): string {
-  return html.replace(/<a class="tb-xref" href="#([^"]+)">/g, (_, id: string) => {
+export function withPageReferences(html: string, pageOf: ReadonlyMap<string, number>, placeholder: string | null = '00'): string {
+  return html.replace(/<a class="tb-xref" href="#([^"]+)">/g, (match, id: string) => {
     const page = pageOf.get(id)
-    return `<a class="tb-xref" href="#${id}" data-page="${page ? escapeHtml(String(page)) : '00'}">`
+    const shown = page ? String(page) : placeholder
+    return shown === null ? match : `<a class="tb-xref" href="#${id}" data-page="${escapeHtml(shown)}">`
   })
 }

@@ -120,6 +120,10 @@ describe('printing a revision', () => {
       expect(found.out).toEqual([])
       expect(found.document).toBeLessThanOrEqual(CONTENT_WIDTH_PX)
       await screenshot(records, `print-${id}`)
+      // opened by a person before any seal: no page numbers yet (no '00' placeholders), and a note that says so
+      expect(new Set(await records.locator('.print-contents-page').allInnerTexts())).toEqual(new Set(['']))
+      expect(await records.locator('a.tb-xref[data-page]').count()).toBe(0)
+      expect(await records.locator('.print-contents h2').evaluate(h => getComputedStyle(h, '::after').content)).toContain('Page numbers are set when the PDF is made')
     }
 
     // sealing prints twice and numbers the contents with the pages the headings print on
@@ -134,10 +138,12 @@ describe('printing a revision', () => {
     const contents = pages[0]!.replace(/\s+/g, ' ')
     expect(contents).toContain('Contents')
     let checked = 0
+    const printedPage = new Map<string, number>()
     for (const s of detail.sections.filter(x => x.level === 1)) {
       const listed = new RegExp(`${s.title.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')} (\\d+)`).exec(contents)
       expect(listed, s.title).not.toBeNull()
       const page = Number(listed![1])
+      printedPage.set(s.id, page)
       expect(page).toBeGreaterThan(1)
       expect(pages[page - 1]!.replace(/\s+/g, ' '), `${s.title} on page ${page}`).toContain(s.title)
       checked += 1
@@ -157,6 +163,11 @@ describe('printing a revision', () => {
     expect(recheck.status).toBe(200)
     expect(recheck.body.identical).toBe(true)
     const print = await clerk.fetch(`/revisions/${approved[0]}/print`)
-    expect(await print.text()).toContain('Harrow &amp; Vane Structural Engineers')
+    const printHtml = await print.text()
+    expect(printHtml).toContain('Harrow &amp; Vane Structural Engineers')
+    // the print view of a sealed revision lists the pages its sealed PDF printed
+    const viewPages = new Map([...printHtml.matchAll(/<a href="#([^"]+)">[^<]*<\/a><span class="print-contents-leader"><\/span><span class="print-contents-page">(\d*)<\/span>/g)].map(m => [m[1]!, Number(m[2])]))
+    for (const [id, page] of printedPage) expect(viewPages.get(id), id).toBe(page)
+    expect(printHtml).not.toContain('print-contents-unnumbered')
   })
 })

@@ -73,5 +73,13 @@ describe('page references for print', () => {
   it('puts the page on each link of the front page, a placeholder while unknown', () => {
     const html = '<a class="tb-xref" href="#a">A</a> <a class="tb-xref" href="#b">B</a>'
     expect(withPageReferences(html, new Map([['a', 4]]))).toBe('<a class="tb-xref" href="#a" data-page="4">A</a> <a class="tb-xref" href="#b" data-page="00">B</a>')
+    // a render that finds the pages asks with every page 0, and gets the placeholder everywhere
+    const finding = decodePages(sections, encodePages(sections, new Map()))
+    expect(encodePages(sections, new Map())).toBe('0.0.0.0')
+    expect(withPageReferences(html, finding)).toBe('<a class="tb-xref" href="#a" data-page="00">A</a> <a class="tb-xref" href="#b" data-page="00">B</a>')
+  })
+  it('leaves a link unnumbered where no page is known and no placeholder is asked for', () => {
+    const html = '<a class="tb-xref" href="#a">A</a> <a class="tb-xref" href="#b">B</a>'
+    expect(withPageReferences(html, new Map([['a', 4]]), null)).toBe('<a class="tb-xref" href="#a" data-page="4">A</a> <a class="tb-xref" href="#b">B</a>')
   })
 })
