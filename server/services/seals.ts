@@ -87,11 +87,11 @@ async function sealStorageKey(revisionId: number) {
 /** What the print page shows: the frozen report, its sections and the title block, all fixed at approval. */
 export async function printViewOf(detail: Detail) {
   const office = await officeStamp(detail.approvedBy?.officeVersion ?? null)
-  return { id: detail.id, titleBlock: titleBlockOf(detail, office), sections: detail.sections, reportHtml: detail.reportHtml, caution: CAUTION, sealedPages: await sealedSectionPages(detail) }
+  return { id: detail.id, titleBlock: titleBlockOf(detail, office), sections: detail.sections, reportHtml: detail.reportHtml, caution: CAUTION }
 }
 
 /** The page of every section as the seal printed them ('3.3.4.7'), or null when not sealed or not kept (older seals). */
-async function sealedSectionPages(detail: Detail): Promise<string | null> {
+export async function sealedSectionPages(detail: Detail): Promise<string | null> {
   if (!detail.seal) return null
   const key = await sealStorageKey(detail.id)
   const kept = key ? await readStored(sectionPagesKey(key)).catch(() => null) : null
