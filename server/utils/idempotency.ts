@@ -64,7 +64,11 @@ export async function idempotent<T>(event: H3Event, userId: number, body: unknow
     await useDb().insert(t).values({ userId, idempotencyKey: key, route, requestHash })
   }
   catch (error) {
-    if (!duplicate(error)) throw error
+    if (!duplicate(error)) {
+      // a connection lost on the insert may have stored the key all the same: with no work done, it must not hold up the retry
+      if (isConnectionLost(error)) await again(() => useDb().delete(t).where(and(eq(t.userId, userId), eq(t.idempotencyKey, key), isNull(t.statusCode)))).catch(() => {})
+      throw error
+    }
     const [first] = await useDb().select().from(t).where(and(eq(t.userId, userId), eq(t.idempotencyKey, key)))
     if (!first || first.requestHash !== requestHash) {
       throw createError({ statusCode: 422, message: `This Idempotency-Key was already used for another request${first && first.route !== route ? ` (${first.route})` : ' with different content'}; use a new key for a new action` })
