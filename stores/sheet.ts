@@ -49,27 +49,6 @@ export interface ShownReport extends Omit<LiveReport, 'parts'> {
 
 const FIGURE_TAG = /<figure class="tb-figure"/g
 
-/** The same parts in the same order (only their html may differ). */
-function sameParts(a: ShownReport, b: ShownReport) {
-  return a.parts.length === b.parts.length && a.parts.every((p, i) => p.key === b.parts[i]!.key)
-}
-
-/** A key press is waiting (Chromium tells; elsewhere the slice time alone decides). */
-function inputPending(): boolean {
-  return (navigator as { scheduling?: { isInputPending?: () => boolean } }).scheduling?.isInputPending?.() ?? false
-}
-
-/** Resolves once the browser has drawn a frame (or soon, where no frame comes: a hidden tab). */
-function afterNextFrame() {
-  return new Promise<void>((resolve) => {
-    const fallback = setTimeout(resolve, 50)
-    requestAnimationFrame(() => {
-      clearTimeout(fallback)
-      setTimeout(resolve, 0)
-    })
-  })
-}
-
 function patchReport(before: ShownReport | null, next: LiveReport): ShownReport {
   const old = new Map(before?.parts.map(p => [p.key, p]))
   let figures = 0
@@ -84,8 +63,6 @@ function patchReport(before: ShownReport | null, next: LiveReport): ShownReport 
 
 const SAVE_DELAY_MS = 800
 const FULL_RUN_DELAY_MS = 350
-/** DOM work a report patch does before it lets the browser draw a frame */
-const PATCH_SLICE_MS = 6
 const COALESCE_MS = 1200
 const MAX_UNDO = 100
 
@@ -152,39 +129,13 @@ export const useSheetStore = defineStore('sheet', () => {
     outcome.value = result
     if (result.run?.ok) everRan.value = true
     if (result.designChecks) designChecks.value = result.designChecks
-    if (result.report) void showReport(result.report)
+    if (result.report) showReport(result.report)
   }
 
-  // The report reaches the page a few parts at a time: after each PATCH_SLICE_MS of DOM work (or at
-  // once when a key is waiting) the patch lets the browser draw a frame, so a keystroke that comes
-  // while parts change paints in the next frame. A newer report takes over from where this one got.
-  const patching = ref(false)
-  let patchGeneration = 0
-  async function showReport(next: LiveReport) {
-    const generation = ++patchGeneration
-    const before = shownReport.value
-    const target = patchReport(before, next)
-    const changed = before && sameParts(before, target) ? target.parts.flatMap((p, i) => (p === before.parts[i] ? [] : [i])) : null
-    if (!import.meta.client || !before || !changed || changed.length <= 1) {
-      shownReport.value = target
-      patching.value = false
-      return
-    }
-    patching.value = true
-    const parts = [...before.parts]
-    let sliceStart = performance.now()
-    for (const i of changed) {
-      parts[i] = target.parts[i]!
-      shownReport.value = { ...target, parts: [...parts] }
-      await nextTick()
-      if (generation !== patchGeneration) return
-      if (performance.now() - sliceStart > PATCH_SLICE_MS || inputPending()) {
-        await afterNextFrame()
-        if (generation !== patchGeneration) return
-        sliceStart = performance.now()
-      }
-    }
-    patching.value = false
+  // A report shows as one update of the part list; the page patches each changed part's html into
+  // its element a few parts per frame (composables/reportPartPatch.ts), so Vue renders once per report.
+  function showReport(next: LiveReport) {
+    shownReport.value = patchReport(shownReport.value, next)
   }
 
   let seq = 0
@@ -501,7 +452,7 @@ export const useSheetStore = defineStore('sheet', () => {
   }
 
   return {
-    sheet, inputs, draftVersion, saveState, saveMessage, savedAt, specs, compiled, validation, run, proposal, errors, blocker, stale, report, patching,
+    sheet, inputs, draftVersion, saveState, saveMessage, savedAt, specs, compiled, validation, run, proposal, errors, blocker, stale, report,
     text, ownText, textErrors, setText, images, setImages,
     checks, undoStack, redoStack,
     replies, replyList, answerRevision, setReply, clearReplies,
