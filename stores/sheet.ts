@@ -237,10 +237,13 @@ export const useSheetStore = defineStore('sheet', () => {
     return o.key === inputKey.value ? o.proposal : { patch: null, reason: 'Working out the proposal…' }
   })
 
-  const errors = computed<FieldErrors>(() => {
+  // the same object while the messages are the same, so an engine answer that changes no message
+  // does not render the input panel's fields again
+  const errors = computed<FieldErrors>((previous) => {
     const out: FieldErrors = { ...validation.value.errors, ...typingErrors.value }
     if (run.value && !run.value.ok) out[run.value.field] = run.value.message
-    return out
+    const same = previous && Object.keys(previous).length === Object.keys(out).length && Object.entries(out).every(([path, message]) => previous[path] === message)
+    return same ? previous : out
   })
 
   const blocker = computed<Blocker | null>(() => {
