@@ -1,7 +1,9 @@
 // The title block repeated on every sheet of a printed revision and the footer with its hash,
 // verification reference and caution. Chromium's header/footer templates take inline styles only.
 
-export const CAUTION = 'Results are for a competent engineer to verify; the local code, its national annex and licensed practice govern.'
+import { CAUTION } from '../../shared/caution'
+
+export { CAUTION }
 
 export interface TitleBlock {
   /** the office's name and logo (a data: URL) in force at approval; '' and null before approval */
