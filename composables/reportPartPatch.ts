@@ -49,6 +49,8 @@ export const vReportPart: Directive<HTMLElement, Part> = {
 }
 
 async function drain() {
+  // a key pressed while the engine's answer came in paints before any part is patched
+  if (inputPending()) await afterNextFrame()
   let sliceStart = performance.now()
   for (let next = waiting.entries().next(); !next.done; next = waiting.entries().next()) {
     const [el, html] = next.value
