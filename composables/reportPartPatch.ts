@@ -49,20 +49,37 @@ export const vReportPart: Directive<HTMLElement, Part> = {
 }
 
 async function drain() {
-  // a key pressed while the engine's answer came in paints before any part is patched
-  if (inputPending()) await afterNextFrame()
-  let sliceStart = performance.now()
-  for (let next = waiting.entries().next(); !next.done; next = waiting.entries().next()) {
-    const [el, html] = next.value
-    waiting.delete(el)
-    if (el.isConnected) patchPart(el, html)
-    if (waiting.size && (performance.now() - sliceStart > PATCH_SLICE_MS || inputPending())) {
-      await afterNextFrame()
-      sliceStart = performance.now()
+  try {
+    // a key pressed while the engine's answer came in paints before any part is patched
+    if (inputPending()) await afterNextFrame()
+    let sliceStart = performance.now()
+    for (let next = waiting.entries().next(); !next.done; next = waiting.entries().next()) {
+      const [el, html] = next.value
+      waiting.delete(el)
+      if (el.isConnected) patchOrReplace(el, html)
+      if (waiting.size && (performance.now() - sliceStart > PATCH_SLICE_MS || inputPending())) {
+        await afterNextFrame()
+        sliceStart = performance.now()
+      }
     }
   }
-  draining = false
-  reportPatching.value = false
+  finally {
+    draining = false
+    reportPatching.value = false
+  }
+}
+
+/** A patch that fails on something unforeseen still leaves the part showing its new html. */
+function patchOrReplace(el: HTMLElement, html: string) {
+  try {
+    patchPart(el, html)
+  }
+  catch (error) {
+    console.error('The report part could not be patched; it is shown afresh', error)
+    shownBlocks.delete(el)
+    el.innerHTML = html
+    shownHtml.set(el, html)
+  }
 }
 
 /** The html each part's element shows now, and its top-level blocks with their nodes once read. */
