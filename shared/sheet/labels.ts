@@ -84,8 +84,27 @@ export function inputSpecFor(path: string): InputFieldSpec | undefined {
   return fieldFor(SPECS, path.replace(/^inputs\./, ''))
 }
 
+/**
+ * Labels already worked out, by path: the editor asks for the label of each of its fields on every
+ * keystroke (a span change renders the input panel's 226 fields again), and each answer means
+ * searching the field specs twice. A label depends on the path alone, so it is kept; the map is let
+ * go if it ever grows past any sheet's count of paths.
+ */
+const knownLabels = new Map<string, string>()
+const KNOWN_LABELS_MAX = 20_000
+
 /** The label of an input path: "Span 2", "Overall depth"; an unknown path is returned as it is. */
 export function inputLabel(path: string): string {
+  let label = knownLabels.get(path)
+  if (label === undefined) {
+    if (knownLabels.size >= KNOWN_LABELS_MAX) knownLabels.clear()
+    label = labelOf(path)
+    knownLabels.set(path, label)
+  }
+  return label
+}
+
+function labelOf(path: string): string {
   const bare = path.replace(/^inputs\./, '')
   const cell = tableCell(bare)
   if (cell) {
