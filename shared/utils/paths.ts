@@ -16,21 +16,29 @@ export function getPath(data: unknown, path: string): unknown {
   return node
 }
 
-/** A copy of `data` with `value` at `path`; intermediate objects/arrays are created as needed. */
+/**
+ * A copy of `data` with `value` at `path`; intermediate objects/arrays are created as needed.
+ * Only the objects along the path are copied: the rest is shared with `data`, so a list the change
+ * does not touch keeps its identity (and what shows it need not be drawn again). Neither is changed.
+ */
 export function setPath<T>(data: T, path: string, value: unknown): T {
   const parts = path.split('.')
-  const copy = clonePlain(data) as Record<string, unknown>
-  let node: Record<string, unknown> = copy
+  const copyOf = (node: unknown, nextPart: string): Record<string, unknown> => {
+    if (Array.isArray(node)) return [...node] as unknown as Record<string, unknown>
+    if (node !== null && typeof node === 'object') return { ...(node as Record<string, unknown>) }
+    return (/^\d+$/.test(nextPart) ? [] : {}) as Record<string, unknown>
+  }
+  const root = copyOf(data, parts[0]!)
+  let node = root
   parts.forEach((part, i) => {
     if (i === parts.length - 1) {
       node[part] = value
       return
     }
-    const next = node[part]
-    if (next === null || typeof next !== 'object') node[part] = /^\d+$/.test(parts[i + 1]!) ? [] : {}
+    node[part] = copyOf(node[part], parts[i + 1]!)
     node = node[part] as Record<string, unknown>
   })
-  return copy as T
+  return root as T
 }
 
 /** Deep merge of a partial patch into data (arrays are replaced, not merged). */

@@ -14,6 +14,17 @@ describe('dot paths', () => {
     expect(setPath({}, 'a.0.b', 1)).toEqual({ a: [{ b: 1 }] })
   })
 
+  it('copies only what lies on the path: the rest keeps its identity', () => {
+    const next = setPath(data, 'loads.imposed.qk', 0.004)
+    expect(next.spans).toBe(data.spans)
+    expect(next.loads).not.toBe(data.loads)
+    expect(next.loads.imposed).not.toBe(data.loads.imposed)
+    expect(data.loads.imposed.qk).toBe(0.005)
+    const row = setPath({ rows: [{ a: 1 }, { a: 2 }] }, 'rows.1.a', 3)
+    expect(row.rows).toEqual([{ a: 1 }, { a: 3 }])
+    expect(Array.isArray(row.rows)).toBe(true)
+  })
+
   it('merges a patch deeply, replacing arrays', () => {
     expect(mergePatch(data, { loads: { sdl: 0.003 }, spans: [1] })).toEqual({ loads: { sdl: 0.003, imposed: { qk: 0.005 } }, spans: [1] })
   })
