@@ -73,7 +73,9 @@ const MAX_UNDO = 100
  */
 export const useSheetStore = defineStore('sheet', () => {
   const sheet = ref<SheetPayload | null>(null)
-  const inputs = ref<Record<string, unknown>>({})
+  // replaced whole on every change, never changed in place: a shallow ref, so validation, the key
+  // and the panel read plain objects (a deep proxy made each of their thousand reads a tracked one)
+  const inputs = shallowRef<Record<string, unknown>>({})
   const draftVersion = ref(0)
   const saveState = ref<SaveState>('saved')
   const saveMessage = ref('')
@@ -382,7 +384,7 @@ export const useSheetStore = defineStore('sheet', () => {
     const entry = undoStack.value.pop()
     if (!entry) return
     redoStack.value.push({ label: entry.label, inputs: clonePlain(inputs.value), at: Date.now() })
-    inputs.value = entry.inputs
+    inputs.value = toRaw(entry.inputs)
     typingErrors.value = {}
     scheduleSave()
   }
@@ -391,7 +393,7 @@ export const useSheetStore = defineStore('sheet', () => {
     const entry = redoStack.value.pop()
     if (!entry) return
     undoStack.value.push({ label: entry.label, inputs: clonePlain(inputs.value), at: Date.now() })
-    inputs.value = entry.inputs
+    inputs.value = toRaw(entry.inputs)
     scheduleSave()
   }
 

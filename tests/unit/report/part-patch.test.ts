@@ -85,6 +85,41 @@ describe('a part patched block by block', () => {
     expect(el.children[3]).toBe(last)
   })
 
+  it('patches inside a changed block only what changed in it, down to the innermost element', () => {
+    const row = (a: string, b: string) => `<tr><td>${a}</td><td>M = <b>${b}</b> kNm &amp; more</td></tr>`
+    const before = `<table class="t"><tbody>${row('1', '120')}\n${row('2', '80')}</tbody></table>\n<p>x</p>\n`
+    const after = `<table class="t"><tbody>${row('1', '131')}\n${row('2', '80')}</tbody></table>\n<p>x</p>\n`
+    const el = shown(before)
+    const table = el.querySelector('table')!
+    const [first, second] = el.querySelectorAll('td')
+    const [, secondRow] = el.querySelectorAll('tr')
+    const bold = el.querySelector('b')!
+    expect(patchPart(el, after)).toBe('blocks')
+    expect(el.innerHTML).toBe(parsedPart(after).innerHTML)
+    expect(el.querySelector('table')).toBe(table)
+    expect(el.querySelectorAll('td')[0]).toBe(first)
+    expect(el.querySelectorAll('td')[1]).toBe(second)
+    expect(el.querySelectorAll('tr')[1]).toBe(secondRow)
+    expect(el.querySelector('b')).toBe(bold)
+    expect(bold.textContent).toBe('131')
+  })
+
+  it('patches a changed SVG or MathML element whole, in its own namespace, and a changed start tag by the DOM', () => {
+    const steps = [
+      '<div class="fig"><svg viewBox="0 0 10 10"><path d="M0 0"/></svg></div>\n<p><math><mi>x</mi></math></p>',
+      '<div class="fig"><svg viewBox="0 0 10 10"><path d="M1 1"/><circle r="2"/></svg></div>\n<p><math><mi>y</mi><mn>2</mn></math></p>',
+      '<div class="fig wide"><svg viewBox="0 0 10 10"><path d="M1 1"/></svg></div>\n<p title="t"><math><mi>y</mi></math></p>',
+    ]
+    const el = shown(steps[0]!)
+    for (const html of steps.slice(1)) {
+      expect(patchPart(el, html)).toBe('blocks')
+      expect(el.isEqualNode(parsedPart(html)), html).toBe(true)
+      expect(el.querySelector('path')!.namespaceURI).toBe('http://www.w3.org/2000/svg')
+      // as the parser has it (happy-dom, unlike a browser, leaves MathML in the HTML namespace)
+      expect(el.querySelector('mi')!.namespaceURI).toBe(parsedPart(html).querySelector('mi')!.namespaceURI)
+    }
+  })
+
   it('adds and removes blocks in the middle, at the ends, and text between them', () => {
     const steps = [
       '<p>a</p>\n<p>b</p>\n',
