@@ -64,6 +64,8 @@ function patchReport(before: ShownReport | null, next: LiveReport): ShownReport 
 const SAVE_DELAY_MS = 800
 const FULL_RUN_DELAY_MS = 350
 const COALESCE_MS = 1200
+/** An answer overtaken by a change already waiting for its worker is not shown, unless none was shown for this long. */
+const OVERTAKEN_SHOWN_AFTER_MS = 250
 const MAX_UNDO = 100
 
 /**
@@ -146,6 +148,7 @@ export const useSheetStore = defineStore('sheet', () => {
   // the newest request whose answer is shown: an answer to an older one (the proposal run of inputs
   // typed over since) is dropped
   let shownSeq = 0
+  let shownAt = 0
   const liveRequest = (proposal: boolean): LiveRequest => ({
     seq: ++seq,
     key: inputKey.value,
@@ -169,8 +172,12 @@ export const useSheetStore = defineStore('sheet', () => {
       const w = new Worker(new URL('../workers/sheet-run.ts', import.meta.url), { type: 'module' })
       w.onmessage = (event: MessageEvent<LiveOutcome>) => {
         busy = false
-        if (event.data.seq >= resetSeq && event.data.seq > shownSeq) {
+        // a change typed while this ran is sent next: patching this answer into the page would be
+        // undone some 60 ms later, so it is skipped — but a steady typist still sees a report now and then
+        const overtaken = again && performance.now() - shownAt < OVERTAKEN_SHOWN_AFTER_MS
+        if (event.data.seq >= resetSeq && event.data.seq > shownSeq && !overtaken) {
           shownSeq = event.data.seq
+          shownAt = performance.now()
           apply(event.data)
         }
         if (again) {
