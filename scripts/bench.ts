@@ -267,16 +267,26 @@ async function benchIssue(server: Server) {
   await records.signIn('records')
   const sealed: number[] = []
   const approved: number[] = []
+  const renders: number[] = []
+  const numbering: string[] = []
   for (let i = 0; i < Math.min(ROUNDS, 3); i++) {
     const { id } = await issue(engineer, sheetId)
     const review = await checker.call('POST', `/api/revisions/${id}/reviews`, { decision: 'approve' })
     if (review.status !== 201) throw new Error(`approval answered ${review.status}: ${JSON.stringify(review.body).slice(0, 300)}`)
-    const seal = await records.call<{ renders?: number }>('POST', `/api/revisions/${id}/seal`)
+    // a seal comes some time after its approval, which has found the page numbers meanwhile
+    for (let waited = 0; waited < 30_000; waited += 200) {
+      const progress = await records.call<{ findingPages?: boolean }>('GET', `/api/revisions/${id}/seal-progress`)
+      if (!progress.body.findingPages) break
+      await new Promise(r => setTimeout(r, 200))
+    }
+    const seal = await records.call<{ renders?: number, numbering?: string }>('POST', `/api/revisions/${id}/seal`)
     if (seal.status !== 201) throw new Error(`sealing answered ${seal.status}: ${JSON.stringify(seal.body).slice(0, 300)}`)
     sealed.push(seal.ms)
     approved.push(id)
+    renders.push(seal.body.renders ?? Number.NaN)
+    numbering.push(seal.body.numbering ?? '?')
   }
-  report('seal an approved revision', sealed, null, 'one render plus a verification')
+  report('seal an approved revision', sealed, null, 'one render plus a verification', `Chromium renders per seal ${renders.join(', ')}; page numbers found ${numbering.join(', ')}`)
   return { records, approved }
 }
 

@@ -48,9 +48,9 @@ export function titleBlockOf(detail: Detail, office: OfficeStamp | null): TitleB
  * (`accept`) that finds no match answers with the last render rather than an error.
  * @throws 502 when no two renders agree.
  */
-async function agreedRevisionPdf(event: H3Event, detail: Detail, stamp: LogStamp | undefined, step: (step: SealStep) => void, accept?: (sha256: string) => boolean) {
+async function agreedRevisionPdf(event: H3Event, detail: Detail, stamp: LogStamp | undefined, step: (step: SealStep) => void, accept?: (sha256: string) => boolean, keptPages: string | null = null) {
   const printer = await revisionPrinter(event, detail, stamp)
-  const { pages, raw, second } = await printer.settlePageNumbers(step)
+  const { pages, raw, second } = await printer.settlePageNumbers(step, keptPages)
   step('comparing')
   const seen = new Map<string, number>()
   let last: Rendered | null = null
@@ -63,10 +63,10 @@ async function agreedRevisionPdf(event: H3Event, detail: Detail, stamp: LogStamp
     }
     last = await printer.reproducible(bytes)
     const sha = sha256Hex(last.bytes)
-    if (accept?.(sha) || seen.has(sha)) return { ...last, sha256: sha, renders: attempt, agreed: true, sectionPages: pages }
+    if (accept?.(sha) || seen.has(sha)) return { ...last, sha256: sha, renders: attempt, agreed: true, sectionPages: pages, chromiumRenders: printer.renders(), keptPagesHeld: keptPages !== null && pages === keptPages }
     seen.set(sha, attempt)
   }
-  if (accept && last) return { ...last, sha256: sha256Hex(last.bytes), renders: 3, agreed: false, sectionPages: pages }
+  if (accept && last) return { ...last, sha256: sha256Hex(last.bytes), renders: 3, agreed: false, sectionPages: pages, chromiumRenders: printer.renders(), keptPagesHeld: keptPages !== null && pages === keptPages }
   throw createError({ statusCode: 502, message: 'The PDF could not be rendered reproducibly: three renders of the same revision gave different bytes; try again when the server is less busy' })
 }
 
@@ -128,26 +128,36 @@ async function revisionPrinter(event: H3Event, detail: Detail, stamp: LogStamp |
    * a check's render that is set aside when it differs): reading the page back costs a moment.
    * @throws 502 saying why rendering failed, 503 when this server's renders are all busy.
    */
-  const render = (pages: string, keepPage = true) => renderPdf({
+  let renders = 0
+  const render = (pages: string, keepPage = true, background?: { onStart: () => void }) => (renders += 1, renderPdf({
+    background: Boolean(background),
+    onStart: background?.onStart,
     onHtml: keepPage ? (page) => { html = page } : undefined,
     url: `${origin}/revisions/${detail.id}/print?pages=${pages}`,
     origin,
     cookies: value ? [{ name: cookieName, value }] : [],
     headerTemplate: headerTemplate(block),
     footerTemplate: footerTemplate(block, stamp),
-  }).catch(failed)
+  }).catch(failed))
   const pagesOf = async (raw: Uint8Array) => encodePages(detail.sections, await namedDestinationPages(raw))
+  /** The page of every section: a render with placeholders, whose named destinations say where each heading fell. */
+  const firstPass = async (background?: { onStart: () => void }) => pagesOf(await render(encodePages(detail.sections, new Map()), false, background))
   return {
     render,
+    firstPass,
+    /** how many times this printer has had the revision rendered */
+    renders: () => renders,
     /**
-     * The page of every section (a first render with placeholders), then the render with those
-     * numbers and, beside it, a second one to compare it with (null when this server's renders are
-     * all taken: it is then made after). One more render when the numbers moved a heading.
+     * The page of every section (`kept`, found when the revision was approved, or a first render with
+     * placeholders), then the render with those numbers and, beside it, a second one to compare it
+     * with (null when this server's renders are all taken: it is then made after). One more render
+     * when the numbers moved a heading — which is also what a kept number that is wrong would do, so
+     * kept numbers need no trust.
      */
-    async settlePageNumbers(step: (step: SealStep) => void) {
+    async settlePageNumbers(step: (step: SealStep) => void, kept: string | null = null) {
       step('numbering')
       // every page 0: the print page sets '00' where a number goes, as wide as the numbers to come
-      let pages = await pagesOf(await render(encodePages(detail.sections, new Map()), false))
+      let pages = kept ?? await firstPass()
       step('printing')
       // both print the same print page, so the first one's copy of it serves for either
       let [raw, second] = await Promise.all([render(pages), pdfSlotFree() ? render(pages, false) : null])
@@ -172,6 +182,69 @@ async function revisionPrinter(event: H3Event, detail: Detail, stamp: LogStamp |
       html,
     }),
   }
+}
+
+/** Where the page of every section of an approved revision, found in the background at its approval, waits for its seal. */
+const approvalPagesKey = (revisionId: number) => `section-pages:revision-${revisionId}.txt`
+
+/**
+ * The approved revisions whose pages this server is finding now, each with the job that finds them,
+ * whether its render has begun, and whether a seal has gone ahead without it.
+ */
+const numberingNow = new Map<number, { job: Promise<string | null>, rendering: boolean, dropped: boolean }>()
+
+/**
+ * Finds the page of every section of a revision just approved (the first, placeholder render of its
+ * seal) in the background and keeps it, so that sealing it later is one render and its verification,
+ * side by side. Everything a print of an approved revision shows is fixed at approval (the history
+ * log's place goes in the footer, outside the page's layout), so these numbers are the seal's; a seal
+ * checks them anyway (a wrong number moves no heading back into place, and is settled afresh).
+ * It renders only when no one's render waits (so it delays none by more than the one it is
+ * running), and is left to the seal when many such renders already wait; a failure here costs the
+ * approval nothing.
+ */
+export function numberApprovedRevision(event: H3Event, revisionId: number, user: SessionUser) {
+  if (numberingNow.has(revisionId)) return
+  const entry = { job: Promise.resolve<string | null>(null), rendering: false, dropped: false }
+  entry.job = (async () => {
+    const detail = await getRevisionDetail(revisionId, user)
+    if (detail.status.status !== 'approved' || detail.seal) return null
+    const printer = await revisionPrinter(event, detail, undefined)
+    const pages = await printer.firstPass({
+      onStart: () => {
+        if (entry.dropped) throw new Error('its seal began first')
+        entry.rendering = true
+      },
+    })
+    if (entry.dropped) return null
+    await writeStored(approvalPagesKey(revisionId), new TextEncoder().encode(pages))
+    return pages
+  })().catch((error: unknown) => {
+    if (!entry.dropped) console.warn(`[seal] the page numbers of revision ${revisionId} were not found at its approval (its seal will find them): ${error instanceof Error ? error.message : String(error)}`)
+    return null
+  }).finally(() => numberingNow.delete(revisionId))
+  numberingNow.set(revisionId, entry)
+}
+
+/** Whether this server is finding the page numbers of an approved revision now. */
+export function numberingRevision(revisionId: number) {
+  return numberingNow.has(revisionId)
+}
+
+/**
+ * The page numbers found at the revision's approval, or null. A job still rendering here is waited
+ * for (it is the first render the seal would make); one still waiting for a slot is dropped, and the
+ * seal makes that render itself, in its own turn.
+ */
+async function approvalPages(revisionId: number): Promise<string | null> {
+  const running = numberingNow.get(revisionId)
+  if (running?.rendering) return running.job
+  if (running) {
+    running.dropped = true
+    return null
+  }
+  const kept = await readStored(approvalPagesKey(revisionId)).catch(() => null)
+  return kept ? new TextDecoder().decode(kept) : null
 }
 
 /**
@@ -219,15 +292,22 @@ export async function sealRevision(event: H3Event, revisionId: number, user: Ses
   }
   const stamp = await logStampFor(detail)
   return withSealProgress(revisionId, 'seal', async (step) => {
-    const agreed = await agreedRevisionPdf(event, detail, stamp, step)
+    step('numbering')
+    const kept = await approvalPages(revisionId)
+    const agreed = await agreedRevisionPdf(event, detail, stamp, step, undefined, kept)
     step('storing')
-    return storeSeal(event, detail, stamp, agreed, user)
+    const sealed = await storeSeal(event, detail, stamp, agreed, user)
+    // kept beside the seal from now on (sectionPagesKey)
+    if (kept !== null) await useStorage('records').removeItem(approvalPagesKey(revisionId)).catch(() => {})
+    return sealed
   })
 }
 
 /** Stores an agreed render as the revision's seal: the PDF and what explains it, then the seal row, its log leaf and audit event. */
 async function storeSeal(event: H3Event, detail: Detail, stamp: LogStamp, agreed: Awaited<ReturnType<typeof agreedRevisionPdf>>, user: SessionUser) {
-  const { bytes, pages, html, sha256: pdfSha256, sectionPages } = agreed
+  const { bytes, pages, html, sha256: pdfSha256, sectionPages, chromiumRenders: renders, keptPagesHeld } = agreed
+  // where the page numbers came from, for the record: found at approval, or by a first render now
+  const numbering = keptPagesHeld ? 'at approval' : 'at seal'
   const revisionId = detail.id
   const archiveRef = archiveRefOf(detail)
   const storageKey = generatedKey('seals', 'pdf')
@@ -242,7 +322,7 @@ async function storeSeal(event: H3Event, detail: Detail, stamp: LogStamp, agreed
         logLeafIndex: stamp.leafIndex, headTreeSize: stamp.treeSize, headRootHash: stamp.rootHash,
       }).$returningId()
       await logWrittenRow(tx, 'seal', id)
-      await recordAudit(event, { action: 'revision.sealed', subject: archiveRef, actorId: user.id, detail: { revisionId, sealId: id, pdfSha256, pages } }, tx)
+      await recordAudit(event, { action: 'revision.sealed', subject: archiveRef, actorId: user.id, detail: { revisionId, sealId: id, pdfSha256, pages, renders, numbering } }, tx)
     }), `${archiveRef} could not be sealed because the records changed a moment ago: try again`)
   }
   catch (error) {
@@ -257,7 +337,7 @@ async function storeSeal(event: H3Event, detail: Detail, stamp: LogStamp, agreed
     }
     throw error
   }
-  return { ...(await getRevisionDetail(revisionId, user)), alreadySealed: false }
+  return { ...(await getRevisionDetail(revisionId, user)), alreadySealed: false, renders, numbering }
 }
 
 /**

@@ -50,6 +50,10 @@ export interface PdfJob {
   timeoutMs?: number
   /** receives the page's HTML as it stood when printing began (kept to explain a render that differs) */
   onHtml?: (html: string) => void
+  /** nobody waits for it: it runs only when no one else's render waits (RenderGate.runInBackground) */
+  background?: boolean
+  /** called when the job gets its slot, before it renders; throwing there gives the slot back unrendered */
+  onStart?: () => void
 }
 
 /** The origin Chromium reaches this server on: the loopback address it listens on. */
@@ -68,11 +72,14 @@ export class PdfBusyError extends PdfRenderError {
 /**
  * At most `slots` jobs at once and `queue` more waiting in arrival order; beyond that a job is
  * refused at once (PdfBusyError) rather than left waiting behind work it cannot see the end of.
+ * Work nobody waits for (`runInBackground`) gets a slot only when no job is waiting, so it never
+ * delays a person's render by more than the one it is running.
  */
 export class RenderGate {
   private running = 0
   private waiting: Array<() => void> = []
-  constructor(readonly slots: number, readonly queue: number, readonly retryAfterSeconds = 10) {}
+  private background: Array<() => void> = []
+  constructor(readonly slots: number, readonly queue: number, readonly retryAfterSeconds = 10, readonly backgroundQueue = 16) {}
 
   async run<T>(job: () => Promise<T>): Promise<T> {
     if (this.running >= this.slots) {
@@ -82,19 +89,35 @@ export class RenderGate {
     else {
       this.running += 1
     }
+    return this.holding(job)
+  }
+
+  /** Runs a job when a slot is free and no one waits for one; refused (PdfBusyError) when `backgroundQueue` such jobs already wait. */
+  async runInBackground<T>(job: () => Promise<T>): Promise<T> {
+    if (this.running >= this.slots || this.waiting.length) {
+      if (this.background.length >= this.backgroundQueue) throw new PdfBusyError(this.retryAfterSeconds)
+      await new Promise<void>(resolve => this.background.push(resolve))
+    }
+    else {
+      this.running += 1
+    }
+    return this.holding(job)
+  }
+
+  private async holding<T>(job: () => Promise<T>): Promise<T> {
     try {
       return await job()
     }
     finally {
-      // hand the slot straight to the next in line, or give it back
-      const next = this.waiting.shift()
+      // hand the slot straight to the next in line (people first), or give it back
+      const next = this.waiting.shift() ?? this.background.shift()
       if (next) next()
       else this.running -= 1
     }
   }
 
   get load() {
-    return { running: this.running, waiting: this.waiting.length }
+    return { running: this.running, waiting: this.waiting.length, background: this.background.length }
   }
 }
 
@@ -105,7 +128,7 @@ const gate = new RenderGate(positive(process.env.TENDONBOOK_PDF_RENDERS, availab
 
 /** @throws PdfBusyError when this server's renders and queue are full; PdfRenderError saying why (page status, deadline, browser failure). */
 export function renderPdf(job: PdfJob): Promise<Uint8Array> {
-  return gate.run(() => renderNow(job))
+  return job.background ? gate.runInBackground(() => renderNow(job)) : gate.run(() => renderNow(job))
 }
 
 /**
@@ -164,6 +187,7 @@ export function pdfSlotFree() {
 }
 
 async function renderNow(job: PdfJob): Promise<Uint8Array> {
+  job.onStart?.()
   const timeoutMs = job.timeoutMs ?? 30_000
   const b = await useBrowser().catch((error: unknown) => {
     throw new PdfRenderError(`Chromium could not start: ${error instanceof Error ? error.message : String(error)}`)

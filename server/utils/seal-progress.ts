@@ -4,7 +4,7 @@
 
 /** The steps of sealing a revision, in order, in the words the page shows. */
 export const SEAL_STEPS = {
-  numbering: 'Finding the page of every section (a first render)',
+  numbering: 'Finding the page of every section (a first render, unless done at approval)',
   printing: 'Printing the numbered copy and a second copy to check it against',
   comparing: 'Making both copies reproducible and comparing their bytes',
   again: 'The two copies differed: printing once more',

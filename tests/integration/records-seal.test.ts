@@ -25,6 +25,16 @@ beforeAll(async () => {
   approved = (await checker.json('POST', `/api/revisions/${rev.id}/reviews`, { decision: 'approve' })).body
 })
 
+/** Waits while the server finds the page numbers of a revision it has just approved. */
+async function untilPagesFound(revisionId: number) {
+  for (let waited = 0; waited < 60_000; waited += 200) {
+    const progress = await records.json('GET', `/api/revisions/${revisionId}/seal-progress`)
+    if (!progress.body.findingPages) return
+    await new Promise(r => setTimeout(r, 200))
+  }
+  throw new Error(`the page numbers of revision ${revisionId} were still being found after a minute`)
+}
+
 async function download(s: Session, revisionId: number) {
   const res = await s.fetch(`/api/revisions/${revisionId}/pdf`)
   return { status: res.status, type: res.headers.get('content-type'), bytes: new Uint8Array(await res.arrayBuffer()) }
@@ -41,6 +51,8 @@ describe('sealing an approved revision', () => {
   })
 
   it('renders, stores and records the PDF; its text carries the hash, the references, the results and the caution', async () => {
+    // the approval has the page of every section found in the background, while nobody waits
+    await untilPagesFound(approved.id)
     // while it seals, the page can ask where it stands: the steps in order, never back
     const idle = await records.json('GET', `/api/revisions/${approved.id}/seal-progress`)
     expect(idle.body).toEqual({ running: false })
@@ -64,6 +76,9 @@ describe('sealing an approved revision', () => {
     expect((await records.json('GET', `/api/revisions/${approved.id}/seal-progress`)).body).toEqual({ running: false })
     expect(res.status, JSON.stringify(res.body)).toBe(201)
     expect(res.body.status.status).toBe('sealed')
+    // so the seal is one render and its verification (a third only if the two differed)
+    expect(res.body.numbering).toBe('at approval')
+    expect([2, 3]).toContain(res.body.renders)
     const seal = res.body.seal
     expect(seal.archiveRef).toBe(`${sheet.jobNumber}-PS-2-C01`)
     const file = await download(records, approved.id)
@@ -139,6 +154,37 @@ describe('sealing an approved revision', () => {
       await withDb(conn => conn.query('UPDATE projects SET name = ? WHERE id = ?', ['Alder Yard podium (records test)', sheet.projectId]))
     }
     expect((await records.json('POST', `/api/revisions/${approved.id}/reseal-check`)).body.identical).toBe(true)
+  })
+})
+
+describe('page numbers found at approval', () => {
+  it('are checked by the seal: numbers that do not match the print are settled afresh, and the seal re-renders to its bytes', async () => {
+    const other = await makeSheet()
+    const rev = (await issue(engineer, other.sheetId, { note: 'kept numbers put wrong' })).body
+    expect((await checker.json('POST', `/api/revisions/${rev.id}/reviews`, { decision: 'approve' })).status).toBe(201)
+    await untilPagesFound(rev.id)
+    const file = join(process.env.TENDONBOOK_TEST_BASE!, 'files', 'section-pages', `revision-${rev.id}.txt`)
+    const found = readFileSync(file, 'utf8')
+    expect(found).toMatch(/^\d+(\.\d+)+$/)
+    // every section on page 1: as if the kept numbers had gone stale or been tampered with
+    writeFileSync(file, found.split('.').map(() => '1').join('.'))
+    const res = await records.json('POST', `/api/revisions/${rev.id}/seal`)
+    expect(res.status, JSON.stringify(res.body)).toBe(201)
+    expect(res.body.numbering).toBe('at seal')
+    // the contents list prints the page each heading is on, not the kept 1s
+    const { pages } = await pdfText((await download(records, rev.id)).bytes)
+    const contents = pages[0]!.replace(/\s+/g, ' ')
+    const plain = (res.body.sections as Array<{ title: string, level: number }>).filter(x => x.level === 1 && /^[\w ,.()/'-]+$/.test(x.title))
+    expect(plain.length).toBeGreaterThan(3)
+    for (const section of plain) {
+      const listed = new RegExp(`${section.title.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')} (\\d+)`).exec(contents)
+      expect(listed, section.title).not.toBeNull()
+      const page = Number(listed![1])
+      expect(page, section.title).toBeGreaterThan(1)
+      expect(pages[page - 1]!.replace(/\s+/g, ' '), `${section.title} on page ${page}`).toContain(section.title)
+    }
+    const check = await records.json('POST', `/api/revisions/${rev.id}/reseal-check`)
+    expect(check.body).toMatchObject({ identical: true, renders: 1 })
   })
 })
 

@@ -7,5 +7,8 @@ export default defineEventHandler(async (event) => {
   const body = await validBody(event, reviewBody, REVIEW_FIELD_LABELS)
   setResponseStatus(event, 201)
   // a retry whose first answer was lost is answered with the revision as it now stands, as the first would have been
-  return idempotent(event, user.id, { id, ...body }, () => reviewRevision(event, id, body, user), () => getRevisionDetail(id, user))
+  const answer = await idempotent(event, user.id, { id, ...body }, () => reviewRevision(event, id, body, user), () => getRevisionDetail(id, user))
+  // the first render of its seal, while nobody waits for it
+  if (body.decision === 'approve') numberApprovedRevision(event, id, user)
+  return answer
 })
