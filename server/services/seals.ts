@@ -155,7 +155,7 @@ async function revisionPrinter(event: H3Event, detail: Detail, stamp: LogStamp |
      * kept numbers need no trust.
      */
     async settlePageNumbers(step: (step: SealStep) => void, kept: string | null = null) {
-      step('numbering')
+      step(kept === null ? 'numbering' : 'numbered')
       // every page 0: the print page sets '00' where a number goes, as wide as the numbers to come
       let pages = kept ?? await firstPass()
       step('printing')
@@ -294,6 +294,7 @@ export async function sealRevision(event: H3Event, revisionId: number, user: Ses
   return withSealProgress(revisionId, 'seal', async (step) => {
     step('numbering')
     const kept = await approvalPages(revisionId)
+    if (kept !== null) step('numbered')
     const agreed = await agreedRevisionPdf(event, detail, stamp, step, undefined, kept)
     step('storing')
     const sealed = await storeSeal(event, detail, stamp, agreed, user)

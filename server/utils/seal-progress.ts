@@ -4,7 +4,8 @@
 
 /** The steps of sealing a revision, in order, in the words the page shows. */
 export const SEAL_STEPS = {
-  numbering: 'Finding the page of every section (a first render, unless done at approval)',
+  numbering: 'Finding the page of every section (a first render)',
+  numbered: 'The page of every section, found when the revision was approved',
   printing: 'Printing the numbered copy and a second copy to check it against',
   comparing: 'Making both copies reproducible and comparing their bytes',
   again: 'The two copies differed: printing once more',
@@ -31,6 +32,8 @@ export interface SealProgress {
   startedAt: number
   /** the job that reported it: of two at once on one revision, the one that ends forgets only its own */
   owner: symbol
+  /** the page numbers were found at approval: the plan's first step says so */
+  numberedAtApproval: boolean
 }
 
 const USUAL: Record<SealWork, SealStep[]> = {
@@ -47,7 +50,8 @@ function reportSealStep(revisionId: number, work: SealWork, step: SealStep, owne
   if (!label) return
   const usual = USUAL[work]
   const before = current.get(revisionId)
-  const at = usual.indexOf(step)
+  // found at approval: the numbering step, done already
+  const at = usual.indexOf(step === 'numbered' ? 'numbering' : step)
   current.set(revisionId, {
     work,
     step,
@@ -57,6 +61,7 @@ function reportSealStep(revisionId: number, work: SealWork, step: SealStep, owne
     steps: usual.length,
     startedAt: before?.work === work ? before.startedAt : Date.now(),
     owner,
+    numberedAtApproval: step === 'numbered' || (before?.work === work && before.numberedAtApproval),
   })
 }
 
@@ -75,7 +80,8 @@ export async function withSealProgress<T>(revisionId: number, work: SealWork, jo
 export function sealProgressOf(revisionId: number): (Omit<SealProgress, 'owner'> & { elapsedMs: number, plan: string[] }) | null {
   const p = current.get(revisionId)
   if (!p) return null
-  const { owner: _owner, ...shown } = p
+  const { owner: _owner, numberedAtApproval, ...shown } = p
   const words: Record<string, string> = p.work === 'seal' ? SEAL_STEPS : CHECK_STEPS
-  return { ...shown, elapsedMs: Date.now() - p.startedAt, plan: USUAL[p.work].map(s => words[s]!) }
+  const plan = USUAL[p.work].map(s => words[s === 'numbering' && numberedAtApproval ? 'numbered' : s]!)
+  return { ...shown, elapsedMs: Date.now() - p.startedAt, plan }
 }
