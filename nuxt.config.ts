@@ -1,4 +1,7 @@
 import { fileURLToPath } from 'node:url'
+import { join } from 'node:path'
+import { PDF_REWRITE_WORKER } from './server/pdf-rewrite/task'
+import { buildRewriteWorker } from './server/pdf-rewrite/build-worker'
 
 // Nuxt 4 with the root-level layout: pages/, components/, server/, shared/ sit at the top.
 export default defineNuxtConfig({
@@ -77,6 +80,12 @@ export default defineNuxtConfig({
     // security: errors nobody answered for are put into words before Nuxt's own handler renders them
     'nitro:config'(config) {
       config.errorHandler = [fileURLToPath(new URL('./server/error-words.ts', import.meta.url)), ...[config.errorHandler ?? []].flat()]
+    },
+    // the PDF rewrite's worker thread (server/utils/pdf.ts) is its own file beside the built server,
+    // bundled with pdf-lib so that it needs nothing else
+    'nitro:build:before'(nitro) {
+      if (nitro.options.dev) return
+      nitro.hooks.hook('compiled', () => buildRewriteWorker(join(nitro.options.output.serverDir, PDF_REWRITE_WORKER)))
     },
   },
   typescript: { strict: true },

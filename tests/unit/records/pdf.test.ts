@@ -1,9 +1,14 @@
+import { mkdtempSync, rmSync } from 'node:fs'
 import { createServer, type Server } from 'node:http'
+import { tmpdir } from 'node:os'
+import { join } from 'node:path'
+import { Piscina } from 'piscina'
 import type { AddressInfo } from 'node:net'
 import { PDFArray, PDFDict, PDFDocument, PDFHexString, PDFName, PDFString, type PDFObject } from 'pdf-lib'
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest'
 import { sha256Hex } from '../../../server/utils/hashing'
 import { footerTemplate, headerTemplate, type TitleBlock } from '../../../server/utils/print-templates'
+import { buildRewriteWorker } from '../../../server/pdf-rewrite/build-worker'
 
 // renderPdf reads the Chromium path from the Nitro runtime config
 vi.stubGlobal('useRuntimeConfig', () => ({ chromiumPath: '/usr/bin/chromium' }))
@@ -134,6 +139,25 @@ describe('PDF rendering (system Chromium)', { timeout: 60_000 }, () => {
     const a = await makeReproducible(await renderPdf(job()), meta)
     const other = await makeReproducible(await renderPdf({ ...job(), footerTemplate: footerTemplate({ ...block, contentHash: 'cd'.repeat(32) }) }), meta)
     expect(sha256Hex(other.bytes)).not.toBe(sha256Hex(a.bytes))
+  })
+
+  it('gives the same bytes and pages in the worker thread the built server runs it in as inline', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'tb-pdf-worker-'))
+    const filename = join(dir, 'worker.mjs')
+    await buildRewriteWorker(filename)
+    const pool = new Piscina({ filename, maxThreads: 1 })
+    try {
+      const raw = await renderPdf({ url: `${origin}/contents`, origin, cookies: [], headerTemplate: '<span></span>', footerTemplate: '<span></span>' })
+      const inline = await makeReproducible(raw, meta)
+      const threaded = await pool.run({ kind: 'reproducible', bytes: raw, meta }) as { bytes: Uint8Array, pages: number }
+      expect(threaded.pages).toBe(3)
+      expect(sha256Hex(threaded.bytes)).toBe(sha256Hex(inline.bytes))
+      expect(new Map(await pool.run({ kind: 'destinations', bytes: raw }) as Array<[string, number]>)).toEqual(await namedDestinationPages(raw))
+    }
+    finally {
+      await pool.destroy()
+      rmSync(dir, { recursive: true, force: true })
+    }
   })
 
   it('runs no script and reaches no other origin', async () => {
