@@ -51,6 +51,8 @@ export function titleBlockOf(detail: Detail, office: OfficeStamp | null): TitleB
 async function agreedRevisionPdf(event: H3Event, detail: Detail, stamp: LogStamp | undefined, step: (step: SealStep) => void, accept?: (sha256: string) => boolean, keptPages: string | null = null) {
   const printer = await revisionPrinter(event, detail, stamp)
   const { pages, raw, second } = await printer.settlePageNumbers(step, keptPages)
+  // what every answer below tells of how it was made
+  const made = () => ({ sectionPages: pages, chromiumRenders: printer.renders(), keptPagesHeld: keptPages !== null && pages === keptPages })
   step('comparing')
   const seen = new Map<string, number>()
   let last: Rendered | null = null
@@ -63,10 +65,10 @@ async function agreedRevisionPdf(event: H3Event, detail: Detail, stamp: LogStamp
     }
     last = await printer.reproducible(bytes)
     const sha = sha256Hex(last.bytes)
-    if (accept?.(sha) || seen.has(sha)) return { ...last, sha256: sha, renders: attempt, agreed: true, sectionPages: pages, chromiumRenders: printer.renders(), keptPagesHeld: keptPages !== null && pages === keptPages }
+    if (accept?.(sha) || seen.has(sha)) return { ...last, sha256: sha, renders: attempt, agreed: true, ...made() }
     seen.set(sha, attempt)
   }
-  if (accept && last) return { ...last, sha256: sha256Hex(last.bytes), renders: 3, agreed: false, sectionPages: pages, chromiumRenders: printer.renders(), keptPagesHeld: keptPages !== null && pages === keptPages }
+  if (accept && last) return { ...last, sha256: sha256Hex(last.bytes), renders: 3, agreed: false, ...made() }
   throw createError({ statusCode: 502, message: 'The PDF could not be rendered reproducibly: three renders of the same revision gave different bytes; try again when the server is less busy' })
 }
 
@@ -294,7 +296,6 @@ export async function sealRevision(event: H3Event, revisionId: number, user: Ses
   return withSealProgress(revisionId, 'seal', async (step) => {
     step('numbering')
     const kept = await approvalPages(revisionId)
-    if (kept !== null) step('numbered')
     const agreed = await agreedRevisionPdf(event, detail, stamp, step, undefined, kept)
     step('storing')
     const sealed = await storeSeal(event, detail, stamp, agreed, user)

@@ -284,11 +284,6 @@ function rewritePool(): Piscina | null {
   return pool
 }
 
-/** Whether the rewrite runs in worker threads here (false: inline). */
-export function rewriteOffThread() {
-  return rewritePool() !== null
-}
-
 /**
  * Same revision, same bytes: Chromium's output made reproducible (see `reproducibleBytes`), in a
  * worker thread when the built worker is there.
