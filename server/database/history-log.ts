@@ -1,10 +1,11 @@
 // Appending history rows to the log (design.md §7 "History as one log"), on a Drizzle connection or
 // transaction: used by the server (server/utils/history-log.ts) and by the seed script alike.
-import { asc, eq, getTableColumns, inArray } from 'drizzle-orm'
+import { asc, eq, getTableColumns, inArray, sql, type Column, type SQL } from 'drizzle-orm'
 import type { MySql2Database } from 'drizzle-orm/mysql2'
 import type { MySqlTable } from 'drizzle-orm/mysql-core'
-import { entryLeafHash, LOG_KINDS, logEntry, type LogKind } from '../../shared/log/entry'
+import { LOG_KINDS, rowLeafHash, type LogKind } from '../../shared/log/entry'
 import { ROW_FORM } from '../../shared/log/row-form'
+import type { StoredColumn } from '../../shared/log/canonical'
 import * as schema from './schema'
 
 type Database = MySql2Database<typeof schema>
@@ -29,22 +30,44 @@ export function rowLabel(kind: LogKind, id: number) {
   return `${words[kind] ?? kind} ${id}`
 }
 
-/** JSON columns as values whatever the driver hands back (MariaDB stores JSON as text). */
-export function normaliseRow(kind: LogKind, row: Row): Row {
+/** The large columns a caller has just written, by column name, in the forms it wrote them. */
+export type WrittenColumns = Readonly<Record<string, StoredColumn>>
+
+/**
+ * JSON columns as values whatever the driver hands back (MariaDB stores JSON as text). A column of
+ * `written` whose stored text reads back unchanged is given as its canonical piece, not parsed: the
+ * hashes of the row then take that text without walking or encoding the value again.
+ */
+export function normaliseRow(kind: LogKind, row: Row, written: WrittenColumns = {}): Row {
   const out: Row = { ...row }
   for (const [key, column] of Object.entries(getTableColumns(LOG_TABLES[kind]))) {
-    if (column.columnType === 'MySqlJson' && typeof out[key] === 'string') out[key] = JSON.parse(out[key] as string)
+    if (typeof out[key] !== 'string') continue
+    if (written[key]?.stored === out[key]) out[key] = written[key].canonical
+    else if (column.columnType === 'MySqlJson') out[key] = JSON.parse(out[key] as string)
   }
   return out
 }
 
+// Each kind's columns to select: JSON columns as their stored text (the driver would parse them,
+// and the read-back of a row just written compares that text with what was written).
+const selections = new Map<LogKind, Record<string, SQL | Column>>()
+function selectionOf(kind: LogKind) {
+  let selection = selections.get(kind)
+  if (!selection) {
+    selection = Object.fromEntries(Object.entries(getTableColumns(LOG_TABLES[kind]))
+      .map(([key, column]) => [key, column.columnType === 'MySqlJson' ? sql<string>`CAST(${column} AS CHAR)` : column]))
+    selections.set(kind, selection)
+  }
+  return selection
+}
+
 /** Every row of a kind, as stored, by id. */
-export async function rowsOf(db: Runner, kind: LogKind, ids?: number[]): Promise<Map<number, Row>> {
+export async function rowsOf(db: Runner, kind: LogKind, ids?: number[], written?: WrittenColumns): Promise<Map<number, Row>> {
   const table = LOG_TABLES[kind]
   const idColumn = getTableColumns(table).id!
-  const query = db.select().from(table)
+  const query = db.select(selectionOf(kind)).from(table)
   const rows = (ids ? await query.where(inArray(idColumn, ids)) : await query.orderBy(asc(idColumn))) as Row[]
-  return new Map(rows.map(r => [Number(r.id), normaliseRow(kind, r)]))
+  return new Map(rows.map(r => [Number(r.id), normaliseRow(kind, r, written)]))
 }
 
 /**
@@ -64,10 +87,11 @@ const batches = new WeakMap<object, number>()
 /**
  * Reads each row back as the database stores it and appends it to the log, inside `tx`. The `log`
  * row of chain_heads is held FOR UPDATE until the transaction ends, so leaf indexes are consecutive
- * in commit order. @returns the row as read back and its leaf index of each item, in the order given
- * (history adopted by the first append is not among them).
+ * in commit order. An item's `written` columns read back unchanged come as their canonical
+ * pieces (normaliseRow). @returns the row as read back and its leaf index of each item, in the
+ * order given (history adopted by the first append is not among them).
  */
-export async function appendToLog(tx: Runner, items: Array<{ kind: LogKind, id: number }>) {
+export async function appendToLog(tx: Runner, items: Array<{ kind: LogKind, id: number, written?: WrittenColumns }>) {
   const heads = schema.chainHeads
   let next = await holdLog(tx)
   let adopted = 0
@@ -83,10 +107,10 @@ export async function appendToLog(tx: Runner, items: Array<{ kind: LogKind, id: 
   const batch = batches.get(tx) ?? next
   batches.set(tx, batch)
   const out: Array<{ leafIndex: number, row: Row }> = []
-  for (const { kind, id } of items) {
-    const row = (await rowsOf(tx, kind, [id])).get(id)
+  for (const { kind, id, written } of items) {
+    const row = (await rowsOf(tx, kind, [id], written)).get(id)
     if (!row) throw new Error(`${rowLabel(kind, id)} cannot be read back to be logged`)
-    const leafHash = entryLeafHash(logEntry(kind, row, ROW_FORM))
+    const leafHash = rowLeafHash(kind, row, ROW_FORM)
     await tx.insert(schema.logLeaves).values({ leafIndex: next, kind, rowId: id, batch, leafHash, form: ROW_FORM, createdAt: new Date() })
     out.push({ leafIndex: next, row })
     next += 1

@@ -6,7 +6,7 @@ import { tallyChecks } from '../../shared/report/tally'
 import { checkSectionsIn } from '../../shared/report/render'
 import type { Db } from '../utils/db'
 import type { Tx } from '../utils/audit'
-import { plainJson, revisionHash } from '../utils/hashing'
+import { revisionHash, storedJson, storedText } from '../utils/hashing'
 import { deriveStatus, revisionCode, type DerivedStatus } from '../utils/revision-status'
 import { diffRevisions } from '../utils/revision-diff'
 import type { IssueRevisionBody } from '../../shared/schemas/issue'
@@ -168,17 +168,23 @@ export async function issueRevision(event: H3Event, sheetId: number, body: Issue
     const [last] = await tx.select({ id: r.id, seq: r.seq, contentHash: r.contentHash }).from(r).where(eq(r.sheetId, sheetId)).orderBy(desc(r.seq)).limit(1).for('update')
     const replies = await frozenReplies(tx, sheetId, last?.id, body.replies)
     const seq = (last?.seq ?? 0) + 1
+    // the large columns, each put into its stored text and its canonical JSON once: the content hash,
+    // the log's leaf and the check of the row read back all take those, none walks them again
+    const written = {
+      inputs: storedJson(frozen.inputs), results: storedJson(frozen.results), reportSections: storedJson(frozen.sections),
+      reportHtml: storedText(frozen.html), ...(replies.length ? { replies: storedJson(replies) } : {}),
+    }
     const fields = {
-      sheetId, seq, code: revisionCode('P', seq), note, failingChecksReason, replies: replies.length ? plainJson(replies) : null,
-      inputs: plainJson(frozen.inputs), results: plainJson(frozen.results),
+      sheetId, seq, code: revisionCode('P', seq), note, failingChecksReason,
       templateId: template.id, templateSlug: template.slug, templateVersion: template.version, templateTitle: template.title,
-      model: template.model, templateBody: text, engineVersion: frozen.engineVersion,
-      reportHtml: frozen.html, reportSections: plainJson(frozen.sections),
+      model: template.model, templateBody: text, engineVersion: frozen.engineVersion, reportHtml: frozen.html,
       authorId: user.id, issuedAt: new Date(), prevHash: last?.contentHash ?? null,
     }
-    const contentHash = revisionHash(fields)
-    const [{ id }] = await tx.insert(r).values({ ...fields, contentHash }).$returningId()
-    await logWrittenRow(tx, 'revision', id, { hash: contentHash, of: revisionHash })
+    const pieces = { replies: written.replies?.canonical ?? null, inputs: written.inputs.canonical, results: written.results.canonical, reportSections: written.reportSections.canonical, reportHtml: written.reportHtml.canonical }
+    const contentHash = revisionHash({ ...fields, ...pieces })
+    const texts = { replies: written.replies ? sql`${written.replies.stored}` : null, inputs: sql`${written.inputs.stored}`, results: sql`${written.results.stored}`, reportSections: sql`${written.reportSections.stored}` }
+    const [{ id }] = await tx.insert(r).values({ ...fields, ...texts, contentHash }).$returningId()
+    await logWrittenRow(tx, 'revision', id, { hash: contentHash, of: revisionHash, written })
     await recordAudit(event, { action: 'revision.issued', subject: `${project.jobNumber}/${sheet.reference} ${fields.code}`, actorId: user.id, detail: { revisionId: id, contentHash } }, tx)
     await enqueueMail(tx, {
       kind: 'revision.issued',

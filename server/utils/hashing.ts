@@ -1,13 +1,13 @@
-// Content hashes of the records side: SHA-256 over RFC 8785 canonical JSON (package `canonicalize`).
+// Content hashes of the records side: SHA-256 over RFC 8785 canonical JSON (shared/log/canonical.ts).
 // Pure functions (no Nitro auto-imports) so unit tests can check them against independent values.
-import { assertPlainJson, canonicalJson, sha256Hex } from '../../shared/log/canonical'
+import { assertPlainJson, type CanonicalPiece, canonicalJson, canonicalSha256, sha256Hex, storedJson, storedText } from '../../shared/log/canonical'
 import { laterFields } from '../../shared/log/row-form'
 import { verificationRef } from '../../shared/utils/verification-ref'
 
-export { canonicalJson, sha256Hex }
+export { canonicalJson, sha256Hex, storedJson, storedText }
 
 export function hashCanonical(value: unknown): string {
-  return sha256Hex(canonicalJson(value))
+  return canonicalSha256(value)
 }
 
 /**
@@ -37,7 +37,8 @@ export interface RevisionHashFields {
   model: string
   templateBody: string
   engineVersion: string
-  reportHtml: string
+  /** the text, or its canonical piece (storedText) where the caller has one */
+  reportHtml: string | CanonicalPiece
   reportSections: unknown
   authorId: number
   issuedAt: Date

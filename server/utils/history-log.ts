@@ -3,7 +3,7 @@ import { asc, desc, eq, gte, and, lt } from 'drizzle-orm'
 import { MerkleTree } from '../../shared/log/merkle'
 import { publicKeyOf, signTreeHead, type TreeHead } from '../../shared/log/tree-head'
 import type { LogKind } from '../../shared/log/entry'
-import { appendToLog, type Runner } from '../database/history-log'
+import { appendToLog, type Runner, type WrittenColumns } from '../database/history-log'
 import type { Tx } from './audit'
 import { markIdempotentWorkDone } from './idempotency'
 
@@ -97,10 +97,12 @@ export async function historyTransaction<T>(work: (tx: Tx) => Promise<T>, config
 /**
  * Appends a row just written in `tx` to the log. Where the row carries a content hash, the row as
  * the database gives it back must give that same hash, or nothing is written: what is hashed is
- * exactly what is stored. @throws 422 when the stored row differs from what was hashed.
+ * exactly what is stored. `written` names the large columns the caller wrote from storedJson or
+ * storedText, so their unchanged text is hashed from the pieces already made. @throws 422 when the stored row
+ * differs from what was hashed.
  */
-export async function logWrittenRow<R>(tx: Tx, kind: LogKind, id: number, content?: { hash: string, of: (row: R) => string }) {
-  const [appended] = await appendToLog(tx, [{ kind, id }])
+export async function logWrittenRow<R>(tx: Tx, kind: LogKind, id: number, content?: { hash: string, of: (row: R) => string, written?: WrittenColumns }) {
+  const [appended] = await appendToLog(tx, [{ kind, id, written: content?.written }])
   if (content && content.of(appended!.row as R) !== content.hash) {
     throw createError({ statusCode: 422, message: `The ${kind} could not be stored exactly as written (the database changed some of its text), so nothing was saved` })
   }

@@ -2,7 +2,7 @@
 // tree is recomputed from the rows themselves (never from the stored leaf hashes), so a row
 // deleted, reordered, inserted or edited behind the application's back no longer gives the root
 // of a head signed before. Pure: rows, leaves and heads in, breaks out.
-import { entryLeafHash, LOG_KINDS, logEntry, type LogKind } from '../../shared/log/entry'
+import { LOG_KINDS, rowLeafHash, type LogKind } from '../../shared/log/entry'
 import { KNOWN_ROW_FORMS } from '../../shared/log/row-form'
 import { leafHash, MerkleTree } from '../../shared/log/merkle'
 import { keyIdOf, verifyTreeHead } from '../../shared/log/tree-head'
@@ -61,7 +61,7 @@ export function checkLog(input: LogCheckInput): { breaks: LogBreak[], tree: Merk
       recomputed.push(Buffer.from(leaf.leafHash, 'hex'))
       continue
     }
-    const hash = entryLeafHash(logEntry(leaf.kind, row, form))
+    const hash = rowLeafHash(leaf.kind, row, form)
     if (hash !== leaf.leafHash) breaks.push({ chain: 'log', id: leaf.leafIndex, label, problem: 'changed', reason: 'the row no longer matches the leaf it was logged as (changed after it was written)' })
     recomputed.push(Buffer.from(hash, 'hex'))
     if (leaf.kind === 'audit') auditByBatch.set(leaf.batch, [...(auditByBatch.get(leaf.batch) ?? []), row])

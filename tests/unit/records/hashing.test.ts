@@ -1,5 +1,10 @@
 import { describe, expect, it } from 'vitest'
-import { auditHash, canonicalJson, hashCanonical, parseVerifyQuery, plainJson, revisionHash, sha256Hex, type RevisionHashFields } from '../../../server/utils/hashing'
+import { createHash } from 'node:crypto'
+import fc from 'fast-check'
+import canonicalize from 'canonicalize'
+import { auditHash, canonicalJson, hashCanonical, parseVerifyQuery, plainJson, revisionHash, sha256Hex, storedJson, type RevisionHashFields } from '../../../server/utils/hashing'
+import { CanonicalPiece, canonicalSha256 } from '../../../shared/log/canonical'
+import { entryLeafHash, logEntry, rowLeafHash } from '../../../shared/log/entry'
 import { verificationRef } from '../../../shared/utils/verification-ref'
 
 describe('canonical JSON (RFC 8785)', () => {
@@ -21,6 +26,57 @@ describe('canonical JSON (RFC 8785)', () => {
   it('refuses values JSON cannot carry, naming where they are', () => {
     expect(() => canonicalJson({ a: { b: [1, Number.NaN] } })).toThrow('a.b[1]')
     expect(() => plainJson({ x: Number.POSITIVE_INFINITY })).toThrow('x')
+  })
+})
+
+describe('canonical pieces (a large part put into canonical JSON once, then composed)', () => {
+  const isMembers = (v: unknown): v is Record<string, unknown> => v !== null && typeof v === 'object' && !Array.isArray(v)
+  /** `value` with some of its members, up to `depth` objects deep, replaced by their canonical pieces. */
+  const pieced = (value: unknown, depth: number, pick: () => boolean): unknown => !isMembers(value) || depth === 0
+    ? value
+    : Object.fromEntries(Object.entries(value).map(([k, v]) => [k, pick() ? new CanonicalPiece(canonicalize(v)!) : pieced(v, depth - 1, pick)]))
+
+  it('gives the text the package `canonicalize` gives the whole value, over random objects', () => {
+    const objects = fc.dictionary(fc.string({ unit: 'binary', maxLength: 6 }), fc.jsonValue({ maxDepth: 4 }), { maxKeys: 6 })
+    fc.assert(fc.property(objects, fc.array(fc.boolean(), { minLength: 1, maxLength: 20 }), (value, choices) => {
+      let i = 0
+      const withPieces = pieced({ top: value }, 3, () => choices[i++ % choices.length]!)
+      // the independent reference: the package over the plain value, as a JSON column gives it back
+      const reference = canonicalize({ top: JSON.parse(JSON.stringify(value)) })!
+      expect(canonicalJson(withPieces)).toBe(reference)
+      // hashed part by part, the same digest as the whole text hashed at once (node:crypto)
+      expect(canonicalSha256(withPieces)).toBe(createHash('sha256').update(reference).digest('hex'))
+    }), { numRuns: 300 })
+  })
+
+  it('makes the canonical JSON of what reads back from the stored text, over random values', () => {
+    // values as the engine gives them: JSON values with members left undefined and dates among them
+    const member = fc.oneof(fc.jsonValue({ maxDepth: 3 }), fc.constant(undefined), fc.date({ noInvalidDate: true }))
+    const values = fc.dictionary(fc.string({ maxLength: 5 }), fc.oneof(member, fc.array(member, { maxLength: 4 }), fc.dictionary(fc.string({ maxLength: 3 }), member, { maxKeys: 4 })), { maxKeys: 6 })
+    fc.assert(fc.property(values, (value) => {
+      const written = storedJson(value)
+      expect(written.stored).toBe(JSON.stringify(value))
+      // the reference: the package `canonicalize` over the value parsed back from the stored text
+      expect(written.canonical.text).toBe(canonicalize(JSON.parse(written.stored)))
+    }), { numRuns: 300 })
+  })
+
+  it('makes the stored text and the canonical JSON of what reads back from it', () => {
+    const value = { b: [1, 2.50, { z: null, a: 'é' }], a: { '10': 1, '2': 2 } }
+    const written = storedJson(value)
+    expect(written.stored).toBe(JSON.stringify(value))
+    expect(written.canonical.text).toBe(canonicalize(JSON.parse(written.stored)))
+    expect(() => storedJson({ x: [Number.NaN] })).toThrow('x[0]')
+  })
+
+  it('gives a revision the same content hash and log leaf from pieces as from its values', () => {
+    const r = revision()
+    const pieces = { inputs: storedJson(r.inputs).canonical, results: storedJson(r.results).canonical, reportSections: storedJson(r.reportSections).canonical }
+    expect(revisionHash({ ...r, ...pieces })).toBe(revisionHash(r))
+    const row = { id: 4, ...r, contentHash: 'c'.repeat(64) } as unknown as Record<string, unknown>
+    expect(logEntry('revision', { ...row, ...pieces })).toBe(logEntry('revision', row))
+    // RFC 6962 §2.1 leaf hash SHA-256(0x00 ‖ entry), streamed, against the entry's text hashed whole
+    expect(rowLeafHash('revision', { ...row, ...pieces })).toBe(entryLeafHash(logEntry('revision', row)))
   })
 })
 
