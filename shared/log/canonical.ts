@@ -15,7 +15,7 @@ const canonicalize = configure({ deterministic: true, strict: true, circularValu
  * A value already put into canonical JSON, to stand in for it inside a larger value: the larger
  * value's canonical JSON takes this text as it is, so a large part hashed into several digests (a
  * revision's results in its content hash and in its log leaf) is walked once. Make one only with
- * `canonicalPiece` or `storedJson` (or from text one of them made).
+ * `storedJson` or `storedText` (or from text one of them made).
  */
 export class CanonicalPiece {
   #bytes: Buffer | undefined
@@ -24,11 +24,6 @@ export class CanonicalPiece {
   get bytes(): Buffer {
     return (this.#bytes ??= Buffer.from(this.text, 'utf8'))
   }
-}
-
-/** The canonical JSON of `value`, kept to be composed into larger values. */
-export function canonicalPiece(value: unknown): CanonicalPiece {
-  return new CanonicalPiece(canonicalJson(value))
 }
 
 /**
@@ -57,12 +52,7 @@ export function canonicalSha256(value: unknown, prefix?: Uint8Array): string {
 
 function writeCanonical(value: unknown, write: (part: string | CanonicalPiece) => void): void {
   if (value instanceof CanonicalPiece) return write(value)
-  if (!holdsPiece(value, 3)) {
-    assertPlainJson(value, '')
-    const text = canonicalize(value)
-    if (text === undefined) throw new TypeError('value has no JSON form')
-    return write(text)
-  }
+  if (!holdsPiece(value, 3)) return write(plainCanonical(value))
   // RFC 8785 §3.2.3: members sorted by their names' UTF-16 code units (JavaScript's default sort),
   // name and value joined by ':' and members by ',', with no whitespace; members whose value is
   // undefined are left out, as JSON.stringify and the package do
@@ -74,6 +64,14 @@ function writeCanonical(value: unknown, write: (part: string | CanonicalPiece) =
     writeCanonical(members[name], write)
   })
   write('}')
+}
+
+/** The canonical JSON of a value without pieces. @throws naming the member JSON cannot carry. */
+function plainCanonical(value: unknown): string {
+  assertPlainJson(value, '')
+  const text = canonicalize(value)
+  if (text === undefined) throw new TypeError('value has no JSON form')
+  return text
 }
 
 const isMembers = (value: unknown): value is Record<string, unknown> =>
@@ -102,15 +100,15 @@ export interface StoredColumn {
  * @throws naming the member that JSON cannot carry (NaN, a lone surrogate).
  */
 export function storedJson(value: unknown): StoredColumn {
-  assertPlainJson(value, '')
-  return { stored: JSON.stringify(value), canonical: new CanonicalPiece(canonicalize(value)) }
+  const canonical = new CanonicalPiece(plainCanonical(value))
+  return { stored: JSON.stringify(value), canonical }
 }
 
 /** The same two forms for a text column: the text itself, and its canonical JSON (a JSON string). */
 export function storedText(text: string): StoredColumn {
-  assertPlainJson(text, '')
-  return { stored: text, canonical: new CanonicalPiece(canonicalize(text)) }
+  return { stored: text, canonical: new CanonicalPiece(plainCanonical(text)) }
 }
+
 export function sha256Hex(data: string | Uint8Array): string {
   return createHash('sha256').update(data).digest('hex')
 }
